@@ -1,0 +1,89 @@
+package render
+
+// A Scene is a flat, ordered display list: everything a backend needs to draw
+// a figure and nothing it would have to decide. Builders measure and place;
+// backends only serialise. The zero Scene is an empty 0x0 figure.
+type Scene struct {
+	Width, Height float64 // canvas size in pixels (SVG user units)
+	Title         string  // accessible name, written as <title>
+	Desc          string  // plain-language description, written as <desc>
+	Notes         []string
+	Font          Font
+	Marks         []Mark
+}
+
+// Font names the typeface the scene was measured with. When Data is set the
+// SVG backend embeds it, so that any viewer draws what layout measured.
+type Font struct {
+	Family string // CSS font-family list, e.g. "Go, sans-serif"
+	Data   []byte // TTF/OTF bytes to embed, or nil
+	Format string // "truetype" or "opentype" when Data is set
+}
+
+// Kind says which primitive a Mark is.
+type Kind uint8
+
+// The primitives. GroupStart and GroupEnd bracket a panel or any other group;
+// groups are placed by a translate transform only (DX, DY of the GroupStart).
+const (
+	Rect Kind = iota
+	Circle
+	Path
+	Text
+	GroupStart
+	GroupEnd
+)
+
+// Anchor is the horizontal alignment of a Text mark at its X.
+type Anchor uint8
+
+// Text anchors.
+const (
+	Start Anchor = iota
+	Middle
+	End
+)
+
+// Attr is one data-* attribute. A slice keeps output order deterministic.
+type Attr struct{ Name, Value string }
+
+// Point is a vertex of a Path.
+type Point struct{ X, Y float64 }
+
+// A Mark is one primitive of a Scene. Which fields matter depends on Kind:
+//
+//	Rect:       X, Y, W, H, Fill
+//	Circle:     X, Y (centre), R, Fill, Stroke
+//	Path:       Lines (each inner slice one polyline, drawn with M then L),
+//	            Closed to close every polyline (areas), Fill, Stroke, StrokeWidth
+//	Text:       X, Y (baseline), Text, Size, Bold, Anchor, Fill
+//	GroupStart: DX, DY (translate), Class
+//
+// Every kind may carry a Class (always prefixed "plumb-"), data-* Attrs and a
+// Tooltip, written as a nested <title> so that shortened text stays readable.
+type Mark struct {
+	Kind        Kind
+	Class       string
+	X, Y, W, H  float64
+	R           float64
+	DX, DY      float64
+	Lines       [][]Point
+	Closed      bool
+	Text        string
+	Size        float64
+	Bold        bool
+	Anchor      Anchor
+	Fill        string // "#rrggbb"; empty means none
+	Stroke      string // "#rrggbb"; empty means none
+	StrokeWidth float64
+	Opacity     float64 // 0 means fully opaque
+	Dash        string  // stroke-dasharray, e.g. "3 2"
+	Attrs       []Attr
+	Tooltip     string
+}
+
+// Add appends marks to the scene.
+func (s *Scene) Add(m ...Mark) { s.Marks = append(s.Marks, m...) }
+
+// Note records a decision plumb made for the user.
+func (s *Scene) Note(n string) { s.Notes = append(s.Notes, n) }
