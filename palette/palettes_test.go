@@ -1,0 +1,224 @@
+package palette
+
+import (
+	"errors"
+	"math"
+	"testing"
+)
+
+var whiteBG = SRGB{1, 1, 1}
+
+func TestCategorical(t *testing.T) {
+	all, err := Categorical(MaxCategorical)
+	if err != nil {
+		t.Fatal(err)
+	}
+	prev := math.Inf(1)
+	for n := 1; n <= MaxCategorical; n++ {
+		p, err := Categorical(n)
+		if err != nil || len(p) != n {
+			t.Fatalf("Categorical(%d) = %v, %v", n, p, err)
+		}
+		for i := range p {
+			if p[i] != all[i] {
+				t.Errorf("Categorical(%d) is not a prefix of the full palette", n)
+			}
+		}
+		w := p.WorstCase()
+		if w > prev {
+			t.Errorf("worst case grows from n=%d to n=%d", n-1, n)
+		}
+		prev = w
+	}
+	// The target: worst case at least 12 for 8 colours (Okabe &
+	// Ito 2008 reach 10.87 by the same measure, okabe-ito.json).
+	if w := all.WorstCase(); w < 12 {
+		t.Errorf("worst case of 8 colours = %.2f, want >= 12", w)
+	}
+	for _, c := range all {
+		// WCAG 2.x SC 1.4.11 non-text contrast, 3:1 against white.
+		if r := Contrast(c, whiteBG); r < MinMarkContrast {
+			t.Errorf("%v: contrast %.3f on white", c, r)
+		}
+		lch := OKLabToOKLCH(SRGBToOKLab(c))
+		if lch.C > MaxCategoricalChroma || lch.C < 0.07-1e-3 {
+			t.Errorf("%v: OKLCH chroma %.3f outside 0.07..%v", c, lch.C, MaxCategoricalChroma)
+		}
+		for _, ch := range []float64{c.R, c.G, c.B} {
+			if ch == 0 || ch == 1 {
+				// A saturated channel is the mark of a primary or secondary.
+				t.Errorf("%v: a channel at the gamut edge", c)
+			}
+		}
+	}
+	for _, n := range []int{-1, 0, 9} {
+		if _, err := Categorical(n); !errors.Is(err, ErrSize) {
+			t.Errorf("Categorical(%d) error %v", n, err)
+		}
+	}
+}
+
+func TestSingleColours(t *testing.T) {
+	n, a := Neutral(), Accent()
+	for _, c := range []SRGB{n, a} {
+		if r := Contrast(c, whiteBG); r < MinMarkContrast { // WCAG 2.x SC 1.4.11
+			t.Errorf("%v: contrast %.3f on white", c, r)
+		}
+	}
+	if w := (Palette{n, a}).WorstCase(); w < 2*MinPairDistance {
+		t.Errorf("neutral and accent only %.2f apart in the worst case", w)
+	}
+	if lch := OKLabToOKLCH(SRGBToOKLab(n)); lch.C > 0.06 {
+		t.Errorf("neutral %v is not calm: chroma %.3f", n, lch.C)
+	}
+	if r := Contrast(Text(), whiteBG); r < 7 { // WCAG 2.x SC 1.4.6 (AAA) for body text
+		t.Errorf("text contrast %.2f", r)
+	}
+	if r := Contrast(Muted(), whiteBG); r < MinTextContrast { // WCAG 2.x SC 1.4.3
+		t.Errorf("muted contrast %.2f", r)
+	}
+	if RelativeLuminance(Muted()) <= RelativeLuminance(Text()) {
+		t.Error("muted text is not lighter than text")
+	}
+	ctx := SRGBToLab(Context())
+	if ctx.L < 80 || math.Hypot(ctx.A, ctx.B) > 5 {
+		t.Errorf("context %v is not a light grey: %+v", Context(), ctx)
+	}
+	if SRGBToLab(Context()).L <= SRGBToLab(n).L+20 {
+		t.Error("context is not clearly fainter than the neutral")
+	}
+}
+
+// steps is the CIEDE2000 distance between consecutive colours of lab.
+func steps(lab []Lab) []float64 {
+	d := make([]float64, len(lab)-1)
+	for i := range d {
+		d[i] = DeltaE2000(lab[i], lab[i+1])
+	}
+	return d
+}
+
+func cv(x []float64) float64 {
+	var m float64
+	for _, v := range x {
+		m += v
+	}
+	m /= float64(len(x))
+	var s float64
+	for _, v := range x {
+		s += (v - m) * (v - m)
+	}
+	return math.Sqrt(s/float64(len(x))) / m
+}
+
+func TestSequential(t *testing.T) {
+	hues := SequentialHues()
+	if len(hues) < 4 {
+		t.Fatalf("only %d hues", len(hues))
+	}
+	for _, hue := range hues {
+		for n := MinRamp; n <= MaxRamp; n++ {
+			p, err := Sequential(hue, n)
+			if err != nil || len(p) != n {
+				t.Fatalf("Sequential(%q, %d) = %v, %v", hue, n, p, err)
+			}
+			for _, v := range Visions {
+				lab := p.Lab(v)
+				for i := 1; i < n; i++ {
+					// More = darker on a light background, for every reader.
+					if !(lab[i].L < lab[i-1].L) {
+						t.Errorf("%s %d %v: L* not falling at %d: %.2f then %.2f", hue, n, v, i, lab[i-1].L, lab[i].L)
+					}
+				}
+			}
+			if c := cv(steps(p.Lab(Normal))); c >= 0.25 {
+				t.Errorf("%s %d: CV of steps %.3f", hue, n, c)
+			}
+			// No rainbow: the hue of the coloured classes spans under 60°.
+			lo, hi := 360.0, 0.0
+			for _, c := range p {
+				if lch := OKLabToOKLCH(SRGBToOKLab(c)); lch.C > 0.03 {
+					lo, hi = math.Min(lo, lch.H), math.Max(hi, lch.H)
+				}
+			}
+			if hi-lo > 60 {
+				t.Errorf("%s %d: hue spans %.0f°", hue, n, hi-lo)
+			}
+		}
+	}
+	if _, err := Sequential("rainbow", 5); err == nil {
+		t.Error("unknown hue accepted")
+	}
+	for _, n := range []int{2, 12} {
+		if _, err := Sequential("blue", n); !errors.Is(err, ErrSize) {
+			t.Errorf("Sequential(blue, %d) error %v", n, err)
+		}
+	}
+}
+
+func TestDiverging(t *testing.T) {
+	for _, pair := range DivergingHues() {
+		for n := MinRamp; n <= MaxRamp; n++ {
+			p, err := DivergingPair(pair, n)
+			if err != nil || len(p) != n {
+				t.Fatalf("DivergingPair(%q, %d) = %v, %v", pair, n, p, err)
+			}
+			lab := p.Lab(Normal)
+			for i := 0; i < n/2; i++ {
+				// Arms balanced in lightness within 3 L*.
+				if d := math.Abs(lab[i].L - lab[n-1-i].L); d > 3 {
+					t.Errorf("%s %d: classes %d and %d differ by %.2f L*", pair, n, i, n-1-i, d)
+				}
+			}
+			if n%2 == 1 {
+				m := lab[n/2]
+				if m.L < 90 || math.Hypot(m.A, m.B) > 2 {
+					t.Errorf("%s %d: middle %+v not a light neutral", pair, n, m)
+				}
+			}
+			for _, v := range Visions {
+				l := p.Lab(v)
+				if d := DeltaE2000(l[0], l[n-1]); d < 20 {
+					t.Errorf("%s %d %v: ends only %.2f apart", pair, n, v, d)
+				}
+				// Lightness rises towards the middle along each arm.
+				for i := 1; i <= (n-1)/2; i++ {
+					if !(l[i].L > l[i-1].L) || !(l[n-1-i].L > l[n-i].L) {
+						t.Errorf("%s %d %v: arm lightness not monotone at %d", pair, n, v, i)
+					}
+				}
+			}
+			// Never a red/green pair: the two ends' CIELAB hues are not one
+			// red (h < 45° or > 345°) and one green (100° to 170°).
+			h0 := hueDeg(lab[0].A, lab[0].B)
+			h1 := hueDeg(lab[n-1].A, lab[n-1].B)
+			if (isRed(h0) && isGreen(h1)) || (isGreen(h0) && isRed(h1)) {
+				t.Errorf("%s: ends are red and green (%.0f°, %.0f°)", pair, h0, h1)
+			}
+		}
+	}
+	d, err := Diverging(9)
+	if p, _ := DivergingPair(DivergingHues()[0], 9); err != nil || d[0] != p[0] {
+		t.Error("Diverging is not the first pair")
+	}
+}
+
+func isRed(h float64) bool   { return h < 45 || h > 345 }
+func isGreen(h float64) bool { return h >= 100 && h <= 170 }
+
+func TestPaletteMeasures(t *testing.T) {
+	var empty Palette
+	if !math.IsInf(empty.WorstCase(), 1) || !math.IsInf(Palette{whiteBG}.MinDistance(Normal), 1) {
+		t.Error("fewer than two colours should have no closest pair")
+	}
+	p := Palette{hex24(0x000000), hex24(0xffffff), hex24(0x777777)}
+	// CIEDE2000 weights lightness differences near L* = 50 most, so the
+	// mid grey is nearer white than black.
+	i, j, d := p.ClosestPair(Normal)
+	if i != 1 || j != 2 || d != DeltaE2000(SRGBToLab(p[1]), SRGBToLab(p[2])) || d >= DeltaE2000(SRGBToLab(p[0]), SRGBToLab(p[2])) {
+		t.Errorf("ClosestPair = %d %d %v", i, j, d)
+	}
+	if h := p.Hex(); h[2] != "#777777" {
+		t.Errorf("Hex = %v", h)
+	}
+}
