@@ -1,0 +1,118 @@
+package scale
+
+import "math"
+
+// PixelColumn maps x to the pixel column M4 groups it in:
+// floor(w·(x−x0)/(x1−x0)), clamped to [0, w−1]. A renderer that draws M4's
+// output must place vertices with this same mapping (and the same w, x0 and
+// x1), or the reduced line is no longer guaranteed to rasterise like the full
+// one. A degenerate range (x1 == x0, or a non-finite result) maps to column 0.
+func PixelColumn(x, x0, x1 float64, w int) int {
+	if x1 == x0 {
+		return 0
+	}
+	c := math.Floor(float64(w) * (x - x0) / (x1 - x0))
+	switch {
+	case c >= float64(w-1):
+		return max(w-1, 0)
+	case c > 0:
+		return int(c)
+	}
+	// c <= 0, or NaN from a degenerate range.
+	return 0
+}
+
+// M4 appends to dst the indices of the points of the polyline (xs[i], ys[i])
+// that must be kept so that the line drawn w pixels wide over [x0, x1]
+// rasterises exactly as the full line does (Jugel, Jerzak, Hackenbroich &
+// Markl 2014, "M4: A Visualization-Oriented Time Series Data Aggregation",
+// PVLDB 7(10)): for every run of consecutive points in one pixel column (see
+// PixelColumn) it keeps the first, the last, one point of minimum y and one of
+// maximum y (the earliest on ties), without duplicates, so at most four
+// indices per column for x-sorted input and at most 4w in all.
+//
+// The indices come out in input order, so drawing the kept points in order
+// draws the reduced polyline. The guarantee holds for binary rasterisation of
+// a one-pixel line with vertices snapped to pixels and a monotone y mapping;
+// anti-aliased output is only approximately identical (methods.md §5).
+//
+// A point with a non-finite x or y is a gap in the line. M4 keeps the points
+// on both sides of every gap and, so that a renderer walking the kept points
+// sees the break, the index of the first point of each run of gap points.
+// Input is expected sorted by x; unsorted input is still reduced correctly
+// (a column revisited later starts a new group) but is less compressed.
+// Extra elements of the longer of xs and ys are ignored. w < 1 yields
+// nothing.
+func M4(dst []int, xs, ys []float64, x0, x1 float64, w int) []int {
+	n := min(len(xs), len(ys))
+	if w < 1 || n == 0 {
+		return dst
+	}
+	var g m4Group
+	open := false // g holds a group
+	inGap := false
+	for i := 0; i < n; i++ {
+		x, y := xs[i], ys[i]
+		if !m4Drawable(x) || !m4Drawable(y) {
+			if open {
+				dst = g.flush(dst)
+				open = false
+			}
+			if !inGap {
+				dst = append(dst, i)
+				inGap = true
+			}
+			continue
+		}
+		inGap = false
+		c := PixelColumn(x, x0, x1, w)
+		if open && c == g.col {
+			g.last = i
+			if y < ys[g.min] {
+				g.min = i
+			}
+			if y > ys[g.max] {
+				g.max = i
+			}
+			continue
+		}
+		if open {
+			dst = g.flush(dst)
+		}
+		g = m4Group{col: c, first: i, last: i, min: i, max: i}
+		open = true
+	}
+	if open {
+		dst = g.flush(dst)
+	}
+	return dst
+}
+
+// m4Group is the running state of one run of points in one column.
+type m4Group struct {
+	col                   int
+	first, last, min, max int
+}
+
+// flush appends the group's distinct indices in increasing order. first is
+// the smallest and last the largest by construction, so only min and max
+// need ordering.
+func (g *m4Group) flush(dst []int) []int {
+	dst = append(dst, g.first)
+	a, b := g.min, g.max
+	if a > b {
+		a, b = b, a
+	}
+	if a != g.first && a != g.last {
+		dst = append(dst, a)
+	}
+	if b != a && b != g.first && b != g.last {
+		dst = append(dst, b)
+	}
+	if g.last != g.first {
+		dst = append(dst, g.last)
+	}
+	return dst
+}
+
+func m4Drawable(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
