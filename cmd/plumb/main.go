@@ -35,6 +35,12 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	case "help", "-h", "--help":
 		fmt.Fprintln(stdout, usage)
 		return exitOK
+	case "bars", "dots":
+		return runRows(args[0], args[1:], stdin, stdout, stderr)
+	case "palette":
+		return runPalette(args[1:], stdin, stdout, stderr)
+	case "demo":
+		return runDemo(args[1:], stdout, stderr)
 	}
 	fmt.Fprintf(stderr, "plumb: unknown chart %q\n%s\n", args[0], usage)
 	return exitUsage

@@ -1,0 +1,73 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+)
+
+// figure is one entry of the demo gallery: a command line run on one of the
+// built-in data sets. The gallery doubles as the golden test set, so every
+// chart variant worth pinning appears here.
+type figure struct {
+	name string   // output file name without extension
+	data string   // file in demodata/
+	args []string // the command line after "plumb", without data and -o
+}
+
+// gallery lists the demo figures in the order the README shows them.
+var gallery = []figure{
+	{"bars-sorted", "routes.csv", []string{"bars", "--label", "route", "--value", "passengers",
+		"--title", "Passengers per route, 2025", "--subtitle", "Annual passengers, all sailings",
+		"--source", "Lantern Isles Ferry Company (fictional), demo data"}},
+	{"bars-negative", "change.csv", []string{"bars", "--label", "route", "--value", "change_pct", "--unit", "%",
+		"--value-name", "change in passengers",
+		"--title", "Change in passengers from 2024 to 2025", "--subtitle", "Percent change per route; four routes lost riders"}},
+	{"bars-highlight", "routes.csv", []string{"bars", "--label", "route", "--value", "fare", "--top", "8", "--agg", "mean", "--unit", "£",
+		"--highlight", "Brindle Holm to Oskmouth",
+		"--title", "Adult single fare", "--subtitle", "Seven dearest routes and the mean of the rest; Brindle Holm to Oskmouth highlighted"}},
+	{"bars-vertical", "loads.csv", []string{"bars", "--label", "weekday", "--value", "load_pct", "--agg", "mean", "--order", "data",
+		"--vertical", "--unit", "%", "--value-name", "mean load",
+		"--title", "Mean vessel load by weekday", "--subtitle", "Share of seats taken, averaged over all hours"}},
+	{"bars-percent", "routes.csv", []string{"bars", "--label", "route", "--value", "passengers", "--percent", "--top", "6",
+		"--title", "Where the passengers travel", "--subtitle", "Share of annual passengers, five largest routes and the rest"}},
+	{"bars-print", "change.csv", []string{"bars", "--label", "route", "--value", "change_pct", "--unit", "%", "--for", "print",
+		"--value-name", "change in passengers",
+		"--title", "Change in passengers, 2024 to 2025", "--note", "Print size: one journal column, 7 pt text"}},
+	{"dots-punctuality", "routes.csv", []string{"dots", "--label", "route", "--value", "punctuality_pct", "--unit", "%",
+		"--value-name", "sailings on time",
+		"--title", "Punctuality by route", "--subtitle", "Share of sailings leaving within five minutes of schedule, 2025"}},
+}
+
+// runDemo renders the gallery from the data built into the binary.
+func runDemo(args []string, stdout, stderr io.Writer) int {
+	fs := newFlagSet("demo", stderr)
+	out := fs.String("o", "plumb-demo", "write the gallery into `DIR`")
+	pos, err := parse(fs, args)
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	if len(pos) > 0 {
+		return exitCode(usagef("demo takes no data file; it uses its own (-o DIR for the output folder)"), stderr)
+	}
+	if err := os.MkdirAll(*out, 0o755); err != nil {
+		return exitCode(fmt.Errorf("demo: %w", err), stderr)
+	}
+	for _, fig := range gallery {
+		data, err := demoFS.ReadFile("demodata/" + fig.data)
+		if err != nil {
+			return exitCode(fmt.Errorf("demo: %w", err), stderr)
+		}
+		path := filepath.Join(*out, fig.name+".svg")
+		args := append([]string{fig.args[0], "-", "--format", "csv", "--quiet", "-o", path}, fig.args[1:]...)
+		var errs bytes.Buffer
+		if code := run(args, bytes.NewReader(data), stdout, &errs); code != exitOK {
+			fmt.Fprintf(stderr, "plumb: demo %s failed: %s", fig.name, errs.String())
+			return code
+		}
+		fmt.Fprintln(stderr, "wrote", path)
+	}
+	return exitOK
+}

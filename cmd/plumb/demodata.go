@@ -1,0 +1,11 @@
+package main
+
+import "embed"
+
+//go:generate go run ../../testdata/ferrygen -o demodata
+
+// demoFS holds the demo data sets of the invented ferry operator, written by
+// testdata/ferrygen from fixed seeds, so that `plumb demo` needs no files.
+//
+//go:embed demodata/*.csv
+var demoFS embed.FS

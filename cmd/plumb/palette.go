@@ -1,0 +1,232 @@
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"plumb/palette"
+	"plumb/render"
+)
+
+const paletteUsage = `usage:
+  plumb palette categorical|sequential|diverging [--n N] [--hue NAME] [--json] [-o FILE]
+  plumb palette check [--background HEX] [--json] [-o FILE] COLOR...
+
+Without --json a palette is written as an SVG swatch sheet showing the colours
+as seen with normal, protan, deutan and tritan vision. check reviews any
+colours (#rgb or #rrggbb; quote them, or leave out the '#', since the shell
+reads '#' as a comment) and exits 0 when they are safe, 1 when not.`
+
+// runPalette is "plumb palette": show plumb's palettes, or check colours.
+func runPalette(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+	if len(args) == 0 {
+		fmt.Fprintln(stderr, paletteUsage)
+		return exitUsage
+	}
+	switch args[0] {
+	case "categorical", "sequential", "diverging":
+		return runPaletteShow(args[0], args[1:], stdout, stderr)
+	case "check":
+		return runPaletteCheck(args[1:], stdout, stderr)
+	case "help", "-h", "--help":
+		fmt.Fprintln(stdout, paletteUsage)
+		return exitOK
+	}
+	fmt.Fprintf(stderr, "plumb palette: unknown kind %q\n%s\n", args[0], paletteUsage)
+	return exitUsage
+}
+
+func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
+	fs := newFlagSet("palette "+kind, stderr)
+	n := fs.Int("n", 0, "number of colours (categorical 1-8, default 8; sequential and diverging 3-11, default 7 and 9)")
+	hue := fs.String("hue", "", "sequential: "+strings.Join(palette.SequentialHues(), ", ")+
+		"; diverging: "+strings.Join(palette.DivergingHues(), ", "))
+	asJSON := fs.Bool("json", false, `print {"kind": ..., "colors": [...]} instead of a swatch sheet`)
+	out := fs.String("o", "", "output file (default standard output)")
+	pos, err := parse(fs, args)
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	if len(pos) > 0 {
+		return exitCode(usagef("palette %s: unexpected argument %q", kind, pos[0]), stderr)
+	}
+	var (
+		p     palette.Palette
+		title string
+	)
+	switch kind {
+	case "categorical":
+		if *hue != "" {
+			return exitCode(usagef("palette categorical: --hue does not apply"), stderr)
+		}
+		if *n == 0 {
+			*n = palette.MaxCategorical
+		}
+		p, err = palette.Categorical(*n)
+		title = fmt.Sprintf("Categorical palette, %d colours", *n)
+	case "sequential":
+		if *hue == "" {
+			*hue = palette.SequentialHues()[0]
+		}
+		if *n == 0 {
+			*n = 7
+		}
+		p, err = palette.Sequential(*hue, *n)
+		title = fmt.Sprintf("Sequential palette, %s, %d colours", *hue, *n)
+	case "diverging":
+		if *hue == "" {
+			*hue = palette.DivergingHues()[0]
+		}
+		if *n == 0 {
+			*n = 9
+		}
+		p, err = palette.DivergingPair(*hue, *n)
+		title = fmt.Sprintf("Diverging palette, %s, %d colours", *hue, *n)
+	}
+	if err != nil {
+		return exitCode(usagef("%v", err), stderr)
+	}
+	write := func(w io.Writer) error { return render.WritePaletteSheet(w, title, p) }
+	if *asJSON {
+		write = func(w io.Writer) error {
+			return writeJSON(w, struct {
+				Kind   string   `json:"kind"`
+				Colors []string `json:"colors"`
+			}{kind, p.Hex()})
+		}
+	}
+	if err := writeOutput(*out, stdout, write); err != nil {
+		return exitCode(err, stderr)
+	}
+	return exitOK
+}
+
+// checkJSON is the exact shape "palette check --json" prints.
+type checkJSON struct {
+	Colors     []string       `json:"colors"`
+	Background string         `json:"background"`
+	Pairs      []pairJSON     `json:"pairs"`
+	Contrast   []contrastJSON `json:"contrast"`
+	Safe       bool           `json:"safe"`
+	Problems   []string       `json:"problems"`
+}
+
+type pairJSON struct {
+	A      string  `json:"a"`
+	B      string  `json:"b"`
+	Normal float64 `json:"normal"`
+	Protan float64 `json:"protan"`
+	Deutan float64 `json:"deutan"`
+	Tritan float64 `json:"tritan"`
+}
+
+type contrastJSON struct {
+	Color string  `json:"color"`
+	Ratio float64 `json:"ratio"`
+}
+
+func runPaletteCheck(args []string, stdout, stderr io.Writer) int {
+	fs := newFlagSet("palette check", stderr)
+	bgFlag := fs.String("background", "#ffffff", "background colour the marks sit on")
+	asJSON := fs.Bool("json", false, "print the measurements as JSON")
+	out := fs.String("o", "", "file for the JSON (with --json) or the SVG swatch sheet")
+	pos, err := parse(fs, args)
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	if len(pos) == 0 {
+		return exitCode(usagef("palette check: no colours given (want #rgb or #rrggbb)"), stderr)
+	}
+	bg, err := palette.ParseHex(*bgFlag)
+	if err != nil {
+		return exitCode(usagef("palette check: --background %q is not a colour (want #rgb or #rrggbb)", *bgFlag), stderr)
+	}
+	colors := make([]palette.SRGB, len(pos))
+	for i, s := range pos {
+		c, err := palette.ParseHex(s)
+		if err != nil {
+			return exitCode(usagef("palette check: argument %q is not a colour (want #rgb or #rrggbb)", s), stderr)
+		}
+		colors[i] = c
+	}
+	r := palette.Check(colors, bg)
+	if *asJSON {
+		err = writeOutput(*out, stdout, func(w io.Writer) error { return writeJSON(w, reportJSON(r)) })
+	} else {
+		writeCheckText(stdout, r)
+		if *out != "" {
+			err = writeOutput(*out, stdout, func(w io.Writer) error {
+				return render.WritePaletteSheet(w, "Colour check", colors)
+			})
+		}
+	}
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	if !r.Safe {
+		return exitData
+	}
+	return exitOK
+}
+
+func reportJSON(r palette.Report) checkJSON {
+	j := checkJSON{
+		Colors:     palette.Palette(r.Colors).Hex(),
+		Background: r.Background.Hex(),
+		Pairs:      make([]pairJSON, len(r.Pairs)),
+		Contrast:   make([]contrastJSON, len(r.Contrast)),
+		Safe:       r.Safe,
+		Problems:   r.Problems,
+	}
+	for i, p := range r.Pairs {
+		j.Pairs[i] = pairJSON{A: p.A.Hex(), B: p.B.Hex(),
+			Normal: p.Distance[palette.Normal], Protan: p.Distance[palette.Protan],
+			Deutan: p.Distance[palette.Deutan], Tritan: p.Distance[palette.Tritan]}
+	}
+	for i, c := range r.Contrast {
+		j.Contrast[i] = contrastJSON{Color: c.Color.Hex(), Ratio: c.Ratio}
+	}
+	if j.Problems == nil {
+		j.Problems = []string{}
+	}
+	return j
+}
+
+func writeJSON(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(v)
+}
+
+// writeCheckText is the short readable report of palette check.
+func writeCheckText(w io.Writer, r palette.Report) {
+	fmt.Fprintf(w, "colours: %s on %s\n", strings.Join(palette.Palette(r.Colors).Hex(), " "), r.Background.Hex())
+	if len(r.Pairs) > 0 {
+		fmt.Fprintf(w, "closest pair for each vision (CIEDE2000, at least %g needed):\n", palette.MinPairDistance)
+		for _, v := range palette.Visions {
+			best := r.Pairs[0]
+			for _, p := range r.Pairs[1:] {
+				if p.Distance[v] < best.Distance[v] {
+					best = p
+				}
+			}
+			fmt.Fprintf(w, "  %-7s %6.1f  %s / %s\n", v, best.Distance[v], best.A.Hex(), best.B.Hex())
+		}
+	}
+	fmt.Fprintf(w, "contrast on %s (at least %g:1 needed):\n", r.Background.Hex(), palette.MinMarkContrast)
+	for _, c := range r.Contrast {
+		// Truncated, not rounded: WCAG counts 2.999:1 as failing 3:1.
+		fmt.Fprintf(w, "  %s  %.2f:1\n", c.Color.Hex(), math.Floor(c.Ratio*100)/100)
+	}
+	if r.Safe {
+		fmt.Fprintln(w, "safe: yes")
+		return
+	}
+	fmt.Fprintln(w, "safe: no")
+	for _, p := range r.Problems {
+		fmt.Fprintf(w, "  - %s\n", p)
+	}
+}

@@ -1,0 +1,235 @@
+package main
+
+import (
+	"bytes"
+	"encoding/xml"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+	"testing"
+
+	"plumb/layout"
+)
+
+// svgNode is a parsed SVG element, enough to measure a figure from outside,
+// the way a reviewer or an audit would.
+type svgNode struct {
+	Name     string
+	Attr     map[string]string
+	Text     string
+	Children []*svgNode
+	DX, DY   float64 // accumulated translate of the enclosing groups
+}
+
+func parseSVG(t *testing.T, data []byte) *svgNode {
+	t.Helper()
+	dec := xml.NewDecoder(bytes.NewReader(data))
+	var stack []*svgNode
+	var root *svgNode
+	for {
+		tok, err := dec.Token()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatalf("SVG does not parse as XML: %v", err)
+		}
+		switch tok := tok.(type) {
+		case xml.StartElement:
+			n := &svgNode{Name: tok.Name.Local, Attr: map[string]string{}}
+			for _, a := range tok.Attr {
+				n.Attr[a.Name.Local] = a.Value
+			}
+			if len(stack) > 0 {
+				p := stack[len(stack)-1]
+				n.DX, n.DY = p.DX, p.DY
+				p.Children = append(p.Children, n)
+			} else {
+				root = n
+			}
+			if tr := n.Attr["transform"]; tr != "" {
+				var dx, dy float64
+				if _, err := fmt.Sscanf(tr, "translate(%g,%g)", &dx, &dy); err != nil {
+					t.Fatalf("transform %q is not a plain translate", tr)
+				}
+				n.DX += dx
+				n.DY += dy
+			}
+			stack = append(stack, n)
+		case xml.EndElement:
+			stack = stack[:len(stack)-1]
+		case xml.CharData:
+			if len(stack) > 0 {
+				stack[len(stack)-1].Text += string(tok)
+			}
+		}
+	}
+	if root == nil || root.Name != "svg" {
+		t.Fatalf("no <svg> root")
+	}
+	return root
+}
+
+// walk visits every element below n in document order.
+func (n *svgNode) walk(visit func(*svgNode)) {
+	for _, c := range n.Children {
+		visit(c)
+		c.walk(visit)
+	}
+}
+
+func (n *svgNode) all(name, class string) []*svgNode {
+	var out []*svgNode
+	n.walk(func(c *svgNode) {
+		if c.Name == name && (class == "" || hasClass(c, class)) {
+			out = append(out, c)
+		}
+	})
+	return out
+}
+
+func hasClass(n *svgNode, class string) bool {
+	for _, c := range strings.Fields(n.Attr["class"]) {
+		if c == class {
+			return true
+		}
+	}
+	return false
+}
+
+func (n *svgNode) num(t *testing.T, attr string) float64 {
+	t.Helper()
+	v, err := strconv.ParseFloat(n.Attr[attr], 64)
+	if err != nil {
+		t.Fatalf("<%s %s=%q>: %v", n.Name, attr, n.Attr[attr], err)
+	}
+	return v
+}
+
+// textBoxes measures every <text> with the same fonts layout used.
+func textBoxes(t *testing.T, root *svgNode) ([]layout.Box, []string) {
+	var boxes []layout.Box
+	var texts []string
+	fonts := layout.Fonts{}
+	for _, n := range root.all("text", "") {
+		anchor := 0
+		switch n.Attr["text-anchor"] {
+		case "middle":
+			anchor = 1
+		case "end":
+			anchor = 2
+		}
+		face := fonts.Face(n.Attr["font-weight"] == "bold")
+		b := layout.TextBox(face, n.Text, n.num(t, "font-size"), n.num(t, "x")+n.DX, n.num(t, "y")+n.DY, anchor)
+		boxes = append(boxes, b)
+		texts = append(texts, n.Text)
+	}
+	return boxes, texts
+}
+
+// checkFigure asserts what every figure must satisfy: an accessible root,
+// a description, no text overlapping other text or leaving the canvas.
+func checkFigure(t *testing.T, data []byte) *svgNode {
+	t.Helper()
+	root := parseSVG(t, data)
+	if root.Attr["role"] != "img" {
+		t.Errorf(`root has role=%q, want "img"`, root.Attr["role"])
+	}
+	ids := strings.Fields(root.Attr["aria-labelledby"])
+	if len(ids) != 2 {
+		t.Errorf("aria-labelledby=%q, want the title and desc ids", root.Attr["aria-labelledby"])
+	}
+	titles, descs := 0, 0
+	for _, c := range root.Children {
+		switch c.Name {
+		case "title":
+			titles++
+		case "desc":
+			descs++
+			if strings.TrimSpace(c.Text) == "" {
+				t.Errorf("empty <desc>")
+			}
+		}
+	}
+	if titles != 1 || descs != 1 {
+		t.Errorf("root has %d <title> and %d <desc>, want one of each", titles, descs)
+	}
+	w, h := root.num(t, "width"), root.num(t, "height")
+	canvas := layout.Box{X: 0, Y: 0, W: w, H: h}
+	boxes, texts := textBoxes(t, root)
+	for i, b := range boxes {
+		if !b.Inside(canvas) {
+			t.Errorf("text %q at %+v leaves the %gx%g canvas", texts[i], b, w, h)
+		}
+		for j := i + 1; j < len(boxes); j++ {
+			if b.Overlaps(boxes[j]) {
+				t.Errorf("text %q %+v overlaps %q %+v", texts[i], b, texts[j], boxes[j])
+			}
+		}
+	}
+	return root
+}
+
+// checkBars asserts the lie factor and the common baseline of bar marks:
+// every bar's length is proportional to its value and starts at zero.
+func checkBars(t *testing.T, root *svgNode) {
+	t.Helper()
+	bars := root.all("rect", "plumb-mark")
+	if len(bars) == 0 {
+		t.Fatal("no bars")
+	}
+	base := root.all("path", "plumb-baseline")
+	if len(base) != 1 {
+		t.Fatalf("%d baselines, want exactly one", len(base))
+	}
+	xs, ys := pathPoints(t, base[0].Attr["d"])
+	vertical := xs[0] != xs[len(xs)-1]
+	zero := xs[0]
+	if vertical {
+		zero = ys[0]
+	}
+	perUnit := math.NaN()
+	for _, b := range bars {
+		v := b.num(t, "data-value")
+		x, y, bw, bh := b.num(t, "x"), b.num(t, "y"), b.num(t, "width"), b.num(t, "height")
+		length, start, end := bw, x, x+bw
+		if vertical {
+			length, start, end = bh, y+bh, y
+		}
+		// Bars start at zero: positive bars leave the baseline, negative ones end on it.
+		if v >= 0 && math.Abs(start-zero) > 0.006 || v < 0 && math.Abs(end-zero) > 0.006 && !vertical || v < 0 && vertical && math.Abs(y-zero) > 0.006 {
+			t.Errorf("bar %q (value %g) does not start at the baseline %g: x=%g y=%g w=%g h=%g", b.Attr["data-label"], v, zero, x, y, bw, bh)
+		}
+		if v == 0 {
+			continue
+		}
+		k := length / math.Abs(v)
+		if math.IsNaN(perUnit) {
+			perUnit = k
+			continue
+		}
+		// Tufte's lie factor between this bar and the first, within 0.5%:
+		// at most 0.005 px of rounding on the shortest bar is allowed for.
+		tol := 0.005 + 0.006/length
+		if lf := k / perUnit; math.Abs(lf-1) > tol {
+			t.Errorf("bar %q: lie factor %.4f (length %g for value %g)", b.Attr["data-label"], lf, length, v)
+		}
+	}
+}
+
+// pathPoints reads an absolute M/L path.
+func pathPoints(t *testing.T, d string) (xs, ys []float64) {
+	t.Helper()
+	for _, cmd := range strings.FieldsFunc(d, func(r rune) bool { return r == 'M' || r == 'L' || r == 'Z' }) {
+		a, b, ok := strings.Cut(cmd, ",")
+		x, err1 := strconv.ParseFloat(a, 64)
+		y, err2 := strconv.ParseFloat(b, 64)
+		if !ok || err1 != nil || err2 != nil {
+			t.Fatalf("path %q: bad point %q", d, cmd)
+		}
+		xs, ys = append(xs, x), append(ys, y)
+	}
+	return xs, ys
+}

@@ -1,0 +1,697 @@
+package render
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"plumb/palette"
+	"plumb/scale"
+)
+
+// BarsOptions configures a bar chart. The zero value draws the honest
+// default: horizontal bars from zero, largest first, one neutral colour,
+// values at the bar ends, at most DefaultTop bars.
+type BarsOptions struct {
+	Common
+	Order     Order    // ByValue (default), ByLabel or ByData
+	Top       int      // most bars before the rest become Other; 0 means DefaultTop, negative never combines
+	Vertical  bool     // stand the bars up; labels then sit under narrow columns
+	Percent   bool     // show each value as a share of the total
+	Highlight []string // labels drawn in the accent colour
+	From, To  *float64 // widen the value domain; bars always include zero
+	Unit      string   // appended to values: "%", "kg"
+	ValueName string   // what the values measure, for the axis and the description
+	LabelName string   // what the categories are, for the description
+	Averages  bool     // values are means, medians or extremes: Other averages them instead of summing
+}
+
+// DotsOptions configures a dot plot: like bars, but values are positions, so
+// the domain fits the data and need not include zero.
+type DotsOptions struct {
+	Common
+	Order     Order
+	Top       int // as for bars, but 0 means DefaultDotsTop
+	Highlight []string
+	From, To  *float64 // set the domain; they may not hide any value
+	Unit      string
+	ValueName string
+	LabelName string
+	Averages  bool // as for bars; dots default to averaging in the CLI
+}
+
+// Bars draws a bar chart of values by label and writes it as SVG to w. It
+// returns the notes that record what was decided for the caller.
+func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]string, error) {
+	s, err := BarsScene(labels, values, opt)
+	if err != nil {
+		return nil, err
+	}
+	return s.Notes, WriteSVG(w, s)
+}
+
+// BarsScene builds the bar chart's scene without writing it.
+func BarsScene(labels []string, values []float64, opt BarsOptions) (*Scene, error) {
+	c := rowChart{
+		Common: opt.Common, dots: false, vertical: opt.Vertical, order: opt.Order, top: opt.Top,
+		percent: opt.Percent, highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
+		valueName: opt.ValueName, labelName: opt.LabelName, averages: opt.Averages,
+	}
+	return c.build(labels, values)
+}
+
+// Dots draws a dot plot of values by label and writes it as SVG to w.
+func Dots(w io.Writer, labels []string, values []float64, opt DotsOptions) ([]string, error) {
+	s, err := DotsScene(labels, values, opt)
+	if err != nil {
+		return nil, err
+	}
+	return s.Notes, WriteSVG(w, s)
+}
+
+// DotsScene builds the dot plot's scene without writing it.
+func DotsScene(labels []string, values []float64, opt DotsOptions) (*Scene, error) {
+	c := rowChart{
+		Common: opt.Common, dots: true, order: opt.Order, top: opt.Top,
+		highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
+		valueName: opt.ValueName, labelName: opt.LabelName, averages: opt.Averages,
+	}
+	return c.build(labels, values)
+}
+
+// rowChart is what bars and dots share: one row (or column) per category,
+// one value axis.
+type rowChart struct {
+	Common
+	dots, vertical       bool
+	order                Order
+	top                  int
+	percent              bool
+	highlight            []string
+	from, to             *float64
+	unit                 string
+	valueName, labelName string
+	averages             bool
+
+	f        *frame
+	rows     []row
+	d0, d1   float64 // value domain
+	lo0, hi0 float64 // the domain before it was widened to nice ticks
+	ticks    scale.Ticks
+	vfmt     scale.Format
+}
+
+func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
+	if err := checkRows(labels, values); err != nil {
+		return nil, err
+	}
+	f, err := newFrame(c.Common)
+	if err != nil {
+		return nil, err
+	}
+	c.f = f
+	if err := findLabels(c.highlight, labels); err != nil {
+		return nil, err
+	}
+	hl := make(map[string]bool, len(c.highlight))
+	for _, h := range c.highlight {
+		hl[h] = true
+	}
+	c.rows = make([]row, len(labels))
+	for i := range labels {
+		c.rows[i] = row{label: labels[i], value: values[i], raw: values[i], highlight: hl[labels[i]]}
+	}
+	if c.percent {
+		if err := c.toShares(); err != nil {
+			return nil, err
+		}
+	}
+	if err := arrange(c.rows, c.order); err != nil {
+		return nil, err
+	}
+	top := c.top
+	if top == 0 && c.dots {
+		top = DefaultDotsTop
+	} else if top == 0 {
+		top = DefaultTop
+	}
+	if top > 0 && top < 2 {
+		return nil, fmt.Errorf("--top %d: show at least 2 categories", top)
+	}
+	var note string
+	c.rows, note = combineTail(c.rows, top, !c.averages)
+	if note != "" {
+		f.scene.Note(note)
+	}
+	if err := c.domain(); err != nil {
+		return nil, err
+	}
+	vals := make([]float64, len(c.rows))
+	for i, r := range c.rows {
+		vals[i] = r.value
+	}
+	c.vfmt = scale.ValueFormat(vals, c.unit)
+	var bottom float64
+	if c.vertical {
+		bottom, err = c.layoutColumns()
+	} else {
+		bottom, err = c.layoutRows()
+	}
+	if err != nil {
+		return nil, err
+	}
+	f.scene.Desc = c.describe()
+	return f.finish(bottom), nil
+}
+
+// toShares turns values into percentages of their total.
+func (c *rowChart) toShares() error {
+	total := 0.0
+	for _, r := range c.rows {
+		if r.value < 0 {
+			return &refusal{
+				reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
+				instead: "shares need values of one sign; drop --percent to draw the values themselves",
+			}
+		}
+		total += r.value
+	}
+	if total == 0 {
+		return &refusal{reason: "cannot show shares: the values add up to zero", instead: "drop --percent"}
+	}
+	for i := range c.rows {
+		c.rows[i].value = 100 * c.rows[i].value / total
+	}
+	c.unit = "%"
+	c.f.scene.Note(fmt.Sprintf("showing each value as a percentage of the total, %s", scale.ValueFormat([]float64{total}, "").Format(total)))
+	return nil
+}
+
+// domain fixes the value domain: bars always include zero and end on nice
+// ticks; dots fit the data. --from and --to may widen, never hide.
+func (c *rowChart) domain() error {
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, r := range c.rows {
+		lo, hi = math.Min(lo, r.value), math.Max(hi, r.value)
+	}
+	if !c.dots {
+		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
+		if c.from != nil && *c.from > lo {
+			why := fmt.Sprintf("a bar chart starting at %s would cut %s", c.numText(*c.from), c.cutWhat(lo))
+			return &refusal{reason: why, instead: "a bar's length is its value, so bars start at zero; to compare values far from zero use a dot plot: plumb dots (which may start anywhere)"}
+		}
+		if c.to != nil && *c.to < hi {
+			return &refusal{reason: fmt.Sprintf("--to %s would cut bars that reach %s", c.numText(*c.to), c.numText(hi)), instead: "give --to at or beyond the largest value, or leave it out"}
+		}
+	} else {
+		if c.from != nil && *c.from > lo {
+			return &refusal{reason: fmt.Sprintf("--from %s would hide values down to %s", c.numText(*c.from), c.numText(lo)), instead: "give --from at or below the smallest value, or leave it out"}
+		}
+		if c.to != nil && *c.to < hi {
+			return &refusal{reason: fmt.Sprintf("--to %s would hide values up to %s", c.numText(*c.to), c.numText(hi)), instead: "give --to at or above the largest value, or leave it out"}
+		}
+	}
+	if c.from != nil {
+		lo = *c.from
+	}
+	if c.to != nil {
+		hi = *c.to
+	}
+	c.d0, c.d1 = lo, hi
+	c.lo0, c.hi0 = lo, hi
+	return nil
+}
+
+func (c *rowChart) cutWhat(lo float64) string {
+	if lo < 0 {
+		return fmt.Sprintf("the bars down to %s", c.numText(lo))
+	}
+	return "every bar short of its true length: bars must start at zero"
+}
+
+func (c *rowChart) numText(v float64) string {
+	return scale.ValueFormat([]float64{v}, c.unit).Format(v)
+}
+
+// fitTicks chooses the ticks for an axis of the given length: as many nice
+// ticks as fit with their labels apart. It also settles the domain: bars and
+// dots without --from/--to end on the outer ticks.
+func (c *rowChart) fitTicks(length float64, horizontal bool) {
+	sp := c.f.spec
+	per := sp.text * 5 // about one tick per five text heights along the axis
+	if !horizontal {
+		per = sp.text * 3.5
+	}
+	m := int(math.Max(2, math.Min(10, math.Floor(length/per))))
+	c.d0, c.d1 = c.lo0, c.hi0
+	for ; m >= 2; m-- {
+		t := c.ticksFor(m)
+		if !horizontal || len(t.Values) < 2 || c.ticksFit(t, length) {
+			c.ticks = t
+			break
+		}
+		c.ticks = t
+	}
+	if c.from == nil && len(c.ticks.Values) > 0 {
+		c.d0 = math.Min(c.d0, c.ticks.Values[0])
+	}
+	if c.to == nil && len(c.ticks.Values) > 0 {
+		c.d1 = math.Max(c.d1, c.ticks.Values[len(c.ticks.Values)-1])
+	}
+}
+
+// ticksFor computes ticks with about m values for the current domain.
+func (c *rowChart) ticksFor(m int) scale.Ticks {
+	lo, hi := c.d0, c.d1
+	if c.from != nil || c.to != nil {
+		// A domain set by the user is kept; ticks fall inside it.
+		t := scale.Extended(lo, hi, m, false)
+		var in []float64
+		for _, v := range t.Values {
+			if v >= lo-1e-9*math.Abs(hi-lo) && v <= hi+1e-9*math.Abs(hi-lo) {
+				in = append(in, v)
+			}
+		}
+		t.Values = in
+		if c.from == nil && len(in) > 0 && in[0] > lo {
+			return scale.NiceDomain(lo, hi, m)
+		}
+		return t
+	}
+	if c.dots {
+		return scale.NiceDomain(lo, hi, m)
+	}
+	return scale.BarDomain(lo, hi, m)
+}
+
+// ticksFit reports whether the tick labels of t, centred on their ticks,
+// keep at least one text height apart along an axis of this length.
+func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
+	tf := scale.TickFormat(t.Values, c.unit)
+	span := t.Values[len(t.Values)-1] - t.Values[0]
+	if span <= 0 {
+		return true
+	}
+	step := length * (t.Values[1] - t.Values[0]) / span
+	widest := 0.0
+	for _, v := range t.Values {
+		widest = math.Max(widest, c.f.measure(tf.Format(v), c.f.spec.text, false))
+	}
+	return widest+c.f.spec.text <= step
+}
+
+func (c *rowChart) fill(r row) string {
+	if r.highlight {
+		return c.f.th.accent
+	}
+	return c.f.th.neutral
+}
+
+// insideContrast reports whether value text can sit inside a bar of this
+// fill: WCAG 2.x asks 4.5:1 for text.
+func (c *rowChart) insideContrast(fill string) bool {
+	a, err1 := palette.ParseHex(fill)
+	b, err2 := palette.ParseHex(c.f.th.inside)
+	return err1 == nil && err2 == nil && palette.Contrast(a, b) >= 4.5
+}
+
+// layoutRows draws horizontal bars or dots, one row per category, and
+// returns the y under the axis.
+func (c *rowChart) layoutRows() (float64, error) {
+	f, sp := c.f, c.f.spec
+	lh := lineHeight(sp.text)
+	asc, desc := f.fonts.Face(false).Ascent(sp.text), f.fonts.Face(false).Descent(sp.text)
+	inner := f.width - 2*sp.pad
+	n := len(c.rows)
+
+	// Rows: two lines of label where height allows, else one.
+	maxLines := 2
+	axisH := sp.gap + lh
+	if c.valueName != "" || c.unit != "" {
+		axisH += lh
+	}
+	top := f.plotTop()
+	band := 0.0
+	if fb := f.fixedPlotBottom(); fb > 0 {
+		band = (fb - axisH - top) / float64(n)
+		if band < 2*lh+sp.gap {
+			maxLines = 1
+		}
+		if band < lh+sp.gap/2 {
+			return 0, fmt.Errorf("%d rows do not fit in a %g px high figure with %g px text: show fewer with --top, or give a taller --size", n, f.spec.height, sp.text)
+		}
+	}
+	labelMax := inner * 0.38
+	wrapped := make([][]string, n)
+	labelCol, linesUsed := 0.0, 1
+	for i, r := range c.rows {
+		lines, cut := f.wrap(r.label, sp.text, r.highlight, labelMax, maxLines)
+		wrapped[i] = lines
+		if cut {
+			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
+		}
+		linesUsed = max(linesUsed, len(lines))
+		for _, l := range lines {
+			labelCol = math.Max(labelCol, f.measure(l, sp.text, r.highlight))
+		}
+	}
+	if band == 0 && c.dots {
+		// A dot needs no thickness: rows only as tall as their labels.
+		band = math.Max(float64(linesUsed)*lh+sp.gap, sp.text*1.8)
+	} else if band == 0 {
+		band = math.Max(float64(linesUsed)*lh+sp.gap*1.5, sp.text*2.1)
+	}
+	markH := math.Min(math.Max(band*0.7, sp.text*0.9), band-sp.gap/2)
+	markH = math.Min(markH, math.Max(sp.text*2.4, band*0.5))
+	radius := sp.text * 0.36
+
+	plotL := sp.pad + labelCol + sp.gap*1.5
+	right := f.width - sp.pad
+	vtext := make([]string, n)
+	vw := make([]float64, n)
+	for i, r := range c.rows {
+		vtext[i] = c.vfmt.Format(r.value)
+		vw[i] = f.measure(vtext[i], sp.text, false)
+	}
+	// Reserve room beyond the domain ends for the value labels outside the
+	// marks, first assuming every label is outside; then let the labels that
+	// fit inside their bars give the room back (their bars only grow).
+	inside := make([]bool, n)
+	reserve := func() (l, r float64) {
+		for i, row := range c.rows {
+			if inside[i] {
+				continue
+			}
+			need := vw[i] + sp.gap
+			if c.dots {
+				need += radius
+			}
+			if row.value < 0 && !c.dots {
+				l = math.Max(l, need)
+			} else {
+				r = math.Max(r, need)
+			}
+		}
+		return l, r
+	}
+	var x0, x1 float64
+	place := func() {
+		rl, rr := reserve()
+		for pass := 0; pass < 3; pass++ {
+			x0, x1 = plotL+rl, right-rr
+			c.fitTicks(x1-x0, true)
+			// The end tick labels are centred on their ticks: keep them on the canvas.
+			tf := scale.TickFormat(c.ticks.Values, c.unit)
+			if k := len(c.ticks.Values); k > 0 {
+				lastHalf := f.measure(tf.Format(c.ticks.Values[k-1]), sp.text, false) / 2
+				if x1+lastHalf > right {
+					rr = math.Max(rr, lastHalf)
+					continue
+				}
+			}
+			break
+		}
+	}
+	place()
+	if !c.dots {
+		k := (x1 - x0) / (c.d1 - c.d0)
+		changed := false
+		for i, r := range c.rows {
+			if math.Abs(r.value)*k >= vw[i]+2*sp.gap && c.insideContrast(c.fill(r)) {
+				inside[i], changed = true, true
+			}
+		}
+		if changed {
+			place()
+		}
+	}
+	xs := scale.Linear{D0: c.d0, D1: c.d1, R0: x0, R1: x1}
+	bottom := top + float64(n)*band
+
+	// Grid and ticks first, so marks draw over them.
+	tf := scale.TickFormat(c.ticks.Values, c.unit)
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
+	for _, t := range c.ticks.Values {
+		x := round2(xs.Map(t))
+		if !(t == 0 && !c.dots) {
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1})
+		}
+		f.text(x, bottom+sp.gap+asc, tf.Format(t), sp.text, false, f.th.muted, "plumb-tick", Middle)
+	}
+	axisBottom := bottom + sp.gap + lh
+	if title := c.axisTitle(); title != "" {
+		f.text((x0+x1)/2, axisBottom+asc, title, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
+		axisBottom += lh
+	}
+	f.scene.Add(Mark{Kind: GroupEnd})
+	zero := round2(xs.Map(0))
+	if !c.dots {
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{zero, top}, {zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
+	}
+
+	for i, r := range c.rows {
+		cy := top + (float64(i)+0.5)*band
+		textY := cy + (asc-desc)/2
+		// Category label, right-aligned against the plot.
+		lines := wrapped[i]
+		fill := f.th.text
+		if r.other > 0 {
+			fill = f.th.muted
+		}
+		tip := ""
+		if strings.Join(lines, " ") != r.label {
+			tip = r.label
+		}
+		for j, l := range lines {
+			y := textY + (float64(j)-float64(len(lines)-1)/2)*lh
+			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: plotL - sp.gap*1.5, Y: y, Text: l, Size: sp.text, Bold: r.highlight, Fill: fill, Anchor: End, Tooltip: tip})
+		}
+		attrs := []Attr{{"label", r.label}, {"value", dataNumber(r.value)}}
+		if c.percent {
+			attrs = append(attrs, Attr{"amount", dataNumber(r.raw)})
+		}
+		if r.other > 0 {
+			attrs = append(attrs, Attr{"combined", fmt.Sprint(r.other)})
+		}
+		xv := round2(xs.Map(r.value))
+		if c.dots {
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Dash: "1 3"})
+			f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark", X: xv, Y: cy, R: radius, Fill: c.fill(r), Attrs: attrs})
+			f.text(xv+radius+sp.gap, textY, vtext[i], sp.text, false, f.th.text, "plumb-value", Start)
+			continue
+		}
+		lo, hi := zero, xv
+		if r.value < 0 {
+			lo, hi = xv, zero
+		}
+		f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: lo, Y: cy - markH/2, W: hi - lo, H: markH, Fill: c.fill(r), Attrs: attrs})
+		switch {
+		case inside[i] && r.value >= 0:
+			f.text(xv-sp.gap, textY, vtext[i], sp.text, false, f.th.inside, "plumb-value", End)
+		case inside[i]:
+			f.text(xv+sp.gap, textY, vtext[i], sp.text, false, f.th.inside, "plumb-value", Start)
+		case r.value < 0:
+			f.text(xv-sp.gap, textY, vtext[i], sp.text, false, f.th.text, "plumb-value", End)
+		default:
+			f.text(xv+sp.gap, textY, vtext[i], sp.text, false, f.th.text, "plumb-value", Start)
+		}
+	}
+	return axisBottom, nil
+}
+
+// axisTitle names the value axis: what is measured and its unit.
+func (c *rowChart) axisTitle() string {
+	name := c.valueName
+	if c.percent {
+		if name == "" {
+			return "Share of total (%)"
+		}
+		return "Share of total " + name + " (%)"
+	}
+	if c.unit != "" && name != "" {
+		return name + " (" + c.unit + ")"
+	}
+	return name
+}
+
+// layoutColumns draws vertical bars and returns the y under the labels.
+func (c *rowChart) layoutColumns() (float64, error) {
+	f, sp := c.f, c.f.spec
+	lh := lineHeight(sp.text)
+	asc, desc := f.fonts.Face(false).Ascent(sp.text), f.fonts.Face(false).Descent(sp.text)
+	n := len(c.rows)
+	top := f.plotTop()
+	if title := c.axisTitle(); title != "" {
+		f.text(sp.pad, top+asc, title, sp.text, false, f.th.muted, "plumb-axis-title", Start)
+		top += lh + sp.gap
+	}
+	// Width first: the tick labels' width depends on the ticks, which depend
+	// on the height; the height is fixed by the medium or chosen here.
+	labelsH := 2*lh + sp.gap
+	plotH := math.Min(f.width*0.5, 420*sp.text/13)
+	if fb := f.fixedPlotBottom(); fb > 0 {
+		plotH = fb - top - labelsH
+	}
+	hasNeg, hasPos := false, false
+	for _, r := range c.rows {
+		hasNeg = hasNeg || r.value < 0
+		hasPos = hasPos || r.value > 0
+	}
+	rt, rb := 0.0, 0.0
+	if hasPos {
+		rt = lh
+	}
+	if hasNeg {
+		rb = lh
+	}
+	if plotH-rt-rb < 4*sp.text {
+		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller --size or drop --vertical")
+	}
+	c.fitTicks(plotH-rt-rb, false)
+	tf := scale.TickFormat(c.ticks.Values, c.unit)
+	tickW := 0.0
+	for _, t := range c.ticks.Values {
+		tickW = math.Max(tickW, f.measure(tf.Format(t), sp.text, false))
+	}
+	plotL := sp.pad + tickW + sp.gap
+	plotR := f.width - sp.pad
+	band := (plotR - plotL) / float64(n)
+	if band < sp.text*1.6 {
+		return 0, fmt.Errorf("%d columns are too narrow at this width: drop --vertical (horizontal bars fit long lists) or show fewer with --top", n)
+	}
+	barW := math.Min(band*0.7, sp.text*4)
+	y0, y1 := top+plotH-rb, top+rt
+	ys := scale.Linear{D0: c.d0, D1: c.d1, R0: y0, R1: y1}
+	bottom := top + plotH
+
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
+	for _, t := range c.ticks.Values {
+		y := round2(ys.Map(t))
+		if t != 0 {
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1})
+		}
+		f.text(plotL-sp.gap, y+(asc-desc)/2, tf.Format(t), sp.text, false, f.th.muted, "plumb-tick", End)
+	}
+	f.scene.Add(Mark{Kind: GroupEnd})
+	zero := round2(ys.Map(0))
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
+
+	showValues := true
+	vtext := make([]string, n)
+	for i, r := range c.rows {
+		vtext[i] = c.vfmt.Format(r.value)
+		if f.measure(vtext[i], sp.text, false) > band-2 {
+			showValues = false
+		}
+	}
+	if !showValues {
+		f.scene.Note("left out the value labels: they are wider than the columns; the axis carries the values (or drop --vertical)")
+	}
+	lines := 1
+	wrapped := make([][]string, n)
+	for i, r := range c.rows {
+		ls, cut := f.wrap(r.label, sp.text, r.highlight, band-sp.gap, 2)
+		wrapped[i] = ls
+		lines = max(lines, len(ls))
+		if cut {
+			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
+		}
+	}
+	for i, r := range c.rows {
+		cx := plotL + (float64(i)+0.5)*band
+		yv := round2(ys.Map(r.value))
+		lo, hi := yv, zero
+		if r.value < 0 {
+			lo, hi = zero, yv
+		}
+		attrs := []Attr{{"label", r.label}, {"value", dataNumber(r.value)}}
+		if c.percent {
+			attrs = append(attrs, Attr{"amount", dataNumber(r.raw)})
+		}
+		if r.other > 0 {
+			attrs = append(attrs, Attr{"combined", fmt.Sprint(r.other)})
+		}
+		f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: round2(cx - barW/2), Y: lo, W: round2(barW), H: hi - lo, Fill: c.fill(r), Attrs: attrs})
+		if showValues {
+			if r.value < 0 {
+				f.text(cx, yv+sp.gap/2+asc, vtext[i], sp.text, false, f.th.text, "plumb-value", Middle)
+			} else {
+				f.text(cx, yv-sp.gap/2-desc, vtext[i], sp.text, false, f.th.text, "plumb-value", Middle)
+			}
+		}
+		tip := ""
+		if strings.Join(wrapped[i], " ") != r.label {
+			tip = r.label
+		}
+		fill := f.th.text
+		if r.other > 0 {
+			fill = f.th.muted
+		}
+		for j, l := range wrapped[i] {
+			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: cx, Y: bottom + sp.gap + asc + float64(j)*lh, Text: l, Size: sp.text, Bold: r.highlight, Fill: fill, Anchor: Middle, Tooltip: tip})
+		}
+	}
+	return bottom + sp.gap + float64(lines)*lh, nil
+}
+
+// describe writes the plain-language <desc>: what is plotted, the extremes,
+// and what was combined.
+func (c *rowChart) describe() string {
+	kind := "Bar chart"
+	switch {
+	case c.dots:
+		kind = "Dot plot"
+	case c.vertical:
+		kind = "Vertical bar chart"
+	}
+	what := c.valueName
+	if what == "" {
+		what = "values"
+	}
+	if c.percent {
+		what = "share of total " + c.valueName
+	}
+	by := c.labelName
+	if by == "" {
+		by = "category"
+	}
+	var b strings.Builder
+	fmt.Fprintf(&b, "%s of %s by %s, %d %s", kind, strings.TrimSpace(what), by, len(c.rows), plural(len(c.rows), "row", "rows"))
+	switch c.order {
+	case ByValue, "":
+		b.WriteString(", largest first")
+	case ByLabel:
+		b.WriteString(", in label order")
+	case ByData:
+		b.WriteString(", in the order given")
+	}
+	b.WriteString(". ")
+	hi, lo := 0, 0
+	for i, r := range c.rows {
+		if r.other > 0 {
+			continue
+		}
+		if r.value > c.rows[hi].value || c.rows[hi].other > 0 {
+			hi = i
+		}
+		if r.value < c.rows[lo].value || c.rows[lo].other > 0 {
+			lo = i
+		}
+	}
+	fmt.Fprintf(&b, "Largest: %s at %s; smallest: %s at %s.", c.rows[hi].label, c.vfmt.Format(c.rows[hi].value), c.rows[lo].label, c.vfmt.Format(c.rows[lo].value))
+	if last := c.rows[len(c.rows)-1]; last.other > 0 {
+		fmt.Fprintf(&b, " %d smaller categories are combined in %s at %s.", last.other, last.label, c.vfmt.Format(last.value))
+	}
+	if len(c.highlight) > 0 {
+		fmt.Fprintf(&b, " Highlighted: %s.", strings.Join(c.highlight, ", "))
+	}
+	return b.String()
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}

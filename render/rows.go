@@ -1,0 +1,233 @@
+package render
+
+import (
+	"cmp"
+	"fmt"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+)
+
+// Order says how categories are arranged.
+type Order string
+
+// Category orders. The zero Order is ByValue: largest first, which puts the
+// comparison the reader wants to make next to each other (common practice).
+const (
+	ByValue Order = "value" // largest first
+	ByLabel Order = "label" // alphabetical, numbers inside labels in numeric order
+	ByData  Order = "data"  // as given: time, ranks, ordinal scales
+)
+
+// DefaultTop is how many categories a chart shows before combining the
+// smallest into one Other bar. About a dozen labelled rows still read at a
+// glance on a page (common practice).
+const DefaultTop = 12
+
+// DefaultDotsTop is the same limit for dot plots. A dot needs one line of
+// text, not a bar's thickness, and a dot plot stays readable with a few
+// dozen rows (common practice), so fewer categories are folded away.
+const DefaultDotsTop = 25
+
+// row is one category as drawn.
+type row struct {
+	label     string
+	value     float64 // the plotted value (a share when drawing percentages)
+	raw       float64 // the value as given
+	highlight bool
+	other     int // > 0: this row combines that many categories
+}
+
+// checkRows validates parallel label and value slices.
+func checkRows(labels []string, values []float64) error {
+	if len(labels) != len(values) {
+		return fmt.Errorf("%d labels but %d values: give one label per value", len(labels), len(values))
+	}
+	if len(values) == 0 {
+		return fmt.Errorf("no values to draw")
+	}
+	for i, v := range values {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return fmt.Errorf("value %d (%q) is %v: give finite numbers, or leave the row out", i+1, labels[i], v)
+		}
+	}
+	return nil
+}
+
+// arrange orders rows and reports a note when it chose the order for the user.
+func arrange(rows []row, order Order) error {
+	switch order {
+	case ByValue, "":
+		slices.SortStableFunc(rows, func(a, b row) int {
+			if c := cmp.Compare(b.value, a.value); c != 0 {
+				return c
+			}
+			return naturalCompare(a.label, b.label)
+		})
+	case ByLabel:
+		slices.SortStableFunc(rows, func(a, b row) int { return naturalCompare(a.label, b.label) })
+	case ByData:
+	default:
+		return fmt.Errorf("unknown order %q: use value, label or data", string(order))
+	}
+	return nil
+}
+
+// combineTail keeps the top-1 rows by value and folds the rest into one
+// Other row placed last. sum says whether values add up (sums, counts);
+// otherwise Other shows the mean of the combined values. Rows must already be
+// in display order; the kept rows keep that order.
+func combineTail(rows []row, top int, sum bool) ([]row, string) {
+	if top < 2 || len(rows) <= top {
+		return rows, ""
+	}
+	idx := make([]int, len(rows))
+	for i := range idx {
+		idx[i] = i
+	}
+	slices.SortStableFunc(idx, func(a, b int) int {
+		if c := cmp.Compare(rows[b].value, rows[a].value); c != 0 {
+			return c
+		}
+		return naturalCompare(rows[a].label, rows[b].label)
+	})
+	keep := make([]bool, len(rows))
+	for _, i := range idx[:top-1] {
+		keep[i] = true
+	}
+	// Highlighted rows are what the reader was asked to find; never hide them.
+	for i, r := range rows {
+		if r.highlight {
+			keep[i] = true
+		}
+	}
+	var kept []row
+	other := row{}
+	var names []string
+	for i, r := range rows {
+		if keep[i] {
+			kept = append(kept, r)
+			continue
+		}
+		other.value += r.value
+		other.raw += r.raw
+		other.other++
+		names = append(names, r.label)
+	}
+	if other.other == 0 {
+		return rows, ""
+	}
+	how := "summed"
+	if !sum {
+		other.value /= float64(other.other)
+		other.raw /= float64(other.other)
+		how = "averaged"
+	}
+	other.label = fmt.Sprintf("Other (%d)", other.other)
+	kept = append(kept, other)
+	return kept, fmt.Sprintf("combined the %d smallest of %d categories into %q (%s): %s; show more with --top",
+		other.other, len(rows), other.label, how, listNames(names, 6))
+}
+
+func listNames(names []string, max int) string {
+	q := make([]string, 0, max+1)
+	for i, n := range names {
+		if i == max {
+			q = append(q, fmt.Sprintf("and %d more", len(names)-max))
+			break
+		}
+		q = append(q, strconv.Quote(n))
+	}
+	return strings.Join(q, ", ")
+}
+
+// naturalCompare orders labels as a reader expects: case-insensitively, with
+// runs of digits compared by their numeric value ("Route 9" before "Route 10").
+func naturalCompare(a, b string) int {
+	for a != "" && b != "" {
+		da, db := digitRun(a), digitRun(b)
+		if da > 0 && db > 0 {
+			na, nb := strings.TrimLeft(a[:da], "0"), strings.TrimLeft(b[:db], "0")
+			if c := cmp.Compare(len(na), len(nb)); c != 0 {
+				return c
+			}
+			if c := strings.Compare(na, nb); c != 0 {
+				return c
+			}
+			a, b = a[da:], b[db:]
+			continue
+		}
+		ra, rb := []rune(a[:1]), []rune(b[:1])
+		if c := cmp.Compare(strings.ToLower(string(ra)), strings.ToLower(string(rb))); c != 0 {
+			return c
+		}
+		a, b = a[1:], b[1:]
+	}
+	if c := cmp.Compare(len(a), len(b)); c != 0 {
+		return c
+	}
+	return strings.Compare(a, b)
+}
+
+func digitRun(s string) int {
+	n := 0
+	for n < len(s) && s[n] >= '0' && s[n] <= '9' {
+		n++
+	}
+	return n
+}
+
+// findLabels reports the requested labels that are not among the rows, each
+// with the closest existing label, so a typo is caught instead of ignored.
+func findLabels(want []string, have []string) error {
+	set := make(map[string]bool, len(have))
+	for _, h := range have {
+		set[h] = true
+	}
+	for _, w := range want {
+		if !set[w] {
+			return fmt.Errorf("no category %q to highlight%s", w, closest(w, have))
+		}
+	}
+	return nil
+}
+
+// closest suggests the nearest of the candidates by edit distance.
+func closest(s string, cands []string) string {
+	best, bestD := "", math.MaxInt
+	for _, c := range cands {
+		if d := editDistance(strings.ToLower(s), strings.ToLower(c)); d < bestD {
+			best, bestD = c, d
+		}
+	}
+	if best == "" || bestD > max(3, len([]rune(s))/2) {
+		return ""
+	}
+	return fmt.Sprintf("; did you mean %q?", best)
+}
+
+func editDistance(a, b string) int {
+	ra, rb := []rune(a), []rune(b)
+	prev := make([]int, len(rb)+1)
+	cur := make([]int, len(rb)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(ra); i++ {
+		cur[0] = i
+		for j := 1; j <= len(rb); j++ {
+			c := 1
+			if ra[i-1] == rb[j-1] {
+				c = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+c)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(rb)]
+}
+
+// dataNumber formats a value for a data-* attribute: the shortest text that
+// reads back as the same float64, so audits measure against exact data.
+func dataNumber(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
