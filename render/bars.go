@@ -199,7 +199,7 @@ func (c *rowChart) domain() error {
 		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
 		if c.from != nil && *c.from > lo {
 			why := fmt.Sprintf("a bar chart starting at %s would cut %s", c.numText(*c.from), c.cutWhat(lo))
-			return &refusal{reason: why, instead: "a bar's length is its value, so bars start at zero; to compare values far from zero use a dot plot: plumb dots (which may start anywhere)"}
+			return &refusal{reason: why, instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}
 		}
 		if c.to != nil && *c.to < hi {
 			return &refusal{reason: fmt.Sprintf("--to %s would cut bars that reach %s", c.numText(*c.to), c.numText(hi)), instead: "give --to at or beyond the largest value, or leave it out"}
@@ -227,7 +227,7 @@ func (c *rowChart) cutWhat(lo float64) string {
 	if lo < 0 {
 		return fmt.Sprintf("the bars down to %s", c.numText(lo))
 	}
-	return "every bar short of its true length: bars must start at zero"
+	return "every bar short of its true length"
 }
 
 func (c *rowChart) numText(v float64) string {
@@ -308,12 +308,20 @@ func (c *rowChart) fill(r row) string {
 	return c.f.th.neutral
 }
 
-// insideContrast reports whether value text can sit inside a bar of this
-// fill: WCAG 2.x asks 4.5:1 for text.
-func (c *rowChart) insideContrast(fill string) bool {
-	a, err1 := palette.ParseHex(fill)
-	b, err2 := palette.ParseHex(c.f.th.inside)
-	return err1 == nil && err2 == nil && palette.Contrast(a, b) >= 4.5
+// insideColour is the colour for value text inside a bar of this fill:
+// white, or else the text colour, whichever meets WCAG 2.x's 4.5:1 for
+// text; "" when neither does and the value must sit outside.
+func (c *rowChart) insideColour(fill string) string {
+	bar, err := palette.ParseHex(fill)
+	if err != nil {
+		return ""
+	}
+	for _, t := range []string{c.f.th.inside, c.f.th.text} {
+		if tc, err := palette.ParseHex(t); err == nil && palette.Contrast(bar, tc) >= palette.MinTextContrast {
+			return t
+		}
+	}
+	return ""
 }
 
 // layoutRows draws horizontal bars or dots, one row per category, and
@@ -418,7 +426,7 @@ func (c *rowChart) layoutRows() (float64, error) {
 		k := (x1 - x0) / (c.d1 - c.d0)
 		changed := false
 		for i, r := range c.rows {
-			if math.Abs(r.value)*k >= vw[i]+2*sp.gap && c.insideContrast(c.fill(r)) {
+			if math.Abs(r.value)*k >= vw[i]+2*sp.gap && c.insideColour(c.fill(r)) != "" {
 				inside[i], changed = true, true
 			}
 		}
@@ -488,9 +496,9 @@ func (c *rowChart) layoutRows() (float64, error) {
 		f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: lo, Y: cy - markH/2, W: hi - lo, H: markH, Fill: c.fill(r), Attrs: attrs})
 		switch {
 		case inside[i] && r.value >= 0:
-			f.text(xv-sp.gap, textY, vtext[i], sp.text, false, f.th.inside, "plumb-value", End)
+			f.text(xv-sp.gap, textY, vtext[i], sp.text, false, c.insideColour(c.fill(r)), "plumb-value", End)
 		case inside[i]:
-			f.text(xv+sp.gap, textY, vtext[i], sp.text, false, f.th.inside, "plumb-value", Start)
+			f.text(xv+sp.gap, textY, vtext[i], sp.text, false, c.insideColour(c.fill(r)), "plumb-value", Start)
 		case r.value < 0:
 			f.text(xv-sp.gap, textY, vtext[i], sp.text, false, f.th.text, "plumb-value", End)
 		default:

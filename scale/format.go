@@ -13,7 +13,7 @@ type Format struct {
 	Decimals int     // shared digits after the decimal point
 	Divisor  float64 // 1, 1e3, 1e6, 1e9, 1e12, or a power of ten for ×10ⁿ notation (0 treated as 1)
 	Suffix   string  // "", "k", "M", "B", "T" or "×10ⁿ": one abbreviation for the whole axis
-	Unit     string  // appended: "%" with no space, anything else after a space ("12 kg")
+	Unit     string  // "%" follows with no space, a currency sign leads ("£12.50"), anything else follows a space ("12 kg")
 	// Group inserts thousands separators (",") into every value with four or
 	// more integer digits. TickFormat and ValueFormat set it only when some
 	// value has five or more, so years such as 2024 stay "2024" unless the
@@ -47,6 +47,9 @@ func (f Format) Format(v float64) string {
 		}
 		b.WriteString("∞")
 	case v == 0 && f.Suffix != "":
+		if IsCurrency(f.Unit) {
+			b.WriteString(f.Unit)
+		}
 		b.WriteString("0")
 	default:
 		d := min(max(f.Decimals, 0), maxFormatDecimals)
@@ -54,15 +57,18 @@ func (f Format) Format(v float64) string {
 		if x < 0 && strings.ContainsAny(s, "123456789") {
 			b.WriteString(minusSign)
 		}
+		if IsCurrency(f.Unit) {
+			b.WriteString(f.Unit)
+		}
 		if f.Group {
 			s = group(s)
 		}
 		b.WriteString(s)
 		b.WriteString(f.Suffix)
 	}
-	switch f.Unit {
-	case "":
-	case "%":
+	switch {
+	case f.Unit == "" || IsCurrency(f.Unit):
+	case f.Unit == "%":
 		b.WriteString("%")
 	default:
 		b.WriteString(" ")
@@ -182,8 +188,22 @@ func ValueFormat(values []float64, unit string) Format {
 			f.Decimals = sig
 		}
 	}
+	// Amounts of money with any fraction show whole cents (common practice).
+	if IsCurrency(unit) && f.Decimals == 1 && div == 1 {
+		f.Decimals = 2
+	}
 	f.Group = needsGroup(values, f)
 	return f
+}
+
+// IsCurrency reports whether a unit is a currency sign, written before the
+// number ("£12.50", "−$3") as is usual in English (common practice).
+func IsCurrency(unit string) bool {
+	switch unit {
+	case "$", "£", "€", "¥", "₹", "₩", "US$", "A$", "C$":
+		return true
+	}
+	return false
 }
 
 // maxAbs returns the largest finite |v|, or 0.

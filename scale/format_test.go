@@ -176,3 +176,25 @@ func BenchmarkTickFormat(b *testing.B) {
 		}
 	}
 }
+
+func TestCurrencyLeads(t *testing.T) {
+	// Currency signs precede the amount in English usage (common practice).
+	for _, tc := range []struct {
+		f    Format
+		v    float64
+		want string
+	}{
+		{Format{Decimals: 2, Unit: "£"}, 24.2, "£24.20"},
+		{Format{Decimals: 0, Unit: "$"}, -3, "\u2212$3"},
+		{Format{Decimals: 1, Divisor: 1e6, Suffix: "M", Unit: "€"}, 2.5e6, "€2.5M"},
+		{Format{Decimals: 1, Divisor: 1e6, Suffix: "M", Unit: "€"}, 0, "€0"},
+		{Format{Decimals: 0, Unit: "kg"}, 12, "12 kg"},
+	} {
+		if got := tc.f.Format(tc.v); got != tc.want {
+			t.Errorf("%+v.Format(%g) = %q, want %q", tc.f, tc.v, got, tc.want)
+		}
+	}
+	if got := ValueFormat([]float64{24.2, 7.55}, "£").Format(24.2); got != "£24.20" {
+		t.Errorf("money with a fraction shows whole cents: got %q", got)
+	}
+}
