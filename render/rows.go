@@ -7,6 +7,8 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"unicode"
+	"unicode/utf8"
 )
 
 // Order says how categories are arranged.
@@ -92,22 +94,31 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 		}
 		return naturalCompare(rows[a].label, rows[b].label)
 	})
+	// Highlighted rows are what the reader was asked to find: they are never
+	// folded away, and take their place among the top-1 kept rows.
 	keep := make([]bool, len(rows))
-	for _, i := range idx[:top-1] {
-		keep[i] = true
-	}
-	// Highlighted rows are what the reader was asked to find; never hide them.
+	kept := 0
 	for i, r := range rows {
 		if r.highlight {
 			keep[i] = true
+			kept++
 		}
 	}
-	var kept []row
+	for _, i := range idx {
+		if kept >= top-1 {
+			break
+		}
+		if !keep[i] {
+			keep[i] = true
+			kept++
+		}
+	}
+	var out []row
 	other := row{}
 	var names []string
 	for i, r := range rows {
 		if keep[i] {
-			kept = append(kept, r)
+			out = append(out, r)
 			continue
 		}
 		other.value += r.value
@@ -125,8 +136,8 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 		how = "averaged"
 	}
 	other.label = fmt.Sprintf("Other (%d)", other.other)
-	kept = append(kept, other)
-	return kept, fmt.Sprintf("combined the %d smallest of %d categories into %q (%s): %s; show more with --top",
+	out = append(out, other)
+	return out, fmt.Sprintf("combined the %d smallest of %d categories into %q (%s): %s; show more with --top",
 		other.other, len(rows), other.label, how, listNames(names, 6))
 }
 
@@ -145,6 +156,13 @@ func listNames(names []string, max int) string {
 // naturalCompare orders labels as a reader expects: case-insensitively, with
 // runs of digits compared by their numeric value ("Route 9" before "Route 10").
 func naturalCompare(a, b string) int {
+	if c := naturalFold(a, b); c != 0 {
+		return c
+	}
+	return strings.Compare(a, b) // a total order: "a" and "A" still differ
+}
+
+func naturalFold(a, b string) int {
 	for a != "" && b != "" {
 		da, db := digitRun(a), digitRun(b)
 		if da > 0 && db > 0 {
@@ -158,11 +176,12 @@ func naturalCompare(a, b string) int {
 			a, b = a[da:], b[db:]
 			continue
 		}
-		ra, rb := []rune(a[:1]), []rune(b[:1])
-		if c := cmp.Compare(strings.ToLower(string(ra)), strings.ToLower(string(rb))); c != 0 {
+		ra, na := utf8.DecodeRuneInString(a)
+		rb, nb := utf8.DecodeRuneInString(b)
+		if c := cmp.Compare(unicode.ToLower(ra), unicode.ToLower(rb)); c != 0 {
 			return c
 		}
-		a, b = a[1:], b[1:]
+		a, b = a[na:], b[nb:]
 	}
 	if c := cmp.Compare(len(a), len(b)); c != 0 {
 		return c
