@@ -148,7 +148,8 @@ func pluralS(n int, word string) string {
 // it whose cells read as numbers as values, filling whichever is not given.
 func guessColumns(t *Table, labelCol, valueCol string) (string, string, error) {
 	if len(t.Header) < 2 {
-		return "", "", &DataError{File: t.File, Line: 1, Err: ErrMissingColumn, Hint: "the data needs a label column and a value column; name them with --label and --value"}
+		return "", "", fmt.Errorf("%s: line 1: the data has %d %s (%s); a chart needs a label column and a value column",
+			displayName(t.File), len(t.Header), pluralS(len(t.Header), "column"), strings.Join(t.Header, ", "))
 	}
 	if labelCol == "" {
 		labelCol = t.Header[0]
@@ -157,17 +158,25 @@ func guessColumns(t *Table, labelCol, valueCol string) (string, string, error) {
 		}
 	}
 	if valueCol == "" {
+		// The first column after the labels that reads as numbers; when
+		// none does, the first candidate's own error says why (a bad cell
+		// in the column the user most likely meant).
+		var first error
 		for _, h := range t.Header {
 			if h == labelCol {
 				continue
 			}
-			if _, _, err := t.Numbers(h); err == nil {
+			_, _, err := t.Numbers(h)
+			if err == nil {
 				valueCol = h
 				break
 			}
+			if first == nil {
+				first = err
+			}
 		}
 		if valueCol == "" {
-			return "", "", &DataError{File: t.File, Line: 1, Err: ErrMissingColumn, Hint: fmt.Sprintf("no column other than %q holds numbers; name the value column with --value (columns: %s)", labelCol, strings.Join(t.Header, ", "))}
+			return "", "", first
 		}
 	}
 	return labelCol, valueCol, nil
