@@ -162,6 +162,10 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 		return nil, err
 	}
 	f.scene.Desc = c.describe()
+	if f.scene.Title == "" {
+		// Untitled figures still need an accessible name.
+		f.scene.Title = c.accessibleTitle()
+	}
 	return f.finish(bottom), nil
 }
 
@@ -641,6 +645,12 @@ func (c *rowChart) layoutColumns() (float64, error) {
 		}
 	}
 	return bottom + sp.gap + float64(lines)*lh, nil
+}
+
+// accessibleTitle names an untitled chart for assistive technology.
+func (c *rowChart) accessibleTitle() string {
+	kind, _, _ := strings.Cut(c.describe(), ",")
+	return kind
 }
 
 // describe writes the plain-language <desc>: what is plotted, the extremes,

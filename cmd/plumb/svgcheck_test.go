@@ -146,6 +146,9 @@ func checkFigure(t *testing.T, data []byte) *svgNode {
 		switch c.Name {
 		case "title":
 			titles++
+			if strings.TrimSpace(c.Text) == "" {
+				t.Errorf("empty <title>: every figure needs an accessible name")
+			}
 		case "desc":
 			descs++
 			if strings.TrimSpace(c.Text) == "" {
