@@ -46,8 +46,8 @@ func ExampleCategorical() {
 	fmt.Println(p.Hex())
 	fmt.Printf("worst case %.1f\n", p.WorstCase())
 	// Output:
-	// [#9d87e0 #964101 #6d9976]
-	// worst case 19.1
+	// [#4494c8 #cf6f19 #376a50]
+	// worst case 19.5
 }
 
 func ExampleGamutMap() {

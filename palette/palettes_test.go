@@ -31,9 +31,15 @@ func TestCategorical(t *testing.T) {
 		prev = w
 	}
 	// The target: worst case at least 12 for 8 colours (Okabe &
-	// Ito 2008 reach 10.87 by the same measure, okabe-ito.json).
-	if w := all.WorstCase(); w < 12 {
-		t.Errorf("worst case of 8 colours = %.2f, want >= 12", w)
+	// Ito 2008 reach 10.87 by the same measure, okabe-ito.json), and
+	// the smaller prefixes stronger still (the generator's table comment).
+	for _, tc := range []struct {
+		n    int
+		want float64
+	}{{2, 40}, {3, 18}, {4, 18}, {5, 12}, {6, 12}, {7, 12}, {8, 12}} {
+		if w := all[:tc.n].WorstCase(); w < tc.want {
+			t.Errorf("worst case of %d colours = %.2f, want >= %v", tc.n, w, tc.want)
+		}
 	}
 	for _, c := range all {
 		// WCAG 2.x SC 1.4.11 non-text contrast, 3:1 against white.
@@ -55,6 +61,71 @@ func TestCategorical(t *testing.T) {
 		if _, err := Categorical(n); !errors.Is(err, ErrSize) {
 			t.Errorf("Categorical(%d) error %v", n, err)
 		}
+	}
+}
+
+// oklch is the OKLCH of c.
+func oklch(c SRGB) OKLCH { return OKLabToOKLCH(SRGBToOKLab(c)) }
+
+func hueGap(a, b float64) float64 {
+	d := math.Abs(a - b)
+	return math.Min(d, 360-d)
+}
+
+func TestCategoricalHues(t *testing.T) {
+	all, _ := Categorical(MaxCategorical)
+	lch := make([]OKLCH, len(all))
+	for i, c := range all {
+		lch[i] = oklch(c)
+	}
+	// No two colours that a reader would name alike: hues at least 25°
+	// apart in OKLCH, or lightness at least 0.15 apart.
+	for i := range lch {
+		for j := i + 1; j < len(lch); j++ {
+			if hueGap(lch[i].H, lch[j].H) < 25 && math.Abs(lch[i].L-lch[j].L) < 0.15 {
+				t.Errorf("%v and %v share a hue family: %+v %+v", all[i], all[j], lch[i], lch[j])
+			}
+		}
+	}
+	// The first colour is a blue, the second a warm hue across the circle,
+	// and the first three are spread around it.
+	if h := lch[0].H; h < 235 || h > 265 {
+		t.Errorf("first colour %v has hue %.0f°, not a blue", all[0], h)
+	}
+	for _, c := range lch[:2] {
+		// Clear, not dark or greyish: a dark orange reads as a brown.
+		if c.L < 0.56 || c.C < 0.09 {
+			t.Errorf("lead colour %+v too dark or too grey", c)
+		}
+	}
+	if g := hueGap(lch[0].H, lch[1].H); g < 150 {
+		t.Errorf("first two hues only %.0f° apart", g)
+	}
+	for i := 0; i < 3; i++ {
+		for j := i + 1; j < 3; j++ {
+			if g := hueGap(lch[i].H, lch[j].H); g < 60 {
+				t.Errorf("colours %d and %d only %.0f° apart in hue", i, j, g)
+			}
+		}
+	}
+	// Every 45° sector of the hue circle but at most two holds a colour:
+	// the hues are spread, not bunched in one family.
+	var sectors [8]bool
+	for _, c := range lch {
+		sectors[int(c.H/45)%8] = true
+	}
+	empty := 0
+	for _, s := range sectors {
+		if !s {
+			empty++
+		}
+	}
+	if empty > 2 {
+		t.Errorf("%d of 8 hue sectors empty: %v", empty, sectors)
+	}
+	// The highlight must not be mistaken for the first series.
+	if w := (Palette{all[0], Accent()}).WorstCase(); w < 2*MinPairDistance {
+		t.Errorf("first colour and accent only %.2f apart in the worst case", w)
 	}
 }
 

@@ -5,22 +5,22 @@ package palette
 // categoricalTable is the categorical palette in its fixed order;
 // worst-case minimum CIEDE2000 over the four visions of each prefix:
 //
-//	n = 2: 38.93
-//	n = 3: 19.15
-//	n = 4: 15.74
-//	n = 5: 15.67
-//	n = 6: 15.08
-//	n = 7: 15.07
-//	n = 8: 14.87
+//	n = 2: 47.21
+//	n = 3: 19.51
+//	n = 4: 18.91
+//	n = 5: 12.35
+//	n = 6: 12.35
+//	n = 7: 12.35
+//	n = 8: 12.09
 var categoricalTable = [8]SRGB{
-	hex24(0x9d87e0),
-	hex24(0x964101),
-	hex24(0x6d9976),
-	hex24(0x7559bc),
-	hex24(0x8c9425),
-	hex24(0x287353),
-	hex24(0xaa7b98),
-	hex24(0x774e6d),
+	hex24(0x4494c8),
+	hex24(0xcf6f19),
+	hex24(0x376a50),
+	hex24(0x913378),
+	hex24(0x6358ba),
+	hex24(0x869362),
+	hex24(0x715b13),
+	hex24(0xb78090),
 }
 
 // The single colours (see Neutral, Accent, Context, Text, Muted).

@@ -22,6 +22,11 @@ const (
 	sheetHeaderH  = 24.0
 	sheetFooterH  = 40.0
 	sheetTitleGap = 18.0
+	sheetLineH    = 16.0 // baseline to baseline of the footer lines
+	// sheetSlack widens every measured text: a viewer without the Go fonts
+	// draws in its own sans serif (often DejaVu Sans), which sets the same
+	// string wider than Go Regular.
+	sheetSlack = 1.15
 )
 
 // PaletteSheet builds a swatch sheet: one row per colour, one column per
@@ -31,7 +36,10 @@ const (
 // Every swatch is a rect carrying data-label (the colour as given),
 // data-value (the colour as seen) and data-series (the vision).
 func PaletteSheet(title string, colors []palette.SRGB) *Scene {
-	face := layout.GoRegular()
+	fonts := layout.Fonts{}
+	measure := func(s string, size float64, bold bool) float64 {
+		return fonts.Face(bold).Width(s, size) * sheetSlack
+	}
 	p := palette.Palette(colors)
 	text, muted := palette.Text().Hex(), palette.Muted().Hex()
 
@@ -51,17 +59,18 @@ func PaletteSheet(title string, colors []palette.SRGB) *Scene {
 			c.pair = fmt.Sprintf("%s / %s", colors[i].Hex(), colors[j].Hex())
 		}
 		cols[k] = c
-		for _, s := range []string{c.min, c.pair, v.String()} {
-			colW = math.Max(colW, face.Width(s, sheetText)+sheetColGap)
+		colW = math.Max(colW, measure(v.String(), sheetText, true)+sheetColGap)
+		for _, s := range []string{c.min, c.pair} {
+			colW = math.Max(colW, measure(s, sheetText, false)+sheetColGap)
 		}
 	}
-	labelW := face.Width("#000000", sheetText) + sheetColGap
+	labelW := measure("#000000", sheetText, false) + sheetColGap
 
 	s := &Scene{Title: title}
 	if s.Title == "" {
 		s.Title = "Palette"
 	}
-	titleW := face.Width(s.Title, sheetTitle)
+	titleW := measure(s.Title, sheetTitle, true)
 	gridW := labelW + float64(len(cols))*colW
 	s.Width = math.Ceil(2*sheetMargin + math.Max(gridW, titleW))
 	top := sheetMargin + sheetTitle + sheetTitleGap
@@ -87,7 +96,7 @@ func PaletteSheet(title string, colors []palette.SRGB) *Scene {
 			Text: c.min, Size: sheetText, Fill: text,
 			Attrs: []Attr{{"series", c.v.String()}, {"value", distanceAttr(c.minD)}}})
 		if c.pair != "" {
-			s.Add(Mark{Kind: Text, Class: "plumb-note plumb-pair", X: x, Y: y + sheetText + 4,
+			s.Add(Mark{Kind: Text, Class: "plumb-note plumb-pair", X: x, Y: y + sheetLineH,
 				Text: c.pair, Size: sheetText, Fill: muted})
 		}
 	}

@@ -3,13 +3,16 @@ package render
 import (
 	"bytes"
 	"encoding/xml"
+	"fmt"
 	"io"
 	"os"
 	"os/exec"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
+	"plumb/layout"
 	"plumb/palette"
 )
 
@@ -94,5 +97,148 @@ func TestPaletteSheetEdgeCases(t *testing.T) {
 		if !strings.Contains(b.String(), "closest: none") {
 			t.Error("no pair should print none")
 		}
+	}
+}
+
+// sheetTexts parses an SVG and measures every <text> as layout would, each
+// box widened about its anchor by slack (a viewer's fallback font may set
+// the text wider than the Go fonts). It also returns the canvas.
+func sheetTexts(t *testing.T, data []byte, slack float64) (boxes []layout.Box, texts []string, canvas layout.Box) {
+	t.Helper()
+	num := func(attrs map[string]string, name string) float64 {
+		v, err := strconv.ParseFloat(attrs[name], 64)
+		if err != nil {
+			t.Fatalf("attribute %s=%q: %v", name, attrs[name], err)
+		}
+		return v
+	}
+	type frame struct{ dx, dy float64 }
+	stack := []frame{{}}
+	var cur map[string]string
+	var text strings.Builder
+	dec := xml.NewDecoder(bytes.NewReader(data))
+	for {
+		tok, err := dec.Token()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatalf("not XML: %v", err)
+		}
+		switch tok := tok.(type) {
+		case xml.StartElement:
+			attrs := map[string]string{}
+			for _, a := range tok.Attr {
+				attrs[a.Name.Local] = a.Value
+			}
+			f := stack[len(stack)-1]
+			if tr := attrs["transform"]; tr != "" {
+				var dx, dy float64
+				if _, err := fmt.Sscanf(tr, "translate(%g,%g)", &dx, &dy); err != nil {
+					t.Fatalf("transform %q is not a plain translate", tr)
+				}
+				f.dx, f.dy = f.dx+dx, f.dy+dy
+			}
+			stack = append(stack, f)
+			switch tok.Name.Local {
+			case "svg":
+				canvas = layout.Box{W: num(attrs, "width"), H: num(attrs, "height")}
+			case "text":
+				cur = attrs
+				text.Reset()
+			}
+		case xml.CharData:
+			if cur != nil {
+				text.Write(tok)
+			}
+		case xml.EndElement:
+			f := stack[len(stack)-1]
+			stack = stack[:len(stack)-1]
+			if tok.Name.Local != "text" || cur == nil {
+				continue
+			}
+			anchor := layout.AnchorStart
+			switch cur["text-anchor"] {
+			case "middle":
+				anchor = layout.AnchorMiddle
+			case "end":
+				anchor = layout.AnchorEnd
+			}
+			face := layout.Fonts{}.Face(cur["font-weight"] == "bold")
+			b := layout.TextBox(face, text.String(), num(cur, "font-size"), num(cur, "x")+f.dx, num(cur, "y")+f.dy, anchor)
+			grow := b.W * (slack - 1)
+			switch anchor {
+			case layout.AnchorMiddle:
+				b.X -= grow / 2
+			case layout.AnchorEnd:
+				b.X -= grow
+			}
+			b.W += grow
+			boxes = append(boxes, b)
+			texts = append(texts, text.String())
+			cur = nil
+		}
+	}
+	return boxes, texts, canvas
+}
+
+// TestPaletteSheetTextFits checks every sheet the CLI can draw: no two
+// texts overlap and none leaves the canvas, even set 15% wider than the Go
+// fonts measure.
+func TestPaletteSheetTextFits(t *testing.T) {
+	type sheet struct {
+		name   string
+		colors palette.Palette
+	}
+	var sheets []sheet
+	for n := 1; n <= palette.MaxCategorical; n++ {
+		p, _ := palette.Categorical(n)
+		sheets = append(sheets, sheet{fmt.Sprintf("Categorical palette, %d colours", n), p})
+	}
+	for _, hue := range palette.SequentialHues() {
+		for _, n := range []int{palette.MinRamp, 7, palette.MaxRamp} {
+			p, _ := palette.Sequential(hue, n)
+			sheets = append(sheets, sheet{fmt.Sprintf("Sequential palette, %s, %d colours", hue, n), p})
+		}
+	}
+	for _, pair := range palette.DivergingHues() {
+		for _, n := range []int{palette.MinRamp, 9, palette.MaxRamp} {
+			p, _ := palette.DivergingPair(pair, n)
+			sheets = append(sheets, sheet{fmt.Sprintf("Diverging palette, %s, %d colours", pair, n), p})
+		}
+	}
+	sheets = append(sheets, sheet{"", nil})
+	for _, sh := range sheets {
+		var b bytes.Buffer
+		if err := WritePaletteSheet(&b, sh.name, sh.colors); err != nil {
+			t.Fatal(err)
+		}
+		boxes, texts, canvas := sheetTexts(t, b.Bytes(), 1.15)
+		if len(boxes) < 2 {
+			t.Fatalf("%s: only %d texts", sh.name, len(boxes))
+		}
+		for i, bi := range boxes {
+			if !bi.Inside(canvas) {
+				t.Errorf("%s: %q %+v leaves the canvas %+v", sh.name, texts[i], bi, canvas)
+			}
+			for j := i + 1; j < len(boxes); j++ {
+				if bi.Overlaps(boxes[j]) {
+					t.Errorf("%s: %q %+v overlaps %q %+v", sh.name, texts[i], bi, texts[j], boxes[j])
+				}
+			}
+		}
+	}
+}
+
+// TestSheetTextsCatchesOverlap makes sure the overlap check can fail: two
+// labels 10 px apart overlap.
+func TestSheetTextsCatchesOverlap(t *testing.T) {
+	svg := `<svg width="100" height="50"><g transform="translate(5,0)"><text x="0" y="20" font-size="12">#4494c8 / #cf6f19</text><text x="10" y="20" font-size="12">x</text></g></svg>`
+	boxes, _, canvas := sheetTexts(t, []byte(svg), 1)
+	if len(boxes) != 2 || !boxes[0].Overlaps(boxes[1]) || boxes[0].X != 5 {
+		t.Errorf("boxes %+v", boxes)
+	}
+	if canvas != (layout.Box{W: 100, H: 50}) {
+		t.Errorf("canvas %+v", canvas)
 	}
 }

@@ -34,6 +34,9 @@ func generate() ([]byte, error) {
 	b.WriteString("package palette\n\n")
 
 	cat := palette.Palette(designCategorical())
+	if len(cat) == 0 {
+		return nil, fmt.Errorf("no categorical palette meets the constraints")
+	}
 	b.WriteString("// categoricalTable is the categorical palette in its fixed order;\n")
 	b.WriteString("// worst-case minimum CIEDE2000 over the four visions of each prefix:\n//\n")
 	for n := 2; n <= len(cat); n++ {
