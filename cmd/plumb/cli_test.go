@@ -10,6 +10,7 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+	"golang.org/x/image/font/gofont/goregular"
 )
 
 // plumb runs the CLI as a shell would and returns exit code, stdout, stderr.
@@ -194,4 +195,20 @@ func TestDemoWritesGallery(t *testing.T) {
 	require.Equal(t, exitOK, code, stderr)
 	files, _ := filepath.Glob(filepath.Join(dir, "*.svg"))
 	assert.GreaterOrEqual(t, len(files), len(gallery))
+}
+
+func TestFontFlags(t *testing.T) {
+	dir := t.TempDir()
+	font := filepath.Join(dir, "face.ttf")
+	require.NoError(t, os.WriteFile(font, goregular.TTF, 0o644))
+	code, out, stderr := plumb(t, eightRegions, "bars", "-", "--font", font, "--embed-font")
+	require.Equal(t, exitOK, code, stderr)
+	assert.Contains(t, out, "@font-face")
+	assert.Contains(t, out, "base64,")
+	checkFigure(t, []byte(out))
+
+	bad := writeFile(t, dir, "bad.ttf", "not a font")
+	code, _, stderr = plumb(t, eightRegions, "bars", "-", "--font", bad)
+	assert.Equal(t, exitData, code)
+	assert.Contains(t, stderr, "bad.ttf")
 }
