@@ -1,0 +1,76 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"strings"
+	"testing"
+
+	"plumb/render"
+)
+
+// TestChartsProperty draws random bar charts and dot plots (labels of every
+// length, values of every sign and magnitude, every medium) and asserts the
+// invariants of every figure: no text overlaps other text or leaves the
+// canvas, bars have a lie factor of 1 and start on the one baseline.
+func TestChartsProperty(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 11))
+	words := []string{"Harbour", "Osk", "to", "Saltmarrow", "Point", "via", "Little", "Kettlewick", "Isle", "of", "the", "Narrows", "A", "Quay", "North-by-northwest", "<b>&amp;</b>"}
+	media := []render.Medium{render.Screen, render.Print, render.Slide}
+	for trial := range 150 {
+		n := 1 + rng.IntN(25)
+		labels := make([]string, n)
+		values := make([]float64, n)
+		scale := math.Pow(10, float64(rng.IntN(12)-4))
+		negative := rng.IntN(3) == 0
+		seen := map[string]bool{}
+		for i := range n {
+			var w []string
+			for range 1 + rng.IntN(8) {
+				w = append(w, words[rng.IntN(len(words))])
+			}
+			l := strings.Join(w, " ")
+			for seen[l] {
+				l += fmt.Sprint(i)
+			}
+			seen[l] = true
+			labels[i] = l
+			values[i] = math.Round(rng.Float64()*1000) / 1000 * scale
+			if negative && rng.IntN(2) == 0 {
+				values[i] = -values[i]
+			}
+		}
+		c := render.Common{Medium: media[rng.IntN(len(media))]}
+		if rng.IntN(2) == 0 {
+			c.Title = strings.Repeat("A long title that may wrap ", 1+rng.IntN(4))
+			c.Subtitle = "Subtitle"
+			c.Source = "Somewhere"
+		}
+		var svg bytes.Buffer
+		var err error
+		kind := rng.IntN(3)
+		switch kind {
+		case 0:
+			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Percent: !negative && rng.IntN(3) == 0})
+		case 1:
+			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Vertical: true, Top: 6})
+		default:
+			_, err = render.Dots(&svg, labels, values, render.DotsOptions{Common: c})
+		}
+		if err != nil {
+			// Only a figure too small for its rows may be declined.
+			if !strings.Contains(err.Error(), "fit") && !strings.Contains(err.Error(), "narrow") && !strings.Contains(err.Error(), "short") {
+				t.Errorf("trial %d (kind %d, %s): %v", trial, kind, c.Medium, err)
+			}
+			continue
+		}
+		t.Run(fmt.Sprintf("trial%d", trial), func(t *testing.T) {
+			root := checkFigure(t, svg.Bytes())
+			if kind < 2 {
+				checkBars(t, root)
+			}
+		})
+	}
+}
