@@ -39,6 +39,17 @@ var gallery = []figure{
 	{"dots-punctuality", "routes.csv", []string{"dots", "--label", "route", "--value", "punctuality_pct", "--unit", "%",
 		"--value-name", "sailings on time",
 		"--title", "Punctuality by route", "--subtitle", "Share of sailings leaving within five minutes of schedule, 2025"}},
+	{"lines-punctuality", "punctuality.csv", []string{"lines", "--x", "month", "--y", "on_time_pct", "--series", "route", "--unit", "%",
+		"--y-name", "sailings on time", "--title", "Punctuality of the three busiest routes", "--subtitle", "Share of sailings leaving within five minutes of schedule, by month"}},
+	{"lines-fuel-index", "fuel.csv", []string{"lines", "--x", "month", "--y", "vessel_a,vessel_b", "--index",
+		"--title", "Fuel use of the two vessels, as an index", "--subtitle", "Monthly fuel use, first month = 100"}},
+	{"lines-daily", "daily.csv", []string{"lines", "--x", "date", "--y", "passengers", "--y-name", "passengers per day",
+		"--title", "Ten years of daily passengers", "--subtitle", "All routes; 3,653 days drawn with M4 reduction to the pixel columns"}},
+	{"lines-multiples", "loads.csv", []string{"lines", "--x", "hour", "--y", "load_pct", "--series", "weekday", "--unit", "%",
+		"--y-name", "seats taken", "--x-name", "hour of departure", "--title", "Vessel load by hour, one panel per weekday",
+		"--subtitle", "Share of seats taken; the other days in grey behind each panel"}},
+	{"diff-fuel", "fuel.csv", []string{"diff", "--x", "month", "--a", "vessel_a", "--b", "vessel_b", "--context", "--unit", "t",
+		"--title", "Vessel A burns more fuel than vessel B every month", "--subtitle", "Monthly fuel use in tonnes (above) and the difference A − B (below)"}},
 }
 
 // runDemo renders the gallery from the data built into the binary.

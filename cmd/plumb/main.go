@@ -37,6 +37,10 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		return exitOK
 	case "bars", "dots":
 		return runRows(args[0], args[1:], stdin, stdout, stderr)
+	case "lines":
+		return runLines(args[1:], stdin, stdout, stderr)
+	case "diff":
+		return runDiff(args[1:], stdin, stdout, stderr)
 	case "palette":
 		return runPalette(args[1:], stdin, stdout, stderr)
 	case "demo":
@@ -51,6 +55,8 @@ const usage = `usage: plumb CHART [DATA] [flags]
 charts:
   bars      compare amounts (horizontal, sorted, from zero)
   dots      compare values far from zero
+  lines     change over time or order, banked to 45°
+  diff      the difference of two series, a − b against zero
   palette   show, make or check colour palettes
   demo      render the built-in gallery (-o DIR)
 

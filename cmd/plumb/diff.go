@@ -1,0 +1,133 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"strings"
+
+	"plumb/render"
+)
+
+// diffFlags are the flags of plumb diff.
+type diffFlags struct {
+	shared
+	x, a, b, xFormat, unit, xName string
+	context                       bool
+}
+
+// runDiff is plumb diff.
+func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+	fs := newFlagSet("diff", stderr)
+	var f diffFlags
+	f.shared.register(fs)
+	fs.StringVar(&f.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
+	fs.StringVar(&f.a, "a", "", "`COLUMN` of the first series (default: the first numeric column after x)")
+	fs.StringVar(&f.b, "b", "", "`COLUMN` of the second series, subtracted from a (default: the next numeric column)")
+	fs.BoolVar(&f.context, "context", false, "add a panel above with both series on the same x scale")
+	fs.StringVar(&f.xFormat, "x-format", "auto", "read x as auto, number or time")
+	fs.StringVar(&f.unit, "unit", "", "unit of the values, such as t or %")
+	fs.StringVar(&f.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
+	pos, err := parse(fs, args)
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	if len(pos) != 1 {
+		return exitCode(usagef("give one data file (.csv, .tsv, .json), or - for standard input"), stderr)
+	}
+	c, err := f.common()
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	x, a, b, opt, notes, err := loadDiff(pos[0], &f, stdin)
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	opt.Common = c
+	err = writeOutput(f.out, stdout, func(w io.Writer) error {
+		n, err := render.Diff(w, x, a, b, opt)
+		notes = append(notes, n...)
+		return err
+	})
+	printNotes(stderr, notes, f.quiet)
+	if err != nil {
+		return exitCode(fmt.Errorf("diff: %w", err), stderr)
+	}
+	return exitOK
+}
+
+// loadDiff reads the x, a and b columns, in x order.
+func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, opt render.DiffOptions, notes []string, err error) {
+	r, format, done, notes, err := openData(path, f.format, stdin)
+	if err != nil {
+		return nil, nil, nil, opt, nil, err
+	}
+	defer done()
+	var want []string
+	if f.x != "" && f.a != "" && f.b != "" {
+		want = []string{f.x, f.a, f.b}
+	}
+	t, err := ReadTable(r, path, format, want)
+	if err != nil {
+		return nil, nil, nil, opt, nil, err
+	}
+	if t.Len() == 0 {
+		return nil, nil, nil, opt, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+	}
+	xcol := f.x
+	if xcol == "" && len(t.Header) > 0 {
+		xcol = t.Header[0]
+	}
+	if t.Strings(xcol) == nil {
+		return nil, nil, nil, opt, nil, t.missingColumn(xcol, 1)
+	}
+	acol, bcol := f.a, f.b
+	if acol == "" || bcol == "" {
+		var nums []string
+		for _, h := range t.Header {
+			if h == xcol || h == acol || h == bcol {
+				continue
+			}
+			if _, _, err := t.Numbers(h); err == nil {
+				nums = append(nums, h)
+			}
+		}
+		if acol == "" && len(nums) > 0 {
+			acol, nums = nums[0], nums[1:]
+		}
+		if bcol == "" && len(nums) > 0 {
+			bcol = nums[0]
+		}
+		if acol == "" || bcol == "" {
+			return nil, nil, nil, opt, nil, &DataError{File: t.File, Line: 1, Err: ErrMissingColumn,
+				Hint: fmt.Sprintf("a difference needs two numeric columns; name them with --a and --b (columns: %s)", strings.Join(t.Header, ", "))}
+		}
+		notes = append(notes, fmt.Sprintf("drawing %q minus %q over %q (choose with --x, --a and --b)", acol, bcol, xcol))
+	}
+	xc, xn, err := readX(t, xcol, f.xFormat)
+	if err != nil {
+		return nil, nil, nil, opt, nil, err
+	}
+	notes = append(notes, xn...)
+	av, _, err := t.Numbers(acol)
+	if err != nil {
+		return nil, nil, nil, opt, nil, err
+	}
+	bv, _, err := t.Numbers(bcol)
+	if err != nil {
+		return nil, nil, nil, opt, nil, err
+	}
+	rows, err := orderRows(t, xcol, xc.values, allRows(t.Len()))
+	if err != nil {
+		return nil, nil, nil, opt, nil, err
+	}
+	x = xc.values
+	if rows != nil {
+		x, av, bv = pick(x, rows), pick(av, rows), pick(bv, rows)
+		notes = append(notes, fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol))
+	}
+	opt = render.DiffOptions{Time: xc.time, AName: acol, BName: bcol, Context: f.context, Unit: f.unit, XName: f.xName}
+	if opt.XName == "" && !xc.time {
+		opt.XName = xcol
+	}
+	return x, av, bv, opt, notes, nil
+}

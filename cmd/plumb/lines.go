@@ -1,0 +1,412 @@
+package main
+
+import (
+	"cmp"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"plumb/render"
+	"plumb/scale"
+)
+
+// Causes of a DataError specific to x columns.
+var (
+	ErrBadTime    = errors.New("not a date or time")
+	ErrDuplicateX = errors.New("two rows share one x value")
+)
+
+// indexFlag is --index: a bare --index rebases at the first value, and
+// --index=AT at x = AT. It is a boolean flag to the flag package, so that
+// "--index data.csv" does not swallow the file name.
+type indexFlag struct {
+	on bool
+	at string
+}
+
+func (f *indexFlag) String() string {
+	if f == nil || !f.on {
+		return "false"
+	}
+	if f.at != "" {
+		return f.at
+	}
+	return "true"
+}
+
+func (f *indexFlag) Set(s string) error {
+	switch s {
+	case "true":
+		f.on, f.at = true, ""
+	case "false":
+		f.on, f.at = false, ""
+	default:
+		f.on, f.at = true, s
+	}
+	return nil
+}
+
+func (f *indexFlag) IsBoolFlag() bool { return true }
+
+// xColumn is a parsed x column.
+type xColumn struct {
+	name   string
+	values []float64 // numbers, or Unix seconds for times
+	time   bool
+}
+
+// readX parses the x column: numbers, or ISO 8601 dates and times. format
+// is auto (detected with scale.DetectTime when the cells are not all
+// numbers), number or time. Every row needs an x.
+func readX(t *Table, col, format string) (*xColumn, []string, error) {
+	switch format {
+	case "", "auto", "number", "time":
+	default:
+		return nil, nil, usagef("--x-format %q: use auto, number or time", format)
+	}
+	x := &xColumn{name: col}
+	if format != "time" {
+		vals, missing, err := t.Numbers(col)
+		if err == nil && len(missing) > 0 {
+			return nil, nil, &DataError{File: t.File, Line: t.Line(missing[0]), Column: col, Err: ErrBadNumber,
+				Hint: "every row needs an x value; fill it in or delete the row"}
+		}
+		if err == nil {
+			x.values = vals
+			return x, nil, nil
+		}
+		if format == "number" {
+			return nil, nil, err
+		}
+		if !looksLikeTime(t.Strings(col)) {
+			return nil, nil, err
+		}
+	}
+	cells := t.Strings(col)
+	if cells == nil {
+		return nil, nil, t.missingColumn(col, 1)
+	}
+	x.time = true
+	x.values = make([]float64, len(cells))
+	for i, s := range cells {
+		tm, _, err := scale.ParseTime(s)
+		if err != nil {
+			return nil, nil, &DataError{File: t.File, Line: t.Line(i), Column: col, Text: s, Err: &badTime{text: s, cause: err},
+				Hint: "write dates as 2024, 2024-03, 2024-03-17 or 2024-03-17T08:30:00Z (ISO 8601), or give --x-format number for plain numbers"}
+		}
+		x.values[i] = float64(tm.Unix()) + float64(tm.Nanosecond())/1e9
+	}
+	var notes []string
+	if format != "time" {
+		notes = append(notes, fmt.Sprintf("read column %q as dates and times (--x-format number to treat it as numbers)", col))
+	}
+	return x, notes, nil
+}
+
+// orderRows returns the rows in x order and refuses two rows with one x,
+// naming both lines. It returns nil when rows are already in order.
+func orderRows(t *Table, col string, x []float64, rows []int) ([]int, error) {
+	sorted := true
+	for i := 1; i < len(rows); i++ {
+		if x[rows[i]] < x[rows[i-1]] {
+			sorted = false
+			break
+		}
+	}
+	out := rows
+	if !sorted {
+		out = slices.Clone(rows)
+		slices.SortStableFunc(out, func(a, b int) int { return cmp.Compare(x[a], x[b]) })
+	}
+	for i := 1; i < len(out); i++ {
+		if x[out[i]] == x[out[i-1]] {
+			a, b := t.Line(out[i-1]), t.Line(out[i])
+			if a > b {
+				a, b = b, a
+			}
+			return nil, &DataError{File: t.File, Line: b, Column: col, Text: t.Strings(col)[out[i]], Err: ErrDuplicateX,
+				Hint: fmt.Sprintf("line %d has the same x; a line needs one value per x (per series): remove or combine one of them", a)}
+		}
+	}
+	if sorted {
+		return nil, nil
+	}
+	return out, nil
+}
+
+// allRows is 0..n-1.
+func allRows(n int) []int {
+	r := make([]int, n)
+	for i := range r {
+		r[i] = i
+	}
+	return r
+}
+
+// pick returns v at rows.
+func pick(v []float64, rows []int) []float64 {
+	out := make([]float64, len(rows))
+	for i, r := range rows {
+		out[i] = v[r]
+	}
+	return out
+}
+
+// linesFlags are the flags of plumb lines.
+type linesFlags struct {
+	shared
+	x, series, aspect, xFormat, unit, indexAt, xName, yName string
+	y                                                       listFlag
+	index                                                   indexFlag
+	together                                                bool
+}
+
+func (l *linesFlags) register(fs *flag.FlagSet) {
+	l.shared.register(fs)
+	fs.StringVar(&l.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
+	fs.Var(&l.y, "y", "value `COLUMNS`, comma-separated, one line each (default: every numeric column after x)")
+	fs.StringVar(&l.series, "series", "", "long format: `COLUMN` naming the series of each row")
+	fs.Var(&l.index, "index", "rebase every series to 100 at its first value; --index=AT rebases at x = AT")
+	fs.StringVar(&l.indexAt, "index-at", "", "rebase every series to 100 at x = `AT` (same as --index=AT)")
+	fs.StringVar(&l.aspect, "aspect", "", "plot shape: orientation (bank by mean orientation) or W:H; default banks to 45° by median slope")
+	fs.BoolVar(&l.together, "together", false, "keep more than four series on one panel instead of small multiples")
+	fs.StringVar(&l.xFormat, "x-format", "auto", "read x as auto, number or time")
+	fs.StringVar(&l.unit, "unit", "", "unit of the values, such as % or t")
+	fs.StringVar(&l.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
+	fs.StringVar(&l.yName, "y-name", "", "what the values measure, for the axis")
+}
+
+// runLines is plumb lines.
+func runLines(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+	fs := newFlagSet("lines", stderr)
+	var f linesFlags
+	f.register(fs)
+	pos, err := parse(fs, args)
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	if len(pos) != 1 {
+		return exitCode(usagef("give one data file (.csv, .tsv, .json), or - for standard input"), stderr)
+	}
+	c, err := f.common()
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	series, opt, notes, err := loadLines(pos[0], &f, stdin)
+	if err != nil {
+		return exitCode(err, stderr)
+	}
+	opt.Common = c
+	err = writeOutput(f.out, stdout, func(w io.Writer) error {
+		n, err := render.Lines(w, series, opt)
+		notes = append(notes, n...)
+		return err
+	})
+	printNotes(stderr, notes, f.quiet)
+	if err != nil {
+		return exitCode(fmt.Errorf("lines: %w", err), stderr)
+	}
+	return exitOK
+}
+
+// loadLines reads the table and builds the series, wide or long.
+func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, render.LinesOptions, []string, error) {
+	var opt render.LinesOptions
+	r, format, done, notes, err := openData(path, f.format, stdin)
+	if err != nil {
+		return nil, opt, nil, err
+	}
+	defer done()
+	var want []string
+	if f.x != "" && len(f.y) > 0 {
+		want = append([]string{f.x}, f.y...)
+		if f.series != "" {
+			want = append(want, f.series)
+		}
+	}
+	t, err := ReadTable(r, path, format, want)
+	if err != nil {
+		return nil, opt, nil, err
+	}
+	if len(t.Header) < 2 {
+		return nil, opt, nil, &DataError{File: t.File, Line: 1, Err: ErrMissingColumn, Hint: "a line chart needs an x column and a value column"}
+	}
+	xcol := f.x
+	if xcol == "" {
+		xcol = t.Header[0]
+	}
+	if t.Strings(xcol) == nil {
+		return nil, opt, nil, t.missingColumn(xcol, 1)
+	}
+	if t.Len() == 0 {
+		return nil, opt, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+	}
+	ycols := []string(f.y)
+	if len(ycols) == 0 {
+		for _, h := range t.Header {
+			if h == xcol || h == f.series || slices.Index(t.Header, h) < slices.Index(t.Header, xcol) {
+				continue
+			}
+			if _, _, err := t.Numbers(h); err == nil {
+				ycols = append(ycols, h)
+				if f.series != "" {
+					break
+				}
+			}
+		}
+		if len(ycols) == 0 {
+			return nil, opt, nil, &DataError{File: t.File, Line: 1, Err: ErrMissingColumn,
+				Hint: fmt.Sprintf("no column after %q holds numbers; name the value columns with --y (columns: %s)", xcol, strings.Join(t.Header, ", "))}
+		}
+		notes = append(notes, fmt.Sprintf("using column %q for x and %s for values (choose with --x and --y)", xcol, quoteList(ycols)))
+	}
+	if f.series != "" && len(ycols) != 1 {
+		return nil, opt, nil, usagef("--series takes one value column (--y COL); give several --y columns only in wide format")
+	}
+	x, xn, err := readX(t, xcol, f.xFormat)
+	if err != nil {
+		return nil, opt, nil, err
+	}
+	notes = append(notes, xn...)
+	opt = render.LinesOptions{Time: x.time, Aspect: f.aspect, Together: f.together, Unit: f.unit, XName: f.xName, YName: f.yName}
+	if opt.XName == "" && !x.time {
+		opt.XName = xcol
+	}
+	if opt.YName == "" && len(ycols) == 1 && f.series == "" {
+		opt.YName = ycols[0]
+	}
+	if f.series != "" && opt.YName == "" {
+		opt.YName = ycols[0]
+	}
+	if f.indexAt != "" {
+		f.index.on, f.index.at = true, f.indexAt
+	}
+	if f.index.on {
+		opt.Index = true
+		if f.index.at != "" {
+			v, err := parseAt(f.index.at, x.time)
+			if err != nil {
+				return nil, opt, nil, err
+			}
+			opt.IndexAt = &v
+		}
+	}
+	var series []render.Series
+	if f.series == "" {
+		rows, err := orderRows(t, xcol, x.values, allRows(t.Len()))
+		if err != nil {
+			return nil, opt, nil, err
+		}
+		if rows != nil {
+			notes = append(notes, fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol))
+		}
+		xs := x.values
+		if rows != nil {
+			xs = pick(x.values, rows)
+		}
+		for _, col := range ycols {
+			ys, _, err := t.Numbers(col)
+			if err != nil {
+				return nil, opt, nil, err
+			}
+			if rows != nil {
+				ys = pick(ys, rows)
+			}
+			series = append(series, render.Series{Name: col, X: xs, Y: ys})
+		}
+		return series, opt, notes, nil
+	}
+	names := t.Strings(f.series)
+	if names == nil {
+		return nil, opt, nil, t.missingColumn(f.series, 1)
+	}
+	ys, _, err := t.Numbers(ycols[0])
+	if err != nil {
+		return nil, opt, nil, err
+	}
+	var order []string
+	groups := map[string][]int{}
+	for i, n := range names {
+		if _, ok := groups[n]; !ok {
+			order = append(order, n)
+		}
+		groups[n] = append(groups[n], i)
+	}
+	sortedAny := false
+	for _, n := range order {
+		rows := groups[n]
+		sorted, err := orderRows(t, xcol, x.values, rows)
+		if err != nil {
+			return nil, opt, nil, err
+		}
+		if sorted != nil {
+			rows, sortedAny = sorted, true
+		}
+		series = append(series, render.Series{Name: n, X: pick(x.values, rows), Y: pick(ys, rows)})
+	}
+	if sortedAny {
+		notes = append(notes, fmt.Sprintf("sorted each series by %q: a line joins its points in x order", xcol))
+	}
+	return series, opt, notes, nil
+}
+
+// parseAt reads an --index point as a number or, on a time axis, a date.
+func parseAt(s string, isTime bool) (float64, error) {
+	if isTime {
+		tm, _, err := scale.ParseTime(s)
+		if err != nil {
+			return 0, usagef("--index=%s: the x axis holds dates: %v", s, err)
+		}
+		return float64(tm.Unix()) + float64(tm.Nanosecond())/1e9, nil
+	}
+	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
+	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+		return 0, usagef("--index=%s: give an x value (a number on this axis)", s)
+	}
+	return v, nil
+}
+
+func quoteList(cols []string) string {
+	q := make([]string, len(cols))
+	for i, c := range cols {
+		q[i] = strconv.Quote(c)
+	}
+	return strings.Join(q, ", ")
+}
+
+// looksLikeTime reports whether a column holds dates: most of its first 200
+// cells parse as ISO 8601 (scale.DetectTime on those), so that one bad date
+// is reported where it is rather than the column read as bad numbers.
+func looksLikeTime(cells []string) bool {
+	var good []string
+	seen := 0
+	for _, s := range cells[:min(len(cells), 200)] {
+		if strings.TrimSpace(s) == "" {
+			continue
+		}
+		seen++
+		if _, _, err := scale.ParseTime(s); err == nil {
+			good = append(good, s)
+		}
+	}
+	if seen == 0 || len(good)*5 < seen*4 {
+		return false
+	}
+	ok, _ := scale.DetectTime(good)
+	return ok
+}
+
+// badTime is the cause of a DataError for a cell that is not a date: it
+// reads as one clause and unwraps to ErrBadTime and the parser's error.
+type badTime struct {
+	text  string
+	cause error
+}
+
+func (e *badTime) Error() string   { return fmt.Sprintf("cannot read %q as a date or time", e.text) }
+func (e *badTime) Unwrap() []error { return []error{ErrBadTime, e.cause} }

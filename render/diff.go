@@ -1,0 +1,483 @@
+package render
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"plumb/palette"
+	"plumb/scale"
+)
+
+// DiffOptions configures a difference chart. The zero value draws a − b
+// against a zero baseline, banked to 45°, the two signs in two colours
+// that stay apart under colour vision deficiency.
+type DiffOptions struct {
+	Common
+	Time         bool   // x holds instants as Unix seconds (UTC)
+	AName, BName string // the two series' names; "" means "a" and "b"
+	// Context adds a panel above the difference with both series on the
+	// same x scale, so that the reader sees the levels too.
+	Context bool
+	Unit    string // unit of a and b
+	XName   string // what x is
+}
+
+// Diff draws the difference chart of a − b over x and writes it as SVG
+// to w. Readers judge the gap between two curves by their shortest
+// distance rather than the vertical one (Cleveland & McGill 1984), so the
+// difference itself is plotted. It returns the notes.
+func Diff(w io.Writer, x, a, b []float64, opt DiffOptions) ([]string, error) {
+	s, err := DiffScene(x, a, b, opt)
+	if err != nil {
+		return nil, err
+	}
+	return s.Notes, WriteSVG(w, s)
+}
+
+// diffColors are the two area colours and the two context line colours:
+// the inner and outer classes of the two arms of the default diverging
+// scale, matched in lightness and no red/green pair. The areas are light
+// enough for text in the Text colour (7:1) and stay over 30 CIEDE2000
+// apart under all four visions (checked in diff_test.go).
+func diffColors() (areaA, areaB, lineA, lineB string) {
+	p, err := palette.Diverging(7)
+	if err != nil || len(p) != 7 {
+		return palette.Accent().Hex(), palette.Neutral().Hex(), palette.Accent().Hex(), palette.Neutral().Hex()
+	}
+	return p[4].Hex(), p[2].Hex(), p[5].Hex(), p[1].Hex()
+}
+
+// DiffScene builds the difference chart's scene without writing it.
+func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
+	if len(x) != len(a) || len(x) != len(b) {
+		return nil, fmt.Errorf("%d x values, %d a values and %d b values: give one a and one b per x", len(x), len(a), len(b))
+	}
+	if opt.AName == "" {
+		opt.AName = "a"
+	}
+	if opt.BName == "" {
+		opt.BName = "b"
+	}
+	series, notes, err := cleanSeries([]Series{{Name: opt.AName, X: x, Y: a}, {Name: opt.BName, X: x, Y: b}})
+	if err != nil {
+		return nil, err
+	}
+	x, a, b = series[0].X, series[0].Y, series[1].Y
+	d := make([]float64, len(x))
+	for i := range x {
+		d[i] = a[i] - b[i] // NaN when either is missing: a gap
+	}
+	if _, _, ok := dataRange(d); !ok {
+		return nil, fmt.Errorf("no x has both %s and %s: nothing to subtract", opt.AName, opt.BName)
+	}
+	f, err := newFrame(opt.Common)
+	if err != nil {
+		return nil, err
+	}
+	for _, n := range notes[:min(len(notes), 1)] {
+		f.scene.Note(n)
+	}
+	if n := missingNote([]Series{{Name: "difference", X: x, Y: d}}); n != "" {
+		f.scene.Note(strings.Replace(n, "the lines are drawn", "the difference is drawn", 1))
+	}
+	c := &diffChart{opt: opt, f: f, x: x, a: a, b: b, d: d}
+	bottom, err := c.layout()
+	if err != nil {
+		return nil, err
+	}
+	f.scene.Desc = c.describe()
+	if f.scene.Title == "" {
+		// Untitled figures still need an accessible name.
+		f.scene.Title = "Difference between " + opt.AName + " and " + opt.BName
+	}
+	return f.finish(bottom), nil
+}
+
+type diffChart struct {
+	opt        DiffOptions
+	f          *frame
+	x, a, b, d []float64
+	crossings  int
+}
+
+func (c *diffChart) unitSuffix() string {
+	if c.opt.Unit == "" {
+		return ""
+	}
+	return " (" + c.opt.Unit + ")"
+}
+
+// layout places the optional context panel and the difference panel, one
+// above the other, sharing the x axis and the plot's left and right edges.
+func (c *diffChart) layout() (float64, error) {
+	f, sp := c.f, c.f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	areaA, areaB, lineA, lineB := diffColors()
+	zero := 0.0
+	dlo, dhi, _ := dataRange(c.d)
+	xlo, xhi, _ := dataRange(c.x)
+	lvLo, lvHi, _ := dataRange(c.a, c.b)
+
+	yw := f.yLabelWidth(dlo, dhi, "", &zero)
+	var labels []endLabel
+	labelW := 0.0
+	if c.opt.Context {
+		yw = math.Max(yw, f.yLabelWidth(lvLo, lvHi, "", nil))
+		labels, labelW = f.directLabels([]string{c.opt.AName, c.opt.BName}, []string{lineA, lineB}, (f.width-2*sp.pad)*0.3)
+	}
+	left := math.Ceil(sp.pad + yw + sp.gap)
+	w := math.Floor(f.width - sp.pad - labelW - left)
+	ax := f.fitX(xlo, xhi, c.opt.Time, w)
+	for pass := 0; pass < 3; pass++ {
+		lo, ro := f.xOverhang(ax, w)
+		left = math.Max(left, math.Ceil(sp.pad+lo))
+		nw := math.Floor(f.width - sp.pad - math.Max(labelW, ro) - left)
+		if nw == w {
+			break
+		}
+		w = nw
+		ax = f.fitX(xlo, xhi, c.opt.Time, w)
+	}
+	if w < sp.text*8 {
+		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size")
+	}
+	g := lineGeom{left: 0, w: int(w), ax: ax}
+	y := f.plotTop()
+	half := math.Ceil((asc + desc) / 2)
+
+	// Bank both panels first: a medium of fixed height may have to shrink them.
+	series := []Series{{Name: c.opt.AName, X: c.x, Y: c.a}, {Name: c.opt.BName, X: c.x, Y: c.b}}
+	var pa, pb scale.Polyline
+	var hc float64
+	var ayc yAxis
+	var bkc banking
+	if c.opt.Context {
+		g.reduce = shouldReduce(series, g.w)
+		pa, pb = g.polyline(c.x, c.a), g.polyline(c.x, c.b)
+		hc, ayc = f.bank(&bkc, []scale.Polyline{pa, pb}, ax.d1-ax.d0, w, lvLo, lvHi, "", nil)
+	}
+	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
+	pd := g.polyline(c.x, c.d)
+	if g.reduce && len(pd.X) < len(c.x) {
+		f.scene.Note(reduceNote(len(c.x), len(pd.X)))
+	}
+	var bk banking
+	h, ay := f.bank(&bk, []scale.Polyline{pd}, ax.d1-ax.d0, w, dlo, dhi, "", &zero)
+	panelTop := lh + sp.gap + half
+	if fb := f.fixedPlotBottom(); fb > 0 {
+		room := fb - y - panelTop - (f.xLabelTop(0) + lh)
+		if c.opt.XName != "" {
+			room -= lh
+		}
+		if c.opt.Context {
+			room -= panelTop + half + sp.gap*2
+		}
+		if room < sp.text*6 {
+			return 0, fmt.Errorf("the figure is too short for a difference chart: give a taller --size")
+		}
+		if k := room / (h + hc); k < 1 {
+			h, hc = h*k, hc*k
+			ay = f.fitY(dlo, dhi, h, "", &zero)
+			bk.limit(w, h)
+			if c.opt.Context {
+				ayc = f.fitY(lvLo, lvHi, hc, "", nil)
+				bkc.limit(w, hc)
+			}
+		}
+	}
+	lw := strokeWidth(sp)
+	if c.opt.Context {
+		g.reduce = shouldReduce(series, g.w)
+		h, ay := hc, ayc
+		f.scene.Note("levels panel: " + bkc.note(w, h))
+		f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "levels"}}})
+		f.text(-left+sp.pad, asc, c.opt.AName+" and "+c.opt.BName+c.unitSuffix(), sp.text, false, f.th.muted, "plumb-axis-title", Start)
+		top := lh + sp.gap + half
+		ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: top + h, R1: top}
+		f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
+		f.drawYAxis(ay, ys, 0, w, true)
+		f.scene.Add(Mark{Kind: GroupEnd})
+		for i, p := range []scale.Polyline{pa, pb} {
+			lines := g.screen(p, ys)
+			f.scene.Add(seriesPath(series[i].Name, lines, []string{lineA, lineB}[i], lw))
+			if len(lines) > 0 {
+				last := lines[len(lines)-1]
+				labels[i].ex, labels[i].ey = last[len(last)-1].X, last[len(last)-1].Y
+			}
+		}
+		if !f.placeLabels(labels, w, top, top+h) {
+			f.scene.Note("the series names do not fit beside the line ends: named them in the panel title")
+		}
+		f.scene.Add(Mark{Kind: GroupEnd})
+		y += top + h + half + sp.gap*2
+	}
+
+	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
+	f.scene.Note(bk.note(w, h))
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "difference"}}})
+	f.text(-left+sp.pad, asc, "difference, "+c.opt.AName+" − "+c.opt.BName+c.unitSuffix(), sp.text, false, f.th.muted, "plumb-axis-title", Start)
+	top := lh + sp.gap + half
+	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: top + h, R1: top}
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
+	f.drawYAxis(ay, ys, 0, w, true)
+	bottom := f.drawXAxis(ax, 0, g.w, top+h, true)
+	if c.opt.XName != "" {
+		f.text(w/2, bottom+asc, c.opt.XName, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
+		bottom += lh
+	}
+	f.scene.Add(Mark{Kind: GroupEnd})
+
+	// The drawn difference with every sign change split at its exact
+	// crossing, interpolated linearly between the two neighbouring points.
+	pts := crossings(pd)
+	xs := scale.Linear{D0: ax.d0, D1: ax.d1, R0: 0, R1: w}
+	base := round2(ys.Map(0))
+	var pos, neg [][]Point
+	var largest [2]areaInfo
+	for _, run := range pts {
+		for _, part := range splitSigns(run) {
+			poly := make([]Point, 0, len(part.pts)+2)
+			area := 0.0
+			for i, p := range part.pts {
+				poly = append(poly, Point{round2(xs.Map(p.X)), round2(ys.Map(p.Y))})
+				if i > 0 {
+					area += math.Abs(xs.Map(p.X)-xs.Map(part.pts[i-1].X)) * math.Abs(ys.Map(p.Y)+ys.Map(part.pts[i-1].Y)-2*ys.Map(0)) / 2
+				}
+			}
+			if area == 0 {
+				continue
+			}
+			// Close along the baseline: an area that starts or ends at the
+			// series' ends rather than at a crossing drops to it there.
+			if first := poly[0]; first.Y != base {
+				poly = append([]Point{{first.X, base}}, poly...)
+			}
+			if last := poly[len(poly)-1]; last.Y != base {
+				poly = append(poly, Point{last.X, base})
+			}
+			k := 0
+			if part.sign < 0 {
+				k = 1
+				neg = append(neg, poly)
+			} else {
+				pos = append(pos, poly)
+			}
+			if area > largest[k].area {
+				largest[k] = areaInfo{area: area, pts: part.pts}
+			}
+		}
+	}
+	if len(pos) > 0 {
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-a", Lines: pos, Closed: true, Fill: areaA, Attrs: []Attr{{"series", c.opt.AName + " above " + c.opt.BName}}})
+	}
+	if len(neg) > 0 {
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-b", Lines: neg, Closed: true, Fill: areaB, Attrs: []Attr{{"series", c.opt.BName + " above " + c.opt.AName}}})
+	}
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{0, base}, {w, base}}}, Stroke: f.th.baseline, StrokeWidth: lw * 0.75})
+	var dl [][]Point
+	for _, run := range pts {
+		var l []Point
+		for _, p := range run {
+			l = append(l, Point{round2(xs.Map(p.X)), round2(ys.Map(p.Y))})
+		}
+		dl = append(dl, l)
+	}
+	f.scene.Add(seriesPath("difference", dl, f.th.text, lw*0.75))
+	c.regionLabel(largest[0], c.opt.AName+" above "+c.opt.BName, xs, ys, w, top, top+h, true)
+	c.regionLabel(largest[1], c.opt.BName+" above "+c.opt.AName, xs, ys, w, top, top+h, false)
+	f.scene.Add(Mark{Kind: GroupEnd})
+	return y + bottom, nil
+}
+
+type areaInfo struct {
+	area float64
+	pts  []xy
+}
+
+// regionLabel names the largest area of one sign, beside its extreme,
+// away from the baseline, inside the plot.
+func (c *diffChart) regionLabel(ar areaInfo, text string, xs, ys scale.Linear, w, top, bottom float64, above bool) {
+	if ar.area == 0 {
+		return
+	}
+	f, sp := c.f, c.f.spec
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	tw := f.measure(text, sp.text, false)
+	// Centre on the area's extreme, kept inside the plot.
+	ext := ar.pts[0]
+	for _, p := range ar.pts {
+		if math.Abs(p.Y) > math.Abs(ext.Y) {
+			ext = p
+		}
+	}
+	zero := ys.Map(0)
+	lh := lineHeight(sp.text)
+	// Inside the area where it is tallest under the whole label, on the
+	// light fill, just off the baseline; else beside the extreme, outside.
+	bestCX, bestH := 0.0, -1.0
+	x0, x1 := xs.Map(ar.pts[0].X), xs.Map(ar.pts[len(ar.pts)-1].X)
+	for cx := x0 + tw/2 + 2; cx <= x1-tw/2-2; cx += 2 {
+		if hgt := minDepth(ar.pts, xs, ys, cx-tw/2-2, cx+tw/2+2); hgt > bestH {
+			bestCX, bestH = cx, hgt
+		}
+	}
+	var cx, base float64
+	if bestH >= lh+sp.gap {
+		cx = bestCX
+		if above {
+			base = zero - sp.gap/2 - desc
+		} else {
+			base = zero + sp.gap/2 + asc
+		}
+	} else {
+		cx = math.Min(math.Max(xs.Map(ext.X), tw/2), w-tw/2)
+		peak := zero
+		for _, p := range ar.pts {
+			px := xs.Map(p.X)
+			if px < cx-tw/2-2 || px > cx+tw/2+2 {
+				continue
+			}
+			if y := ys.Map(p.Y); above && y < peak || !above && y > peak {
+				peak = y
+			}
+		}
+		if above {
+			base = math.Max(peak-sp.gap-desc, top+asc)
+		} else {
+			base = math.Min(peak+sp.gap+asc, bottom-desc)
+		}
+	}
+	f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(cx), Y: round2(base), Text: text, Size: sp.text, Fill: f.th.text, Anchor: Middle})
+}
+
+// crossings returns the drawn difference as runs without gaps, with a
+// vertex inserted at every sign change: where d goes from one sign to the
+// other between two points, at the x where the straight segment between
+// them meets zero.
+func crossings(p scale.Polyline) [][]xy {
+	var out [][]xy
+	var run []xy
+	for i := range p.X {
+		x, y := p.X[i], p.Y[i]
+		if math.IsNaN(y) {
+			if len(run) > 0 {
+				out = append(out, run)
+				run = nil
+			}
+			continue
+		}
+		if n := len(run); n > 0 {
+			q := run[n-1]
+			if q.Y < 0 && y > 0 || q.Y > 0 && y < 0 {
+				run = append(run, xy{X: q.X + (x-q.X)*q.Y/(q.Y-y), Y: 0})
+			}
+		}
+		run = append(run, xy{X: x, Y: y})
+	}
+	if len(run) > 0 {
+		out = append(out, run)
+	}
+	return out
+}
+
+// signedPart is a stretch of the difference of one sign, from baseline to
+// baseline where it crosses.
+type signedPart struct {
+	sign int
+	pts  []xy
+}
+
+// splitSigns cuts a run at its zero vertices into parts of one sign each.
+func splitSigns(run []xy) []signedPart {
+	var out []signedPart
+	cur := signedPart{}
+	for _, p := range run {
+		s := 0
+		if p.Y > 0 {
+			s = 1
+		} else if p.Y < 0 {
+			s = -1
+		}
+		if s != 0 && cur.sign != 0 && s != cur.sign {
+			// Only reached without a zero vertex between, which crossings prevents.
+			out = append(out, cur)
+			cur = signedPart{}
+		}
+		cur.pts = append(cur.pts, p)
+		if s != 0 {
+			cur.sign = s
+		}
+		if s == 0 && cur.sign != 0 {
+			out = append(out, cur)
+			cur = signedPart{pts: []xy{p}}
+		}
+	}
+	if cur.sign != 0 {
+		out = append(out, cur)
+	}
+	return out
+}
+
+// describe says what is plotted, where each series is above, and the
+// largest differences.
+func (c *diffChart) describe() string {
+	var b strings.Builder
+	over := c.opt.XName
+	if over == "" {
+		over = "x"
+	}
+	xlo, xhi, _ := dataRange(c.x)
+	fmt.Fprintf(&b, "Difference chart of %s minus %s over %s, from %s to %s, against a zero line.", c.opt.AName, c.opt.BName, over,
+		xValueText(xlo, c.opt.Time), xValueText(xhi, c.opt.Time))
+	series := []Series{{Name: c.opt.AName, X: c.x, Y: c.a}, {Name: c.opt.BName, X: c.x, Y: c.b}, {X: c.x, Y: c.d}}
+	vf := scale.ValueFormat(shownValues(series), c.opt.Unit)
+	_, _, lo, hi := extremes(c.d)
+	above, below := 0, 0
+	for _, v := range c.d {
+		if v > 0 {
+			above++
+		} else if v < 0 {
+			below++
+		}
+	}
+	fmt.Fprintf(&b, " %s is above %s at %d of %d points and below at %d.", c.opt.AName, c.opt.BName, above, len(c.d), below)
+	fmt.Fprintf(&b, " Largest difference: %s at %s; smallest: %s at %s.", vf.Format(c.d[hi]), xValueText(c.x[hi], c.opt.Time), vf.Format(c.d[lo]), xValueText(c.x[lo], c.opt.Time))
+	for _, s := range series[:2] {
+		b.WriteString(" " + describeSeries(s, vf, c.opt.Time))
+	}
+	return b.String()
+}
+
+// xy is one point of the difference in data units.
+type xy struct{ X, Y float64 }
+
+// minDepth is the smallest distance in pixels between the baseline and the
+// difference line over the screen interval [l, r], which lies within the
+// part pts (one sign, in x order).
+func minDepth(pts []xy, xs, ys scale.Linear, l, r float64) float64 {
+	zero := ys.Map(0)
+	depth := math.Inf(1)
+	at := func(px float64) {
+		for i := 1; i < len(pts); i++ {
+			a, b := xs.Map(pts[i-1].X), xs.Map(pts[i].X)
+			if px >= a && px <= b && b > a {
+				y := ys.Map(pts[i-1].Y) + (ys.Map(pts[i].Y)-ys.Map(pts[i-1].Y))*(px-a)/(b-a)
+				depth = math.Min(depth, math.Abs(y-zero))
+				return
+			}
+		}
+	}
+	at(l)
+	at(r)
+	for _, p := range pts {
+		if px := xs.Map(p.X); px >= l && px <= r {
+			depth = math.Min(depth, math.Abs(ys.Map(p.Y)-zero))
+		}
+	}
+	return depth
+}

@@ -1,0 +1,847 @@
+package render
+
+import (
+	"cmp"
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strings"
+	"time"
+
+	"plumb/layout"
+	"plumb/palette"
+	"plumb/scale"
+)
+
+// Series is one line of a line chart: Y over X, in X order. A NaN in Y is a
+// missing value: the line breaks there and is never joined across.
+type Series struct {
+	Name string
+	X, Y []float64
+}
+
+// LinesOptions configures a line chart. The zero value draws the honest
+// default: one panel banked to 45° by median absolute slope, series named
+// at their line ends, more than four series as small multiples.
+type LinesOptions struct {
+	Common
+	// Time says X holds instants as Unix seconds (UTC): the x axis then gets
+	// calendar ticks.
+	Time bool
+	// Aspect chooses the plot's height for its width: "" banks to 45° by
+	// median absolute slope (Cleveland, McGill & McGill 1988),
+	// "orientation" by length-weighted mean orientation (Cleveland 1993),
+	// and "W:H" (such as "16:9") forces a ratio.
+	Aspect string
+	// Together keeps more than four series on one panel.
+	Together bool
+	// Index rebases every series to 100 at its first value, or at x =
+	// *IndexAt when IndexAt is set (which implies Index).
+	Index   bool
+	IndexAt *float64
+	Unit    string // unit of the values, for the axis and description
+	XName   string // what x is, for the axis title and description
+	YName   string // what the values measure
+}
+
+// MaxTogether is how many series one panel shows before a line chart
+// becomes small multiples: people hold three to five objects in working
+// memory (Cowan 2001), and four lines still read apart.
+const MaxTogether = 4
+
+// Lines draws a line chart and writes it as SVG to w. It returns the notes
+// that record what was decided for the caller.
+func Lines(w io.Writer, series []Series, opt LinesOptions) ([]string, error) {
+	s, err := LinesScene(series, opt)
+	if err != nil {
+		return nil, err
+	}
+	return s.Notes, WriteSVG(w, s)
+}
+
+// LinesScene builds the line chart's scene without writing it.
+func LinesScene(series []Series, opt LinesOptions) (*Scene, error) {
+	c := &lineChart{opt: opt}
+	return c.build(series)
+}
+
+type lineChart struct {
+	opt    LinesOptions
+	f      *frame
+	series []Series
+	bank   banking
+	unit   string // unit on the y ticks ("%" only; others go in the title)
+	yTitle string
+	// The data's extent over all series, found once: each pass over a
+	// million points costs as much as the rest of the layout.
+	xlo, xhi, ylo, yhi float64
+}
+
+func (c *lineChart) build(in []Series) (*Scene, error) {
+	method, forced, err := parseAspect(c.opt.Aspect)
+	if err != nil {
+		return nil, err
+	}
+	c.bank = banking{method: method, forced: forced}
+	series, notes, err := cleanSeries(in)
+	if err != nil {
+		return nil, err
+	}
+	f, err := newFrame(c.opt.Common)
+	if err != nil {
+		return nil, err
+	}
+	c.f = f
+	for _, n := range notes {
+		f.scene.Note(n)
+	}
+	if c.opt.Index || c.opt.IndexAt != nil {
+		if series, err = c.rebase(series); err != nil {
+			return nil, err
+		}
+	}
+	c.series = series
+	c.axisTitle()
+	var ok bool
+	if c.ylo, c.yhi, ok = dataRange(c.ys()...); !ok {
+		return nil, fmt.Errorf("no values to draw: every value is missing")
+	}
+	c.xlo, c.xhi, _ = dataRange(c.xs()...)
+	if n := missingNote(series); n != "" {
+		f.scene.Note(n)
+	}
+	multiples := len(series) > MaxTogether && !c.opt.Together
+	switch {
+	case multiples:
+		f.scene.Note(fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the others faint behind it (--together keeps one panel)", len(series)))
+	case len(series) > MaxTogether:
+		f.scene.Note(fmt.Sprintf("kept %d series on one panel as asked (--together); small multiples would read more easily", len(series)))
+	}
+	if !multiples && !c.opt.Index && c.opt.IndexAt == nil {
+		if n := magnitudeNote(series); n != "" {
+			f.scene.Note(n)
+		}
+	}
+	var bottom float64
+	if multiples {
+		bottom, err = c.layoutMultiples()
+	} else {
+		bottom, err = c.layoutSingle()
+	}
+	if err != nil {
+		return nil, err
+	}
+	f.scene.Desc = c.describe(multiples)
+	if f.scene.Title == "" {
+		// Untitled figures still need an accessible name.
+		f.scene.Title = c.accessibleTitle()
+	}
+	return f.finish(bottom), nil
+}
+
+func (c *lineChart) ys() [][]float64 {
+	out := make([][]float64, len(c.series))
+	for i, s := range c.series {
+		out[i] = s.Y
+	}
+	return out
+}
+
+func (c *lineChart) xs() [][]float64 {
+	out := make([][]float64, len(c.series))
+	for i, s := range c.series {
+		out[i] = s.X
+	}
+	return out
+}
+
+// cleanSeries validates the series, sorts any out of x order (with a note)
+// and refuses duplicate x values, which a line cannot draw.
+func cleanSeries(in []Series) ([]Series, []string, error) {
+	if len(in) == 0 {
+		return nil, nil, fmt.Errorf("no series to draw")
+	}
+	var notes []string
+	out := make([]Series, len(in))
+	for i, s := range in {
+		if s.Name == "" {
+			s.Name = fmt.Sprintf("series %d", i+1)
+		}
+		if len(s.X) != len(s.Y) {
+			return nil, nil, fmt.Errorf("series %q has %d x values but %d y values: give one x per y", s.Name, len(s.X), len(s.Y))
+		}
+		if len(s.X) == 0 {
+			return nil, nil, fmt.Errorf("series %q has no points", s.Name)
+		}
+		for j := range s.X {
+			if math.IsNaN(s.X[j]) || math.IsInf(s.X[j], 0) {
+				return nil, nil, fmt.Errorf("series %q: x value %d is %v: give finite x values", s.Name, j+1, s.X[j])
+			}
+			if math.IsInf(s.Y[j], 0) {
+				return nil, nil, fmt.Errorf("series %q: y value %d is infinite: give finite values, or NaN for a missing one", s.Name, j+1)
+			}
+		}
+		if !slices.IsSorted(s.X) {
+			idx := make([]int, len(s.X))
+			for j := range idx {
+				idx[j] = j
+			}
+			slices.SortStableFunc(idx, func(a, b int) int { return cmp.Compare(s.X[a], s.X[b]) })
+			x, y := make([]float64, len(idx)), make([]float64, len(idx))
+			for j, k := range idx {
+				x[j], y[j] = s.X[k], s.Y[k]
+			}
+			s.X, s.Y = x, y
+			notes = append(notes, fmt.Sprintf("sorted series %q by x: a line joins its points in x order", s.Name))
+		}
+		for j := 1; j < len(s.X); j++ {
+			if s.X[j] == s.X[j-1] {
+				return nil, nil, fmt.Errorf("series %q has two points at x = %g: a line needs one value per x; combine them first", s.Name, s.X[j])
+			}
+		}
+		out[i] = s
+	}
+	return out, notes, nil
+}
+
+// missingNote counts missing values and the pieces they break lines into.
+func missingNote(series []Series) string {
+	missing, pieces := 0, 0
+	for _, s := range series {
+		in := false
+		for _, y := range s.Y {
+			if math.IsNaN(y) {
+				missing++
+				in = false
+				continue
+			}
+			if !in {
+				pieces++
+				in = true
+			}
+		}
+	}
+	if missing == 0 {
+		return ""
+	}
+	return fmt.Sprintf("%d missing %s leave gaps: the lines are drawn in %d pieces and never joined across a gap",
+		missing, plural(missing, "value", "values"), pieces)
+}
+
+// magnitudeNote suggests an index or panels when one axis must show series
+// more than ten times apart in size, which flattens the smaller ones.
+func magnitudeNote(series []Series) string {
+	if len(series) < 2 {
+		return ""
+	}
+	lo, hi := math.Inf(1), 0.0
+	var loName, hiName string
+	for _, s := range series {
+		m := 0.0
+		for _, y := range s.Y {
+			if !math.IsNaN(y) {
+				m = math.Max(m, math.Abs(y))
+			}
+		}
+		if m < lo {
+			lo, loName = m, s.Name
+		}
+		if m > hi {
+			hi, hiName = m, s.Name
+		}
+	}
+	if lo > 0 && hi/lo <= 10 {
+		return ""
+	}
+	return fmt.Sprintf("%q reaches more than ten times the size of %q, which looks flat on a shared axis: compare changes with --index, or draw separate panels with --by (no second y axis)", hiName, loName)
+}
+
+// rebase turns every series into an index, 100 at its first value or at x
+// = IndexAt (interpolated linearly between neighbouring points).
+func (c *lineChart) rebase(series []Series) ([]Series, error) {
+	out := make([]Series, len(series))
+	for i, s := range series {
+		base, err := indexBase(s, c.opt.IndexAt, c.opt.Time)
+		if err != nil {
+			return nil, err
+		}
+		y := make([]float64, len(s.Y))
+		for j, v := range s.Y {
+			y[j] = 100 * v / base
+		}
+		out[i] = Series{Name: s.Name, X: s.X, Y: y}
+	}
+	at := "its first value"
+	if c.opt.IndexAt != nil {
+		at = "x = " + c.xText(*c.opt.IndexAt)
+	}
+	c.f.scene.Note(fmt.Sprintf("rebased every series to 100 at %s (--index), so that the lines compare change, not size", at))
+	return out, nil
+}
+
+func indexBase(s Series, at *float64, isTime bool) (float64, error) {
+	var base float64
+	if at == nil {
+		base = math.NaN()
+		for _, v := range s.Y {
+			if !math.IsNaN(v) {
+				base = v
+				break
+			}
+		}
+	} else {
+		base = interpolateAt(s, *at)
+		if math.IsNaN(base) {
+			return 0, &refusal{reason: fmt.Sprintf("series %q has no value at the index point (outside its range, or missing there)", s.Name),
+				instead: "choose an index point inside every series where both neighbours have values"}
+		}
+	}
+	if base == 0 || math.IsNaN(base) {
+		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q to 100 at a value of %v", s.Name, base),
+			instead: "index at a point where every series is non-zero (--index-at), or compare the values themselves"}
+	}
+	if base < 0 {
+		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q at a negative value: the index would run backwards", s.Name),
+			instead: "index at a point where every series is positive, or plot the differences with plumb diff"}
+	}
+	return base, nil
+}
+
+// interpolateAt is s at x, linear between the two neighbouring points, or
+// NaN outside the series or next to a missing value.
+func interpolateAt(s Series, x float64) float64 {
+	j, found := slices.BinarySearch(s.X, x)
+	if found {
+		return s.Y[j]
+	}
+	if j == 0 || j == len(s.X) {
+		return math.NaN()
+	}
+	x0, x1, y0, y1 := s.X[j-1], s.X[j], s.Y[j-1], s.Y[j]
+	return y0 + (y1-y0)*(x-x0)/(x1-x0)
+}
+
+// axisTitle sets the y axis title and which unit goes on the ticks.
+func (c *lineChart) axisTitle() {
+	name, unit := c.opt.YName, c.opt.Unit
+	if c.opt.Index || c.opt.IndexAt != nil {
+		at := "first value = 100"
+		if c.opt.IndexAt != nil {
+			at = "value at " + c.xText(*c.opt.IndexAt) + " = 100"
+		}
+		c.yTitle = "index, " + at
+		if name != "" {
+			c.yTitle = name + " (index, " + at + ")"
+		}
+		return
+	}
+	if unit == "%" {
+		c.unit = "%"
+		c.yTitle = name
+		return
+	}
+	switch {
+	case name != "" && unit != "":
+		c.yTitle = name + " (" + unit + ")"
+	case unit != "":
+		c.yTitle = unit
+	default:
+		c.yTitle = name
+	}
+}
+
+// xText formats an x value for notes and the description.
+func (c *lineChart) xText(x float64) string { return xValueText(x, c.opt.Time) }
+
+func xValueText(x float64, isTime bool) string {
+	if !isTime {
+		return scale.ValueFormat([]float64{x}, "").Format(x)
+	}
+	t := unixTime(x)
+	switch {
+	case t.Hour() != 0 || t.Minute() != 0 || t.Second() != 0:
+		return t.Format("2006-01-02 15:04")
+	case t.Day() != 1:
+		return t.Format("2 Jan 2006")
+	case t.Month() != time.January:
+		return t.Format("Jan 2006")
+	}
+	return t.Format("2006")
+}
+
+// seriesColors gives each series its colour: one series in Neutral, a few
+// in the categorical palette.
+func (c *lineChart) seriesColors() []string {
+	n := len(c.series)
+	out := make([]string, n)
+	if n == 1 {
+		out[0] = c.f.th.neutral
+		return out
+	}
+	p, err := palette.Categorical(min(n, palette.MaxCategorical))
+	for i := range out {
+		if err != nil || i >= len(p) {
+			out[i] = c.f.th.neutral // beyond the palette: --together with many series
+			continue
+		}
+		out[i] = p[i].Hex()
+	}
+	return out
+}
+
+// endLabel is a series name placed at its line's right end.
+type endLabel struct {
+	lines  []string
+	full   string
+	color  string // the series colour
+	text   string // the text colour: the series colour when it reads at 4.5:1
+	ex, ey float64
+}
+
+// directLabels measures the labels and returns the width they need at the
+// right of the plot.
+func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, float64) {
+	sp := f.spec
+	labels := make([]endLabel, len(names))
+	width := 0.0
+	white := palette.SRGB{R: 1, G: 1, B: 1}
+	for i, n := range names {
+		lines, cut := f.wrap(n, sp.text, false, maxW, 2)
+		if cut {
+			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
+		}
+		txt := f.th.text
+		if col, err := palette.ParseHex(colors[i]); err == nil && palette.Contrast(col, white) >= 4.5 {
+			txt = colors[i] // WCAG 2.x: text at least 4.5:1
+		}
+		labels[i] = endLabel{lines: lines, full: n, color: colors[i], text: txt}
+		for _, l := range lines {
+			width = math.Max(width, f.measure(l, sp.text, false))
+		}
+	}
+	return labels, width + f.labelIndent()
+}
+
+// labelIndent is the room between the plot's right edge and label text: the
+// leader, which also shows the series colour beside a label set in the text
+// colour.
+func (f *frame) labelIndent() float64 { return f.spec.gap * 3 }
+
+// placeLabels spreads the labels vertically with the least total
+// displacement (layout.Spread) and draws them with leader lines. It returns
+// false, drawing nothing, when they cannot fit between top and bottom.
+func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool {
+	sp := f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	maxLines := 1
+	want := make([]float64, len(labels))
+	for i, l := range labels {
+		maxLines = max(maxLines, len(l.lines))
+		want[i] = l.ey
+	}
+	gap := lh * float64(maxLines)
+	got, ok := layout.Spread(want, gap, top, bottom)
+	if !ok {
+		return false
+	}
+	x := right + f.labelIndent()
+	for i, l := range labels {
+		y := got[i]
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(l.ex + 2), round2(l.ey)}, {round2(x - 2), round2(y)}}},
+			Stroke: l.color, StrokeWidth: 1.5})
+		tip := ""
+		if strings.Join(l.lines, " ") != l.full {
+			tip = l.full
+		}
+		for j, t := range l.lines {
+			base := y + (asc-desc)/2 + (float64(j)-float64(len(l.lines)-1)/2)*lh
+			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: x, Y: base, Text: t, Size: sp.text, Fill: l.text, Anchor: Start, Tooltip: tip,
+				Attrs: []Attr{{"series", l.full}}})
+		}
+	}
+	return true
+}
+
+// legend draws one row per series under the chart, for when direct labels
+// cannot be placed; it returns the y under it.
+func (f *frame) legend(labels []endLabel, left, y float64) float64 {
+	sp := f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-legend"})
+	y += sp.gap
+	for _, l := range labels {
+		cy := y + lh/2
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2})
+		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sp.text*1.5 + sp.gap, Y: cy + (asc-desc)/2, Text: l.full, Size: sp.text, Fill: f.th.text,
+			Attrs: []Attr{{"series", l.full}}})
+		y += lh
+	}
+	f.scene.Add(Mark{Kind: GroupEnd})
+	return y
+}
+
+// seriesPath is the mark of one drawn series.
+func seriesPath(name string, lines [][]Point, color string, width float64) Mark {
+	width = round2(width)
+	return Mark{Kind: Path, Class: "plumb-mark", Lines: lines, Stroke: color, StrokeWidth: width, Attrs: []Attr{{"series", name}}}
+}
+
+// shouldReduce applies M4 when a series holds more than four points per
+// pixel column (Jugel et al. 2014): beyond that its drawn line cannot show
+// more, and the file only grows. M4 works per polyline, so the count is
+// per series, not per panel.
+func shouldReduce(series []Series, w int) bool {
+	for _, s := range series {
+		if len(s.X) > 4*w {
+			return true
+		}
+	}
+	return false
+}
+
+func reduceNote(before, after int) string {
+	return fmt.Sprintf("reduced %s points to %s that draw the same line (M4: first, last, lowest and highest point per pixel column; Jugel et al. 2014)",
+		scale.Format{Group: true}.Format(float64(before)), scale.Format{Group: true}.Format(float64(after)))
+}
+
+// layoutSingle draws every series on one panel and returns the y under it.
+func (c *lineChart) layoutSingle() (float64, error) {
+	f, sp := c.f, c.f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	inner := f.width - 2*sp.pad
+	top := f.plotTop()
+	if c.yTitle != "" {
+		f.text(sp.pad, top+asc, c.yTitle, sp.text, false, f.th.muted, "plumb-axis-title", Start)
+		top += lh + sp.gap
+	}
+	plotTop := top + math.Ceil((asc+desc)/2)
+	ylo, yhi, xlo, xhi := c.ylo, c.yhi, c.xlo, c.xhi
+	colors := c.seriesColors()
+	var labels []endLabel
+	labelW := 0.0
+	if len(c.series) > 1 {
+		names := make([]string, len(c.series))
+		for i, s := range c.series {
+			names[i] = s.Name
+		}
+		labels, labelW = f.directLabels(names, colors, inner*0.3)
+	}
+	left := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
+	right := f.width - sp.pad - labelW
+	w := math.Floor(right - left)
+	ax := f.fitX(xlo, xhi, c.opt.Time, w)
+	// The outer x tick labels are centred on their ticks: keep them on the
+	// canvas, refitting the ticks when the plot narrows.
+	for pass := 0; pass < 3; pass++ {
+		lo, ro := f.xOverhang(ax, w)
+		left = math.Max(left, math.Ceil(sp.pad+lo))
+		nw := math.Floor(f.width - sp.pad - math.Max(labelW, ro) - left)
+		if nw == w {
+			break
+		}
+		w = nw
+		ax = f.fitX(xlo, xhi, c.opt.Time, w)
+	}
+	if w < sp.text*8 {
+		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size or shorter series names")
+	}
+	g := lineGeom{left: left, w: int(w), ax: ax, reduce: shouldReduce(c.series, int(w))}
+	polys := make([]scale.Polyline, len(c.series))
+	before, after := 0, 0
+	for i, s := range c.series {
+		polys[i] = g.polyline(s.X, s.Y)
+		before, after = before+len(s.X), after+len(polys[i].X)
+	}
+	if g.reduce && after < before {
+		f.scene.Note(reduceNote(before, after))
+	}
+	h, ay := f.bank(&c.bank, polys, ax.d1-ax.d0, w, ylo, yhi, c.unit, nil)
+	if fb := f.fixedPlotBottom(); fb > 0 {
+		room := fb - plotTop - (f.xLabelTop(0) + lh)
+		if c.opt.XName != "" {
+			room -= lh
+		}
+		if room < sp.text*3 {
+			return 0, fmt.Errorf("the figure is too short for a line chart: give a taller --size")
+		}
+		if h > room {
+			h = room
+			ay = f.fitY(ylo, yhi, h, c.unit, nil)
+			c.bank.limit(w, h)
+		}
+	}
+	f.scene.Note(c.bank.note(w, h))
+	bottom := plotTop + h
+	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: bottom, R1: plotTop}
+
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
+	f.drawYAxis(ay, ys, left, left+w, true)
+	axisBottom := f.drawXAxis(ax, left, int(w), bottom, true)
+	if c.opt.XName != "" {
+		f.text(left+w/2, axisBottom+asc, c.opt.XName, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
+		axisBottom += lh
+	}
+	f.scene.Add(Mark{Kind: GroupEnd})
+
+	width := strokeWidth(sp)
+	for i, s := range c.series {
+		lines := g.screen(polys[i], ys)
+		f.scene.Add(seriesPath(s.Name, lines, colors[i], width))
+		if labels != nil {
+			last := lines[len(lines)-1]
+			p := last[len(last)-1]
+			labels[i].ex, labels[i].ey = p.X, p.Y
+		}
+	}
+	if labels != nil && !f.placeLabels(labels, left+w, plotTop, bottom) {
+		f.scene.Note("the series names do not fit beside the line ends: named them in a legend below the chart")
+		axisBottom = f.legend(labels, left, axisBottom)
+	}
+	return axisBottom, nil
+}
+
+// layoutMultiples draws one panel per series in a grid, all with the same
+// scales; each panel shows its own series strongly and the others faintly.
+func (c *lineChart) layoutMultiples() (float64, error) {
+	f, sp := c.f, c.f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	top := f.plotTop()
+	if c.yTitle != "" {
+		f.text(sp.pad, top+asc, c.yTitle, sp.text, false, f.th.muted, "plumb-axis-title", Start)
+		top += lh + sp.gap
+	}
+	n := len(c.series)
+	ylo, yhi, xlo, xhi := c.ylo, c.yhi, c.xlo, c.xhi
+	left := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
+	hgap := math.Ceil(sp.text * 2)
+	avail := f.width - sp.pad - left
+	cols := min(n, int(math.Ceil(math.Sqrt(float64(n)))))
+	for cols > 1 && (avail-float64(cols-1)*hgap)/float64(cols) < sp.text*10 {
+		cols--
+	}
+	rows := (n + cols - 1) / cols
+	var w float64
+	var ax xAxis
+	right := f.width - sp.pad
+	for pass := 0; pass < 3; pass++ {
+		w = math.Floor((right - left - float64(cols-1)*hgap) / float64(cols))
+		ax = f.fitX(xlo, xhi, c.opt.Time, w)
+		_, ro := f.xOverhang(ax, w)
+		if ro <= f.width-sp.pad-(left+float64(cols)*w+float64(cols-1)*hgap)+0.01 {
+			break
+		}
+		right = f.width - sp.pad - ro
+	}
+	if w < sp.text*6 {
+		return 0, fmt.Errorf("%d panels do not fit at this width: give a wider --size, or --together for one panel", n)
+	}
+	g := lineGeom{left: 0, w: int(w), ax: ax}
+	polys := make([]scale.Polyline, n)
+	before, after := 0, 0
+	for i, s := range c.series {
+		g.reduce = shouldReduce(c.series[i:i+1], int(w))
+		polys[i] = g.polyline(s.X, s.Y)
+		before, after = before+len(s.X), after+len(polys[i].X)
+	}
+	if after < before {
+		f.scene.Note(reduceNote(before, after))
+	}
+	h, ay := f.bank(&c.bank, polys, ax.d1-ax.d0, w, ylo, yhi, c.unit, nil)
+	titleH := lh
+	plotOff := titleH + math.Ceil((asc+desc)/2)
+	if fb := f.fixedPlotBottom(); fb > 0 {
+		// Rows of panels, the last one or two with x labels, within the canvas.
+		over := float64(rows)*(plotOff+sp.gap*2) + 2*(f.xLabelTop(0)+lh)
+		if c.opt.XName != "" {
+			over += lh
+		}
+		room := (fb - top - over) / float64(rows)
+		if room < sp.text*3 {
+			return 0, fmt.Errorf("%d rows of panels do not fit in a %g px high figure: give a taller --size, or --together for one panel", rows, f.spec.height)
+		}
+		if h > room {
+			h = room
+			ay = f.fitY(ylo, yhi, h, c.unit, nil)
+			c.bank.limit(w, h)
+		}
+	}
+	f.scene.Note(c.bank.note(w, h) + ", each panel")
+	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: plotOff + h, R1: plotOff}
+	lastRow := n - (rows-1)*cols
+	y := top
+	var lines [][][]Point
+	for i := range c.series {
+		lines = append(lines, g.screen(polys[i], ys))
+	}
+	for r := 0; r < rows; r++ {
+		rowH := plotOff + h
+		labelled := r == rows-1 || r == rows-2 && lastRow < cols
+		if labelled {
+			rowH = f.xLabelTop(plotOff+h) + lh
+		}
+		for col := 0; col < cols; col++ {
+			i := r*cols + col
+			if i >= n {
+				break
+			}
+			dx := left + float64(col)*(w+hgap)
+			f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: dx, DY: round2(y), Attrs: []Attr{{"series", c.series[i].Name}}})
+			title, cut := f.wrap(c.series[i].Name, sp.text, true, w, 1)
+			tip := ""
+			if cut {
+				tip = c.series[i].Name
+			}
+			if len(title) > 0 {
+				f.scene.Add(Mark{Kind: Text, Class: "plumb-panel-title", X: 0, Y: asc, Text: title[0], Size: sp.text, Bold: true, Fill: f.th.text, Tooltip: tip})
+			}
+			f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
+			f.drawYAxis(ay, ys, 0, w, col == 0)
+			showX := r == rows-1 || (r+1)*cols+col >= n
+			f.drawXAxis(ax, 0, int(w), plotOff+h, showX)
+			f.scene.Add(Mark{Kind: GroupEnd})
+			for j, s := range c.series {
+				if j != i {
+					f.scene.Add(Mark{Kind: Path, Class: "plumb-context", Lines: lines[j], Stroke: f.th.context, StrokeWidth: round2(strokeWidth(sp) / 2), Attrs: []Attr{{"series", s.Name}}})
+				}
+			}
+			f.scene.Add(seriesPath(c.series[i].Name, lines[i], f.th.neutral, strokeWidth(sp)))
+			f.scene.Add(Mark{Kind: GroupEnd})
+		}
+		y += rowH + sp.gap*2
+	}
+	bottom := y - sp.gap*2
+	if c.opt.XName != "" {
+		f.text(left+(float64(cols)*w+float64(cols-1)*hgap)/2, bottom+asc, c.opt.XName, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
+		bottom += lh
+	}
+	return bottom, nil
+}
+
+// describe writes the plain-language description: what is plotted, over
+// what range, each series' first and last values and extremes.
+func (c *lineChart) describe(multiples bool) string {
+	var b strings.Builder
+	what := c.opt.YName
+	if what == "" {
+		what = "values"
+	}
+	if c.opt.Index || c.opt.IndexAt != nil {
+		what += " as an index (" + strings.TrimPrefix(c.yTitle, "index, ") + ")"
+	}
+	kind := "Line chart"
+	if multiples {
+		kind = "Small multiples of line charts, one panel per series,"
+	}
+	over := c.opt.XName
+	if over == "" {
+		over = "x"
+	}
+	fmt.Fprintf(&b, "%s of %s over %s, %d %s, from %s to %s.", kind, what, over, len(c.series),
+		plural(len(c.series), "series", "series"), c.xText(c.xlo), c.xText(c.xhi))
+	vf := scale.ValueFormat(shownValues(c.series), c.unitText())
+	for _, s := range c.series {
+		b.WriteString(" " + describeSeries(s, vf, c.opt.Time))
+	}
+	return b.String()
+}
+
+func (c *lineChart) unitText() string {
+	if c.opt.Index || c.opt.IndexAt != nil {
+		return ""
+	}
+	return c.opt.Unit
+}
+
+// shownValues are the values a description prints (each series' first,
+// last, highest and lowest, and its change), so that their format is
+// chosen from them alone: formatting a million values to print eight
+// cost more than the rest of a render.
+func shownValues(series []Series) []float64 {
+	var out []float64
+	for _, s := range series {
+		first, last, lo, hi := extremes(s.Y)
+		if first < 0 {
+			continue
+		}
+		out = append(out, s.Y[first], s.Y[last], s.Y[lo], s.Y[hi], s.Y[last]-s.Y[first])
+	}
+	return out
+}
+
+// extremes returns the indices of the first, last, lowest and highest
+// non-missing values, or -1s when all are missing.
+func extremes(y []float64) (first, last, lo, hi int) {
+	first, last, lo, hi = -1, -1, -1, -1
+	for i, v := range y {
+		if math.IsNaN(v) {
+			continue
+		}
+		if first < 0 {
+			first = i
+		}
+		last = i
+		if lo < 0 || v < y[lo] {
+			lo = i
+		}
+		if hi < 0 || v > y[hi] {
+			hi = i
+		}
+	}
+	return first, last, lo, hi
+}
+
+// describeSeries says one series' first and last values, its change, and
+// its extremes.
+func describeSeries(s Series, vf scale.Format, isTime bool) string {
+	first, last, lo, hi := extremes(s.Y)
+	if first < 0 {
+		return fmt.Sprintf("%s: no values.", s.Name)
+	}
+	d := s.Y[last] - s.Y[first]
+	change := "no change"
+	switch {
+	case d > 0:
+		change = "up " + vf.Format(d)
+	case d < 0:
+		change = "down " + vf.Format(-d)
+	}
+	if d != 0 && s.Y[first] != 0 {
+		change += fmt.Sprintf(" (%+.0f%%)", 100*d/math.Abs(s.Y[first]))
+	}
+	return fmt.Sprintf("%s: %s at %s, %s at %s, %s; highest %s at %s, lowest %s at %s.", s.Name,
+		vf.Format(s.Y[first]), xValueText(s.X[first], isTime), vf.Format(s.Y[last]), xValueText(s.X[last], isTime), change,
+		vf.Format(s.Y[hi]), xValueText(s.X[hi], isTime), vf.Format(s.Y[lo]), xValueText(s.X[lo], isTime))
+}
+
+// accessibleTitle names an untitled chart by what it plots.
+func (c *lineChart) accessibleTitle() string {
+	what := c.opt.YName
+	if what == "" {
+		names := make([]string, 0, 3)
+		for _, s := range c.series[:min(3, len(c.series))] {
+			names = append(names, s.Name)
+		}
+		what = strings.Join(names, ", ")
+		if len(c.series) > 3 {
+			what += fmt.Sprintf(" and %d more", len(c.series)-3)
+		}
+	}
+	if c.opt.XName != "" {
+		return "Line chart of " + what + " by " + c.opt.XName
+	}
+	return "Line chart of " + what
+}
+
+// strokeWidth is the width of a data line: 2 px beside 13 px text on
+// screen, growing with the medium's text so that a slide's lines are not
+// hairlines, and never under 1.5 px (common practice).
+func strokeWidth(sp mediumSpec) float64 { return math.Max(1.5, 2*sp.text/13) }
