@@ -410,3 +410,23 @@ func (f *frame) drawXAxis(a xAxis, left float64, w int, bottom float64, labels b
 	}
 	return top + lineHeight(sp.text)
 }
+
+// fitPlotX places a plot horizontally between left and the right edge less
+// labelW (room for end labels): it fits the x ticks, then narrows the plot
+// until the outer tick labels, centred on their ticks, stay on the canvas.
+func (f *frame) fitPlotX(left, labelW, xlo, xhi float64, isTime bool) (float64, float64, xAxis) {
+	sp := f.spec
+	w := math.Floor(f.width - sp.pad - labelW - left)
+	ax := f.fitX(xlo, xhi, isTime, w)
+	for pass := 0; pass < 3; pass++ {
+		lo, ro := f.xOverhang(ax, w)
+		left = math.Max(left, math.Ceil(sp.pad+lo))
+		nw := math.Floor(f.width - sp.pad - math.Max(labelW, ro) - left)
+		if nw == w {
+			break
+		}
+		w = nw
+		ax = f.fitX(xlo, xhi, isTime, w)
+	}
+	return left, w, ax
+}

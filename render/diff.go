@@ -129,19 +129,7 @@ func (c *diffChart) layout() (float64, error) {
 		yw = math.Max(yw, f.yLabelWidth(lvLo, lvHi, "", nil))
 		labels, labelW = f.directLabels([]string{c.opt.AName, c.opt.BName}, []string{lineA, lineB}, (f.width-2*sp.pad)*0.3)
 	}
-	left := math.Ceil(sp.pad + yw + sp.gap)
-	w := math.Floor(f.width - sp.pad - labelW - left)
-	ax := f.fitX(xlo, xhi, c.opt.Time, w)
-	for pass := 0; pass < 3; pass++ {
-		lo, ro := f.xOverhang(ax, w)
-		left = math.Max(left, math.Ceil(sp.pad+lo))
-		nw := math.Floor(f.width - sp.pad - math.Max(labelW, ro) - left)
-		if nw == w {
-			break
-		}
-		w = nw
-		ax = f.fitX(xlo, xhi, c.opt.Time, w)
-	}
+	left, w, ax := f.fitPlotX(math.Ceil(sp.pad+yw+sp.gap), labelW, xlo, xhi, c.opt.Time)
 	if w < sp.text*8 {
 		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size")
 	}

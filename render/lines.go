@@ -534,21 +534,7 @@ func (c *lineChart) layoutSingle() (float64, error) {
 		labels, labelW = f.directLabels(names, colors, inner*0.3)
 	}
 	left := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
-	right := f.width - sp.pad - labelW
-	w := math.Floor(right - left)
-	ax := f.fitX(xlo, xhi, c.opt.Time, w)
-	// The outer x tick labels are centred on their ticks: keep them on the
-	// canvas, refitting the ticks when the plot narrows.
-	for pass := 0; pass < 3; pass++ {
-		lo, ro := f.xOverhang(ax, w)
-		left = math.Max(left, math.Ceil(sp.pad+lo))
-		nw := math.Floor(f.width - sp.pad - math.Max(labelW, ro) - left)
-		if nw == w {
-			break
-		}
-		w = nw
-		ax = f.fitX(xlo, xhi, c.opt.Time, w)
-	}
+	left, w, ax := f.fitPlotX(left, labelW, xlo, xhi, c.opt.Time)
 	if w < sp.text*8 {
 		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size or shorter series names")
 	}

@@ -2,7 +2,6 @@ package main
 
 import (
 	"flag"
-	"fmt"
 	"io"
 
 	"plumb/render"
@@ -48,14 +47,7 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 	fs := newFlagSet(chart, stderr)
 	var f rowFlags
 	f.register(fs, dots)
-	pos, err := parse(fs, args)
-	if err != nil {
-		return exitCode(err, stderr)
-	}
-	if len(pos) != 1 {
-		return exitCode(usagef("give one data file (.csv, .tsv, .json), or - for standard input"), stderr)
-	}
-	c, err := f.common()
+	path, c, err := parseChart(fs, &f.shared, args)
 	if err != nil {
 		return exitCode(err, stderr)
 	}
@@ -64,7 +56,7 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 	default:
 		return exitCode(usagef("--order %q: use value, label or data", f.order), stderr)
 	}
-	d, err := loadLabelled(pos[0], f.format, f.label, f.value, f.agg, stdin)
+	d, err := loadLabelled(path, f.format, f.label, f.value, f.agg, stdin)
 	if err != nil {
 		return exitCode(err, stderr)
 	}
@@ -74,28 +66,17 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 		name = d.valueCol
 	}
 	averages := f.agg != "sum" && f.agg != "count"
-	write := func(w io.Writer) error {
-		var n []string
-		var err error
+	return emit(chart, &f.shared, stdout, stderr, notes, func(w io.Writer) ([]string, error) {
 		if dots {
-			n, err = render.Dots(w, d.labels, d.values, render.DotsOptions{
+			return render.Dots(w, d.labels, d.values, render.DotsOptions{
 				Common: c, Order: render.Order(f.order), Top: f.top, Highlight: f.highlight,
 				From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name, LabelName: d.labelCol, Averages: averages,
 			})
-		} else {
-			n, err = render.Bars(w, d.labels, d.values, render.BarsOptions{
-				Common: c, Order: render.Order(f.order), Top: f.top, Vertical: f.vertical, Percent: f.percent,
-				Highlight: f.highlight, From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name,
-				LabelName: d.labelCol, Averages: averages,
-			})
 		}
-		notes = append(notes, n...)
-		return err
-	}
-	err = writeOutput(f.out, stdout, write)
-	printNotes(stderr, notes, f.quiet)
-	if err != nil {
-		return exitCode(fmt.Errorf("%s: %w", chart, err), stderr)
-	}
-	return exitOK
+		return render.Bars(w, d.labels, d.values, render.BarsOptions{
+			Common: c, Order: render.Order(f.order), Top: f.top, Vertical: f.vertical, Percent: f.percent,
+			Highlight: f.highlight, From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name,
+			LabelName: d.labelCol, Averages: averages,
+		})
+	})
 }

@@ -27,32 +27,18 @@ func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs.StringVar(&f.xFormat, "x-format", "auto", "read x as auto, number or time")
 	fs.StringVar(&f.unit, "unit", "", "unit of the values, such as t or %")
 	fs.StringVar(&f.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
-	pos, err := parse(fs, args)
+	path, c, err := parseChart(fs, &f.shared, args)
 	if err != nil {
 		return exitCode(err, stderr)
 	}
-	if len(pos) != 1 {
-		return exitCode(usagef("give one data file (.csv, .tsv, .json), or - for standard input"), stderr)
-	}
-	c, err := f.common()
-	if err != nil {
-		return exitCode(err, stderr)
-	}
-	x, a, b, opt, notes, err := loadDiff(pos[0], &f, stdin)
+	x, a, b, opt, notes, err := loadDiff(path, &f, stdin)
 	if err != nil {
 		return exitCode(err, stderr)
 	}
 	opt.Common = c
-	err = writeOutput(f.out, stdout, func(w io.Writer) error {
-		n, err := render.Diff(w, x, a, b, opt)
-		notes = append(notes, n...)
-		return err
+	return emit("diff", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]string, error) {
+		return render.Diff(w, x, a, b, opt)
 	})
-	printNotes(stderr, notes, f.quiet)
-	if err != nil {
-		return exitCode(fmt.Errorf("diff: %w", err), stderr)
-	}
-	return exitOK
 }
 
 // loadDiff reads the x, a and b columns, in x order.

@@ -158,3 +158,32 @@ func printNotes(stderr io.Writer, notes []string, quiet bool) {
 		fmt.Fprintln(stderr, "plumb: note:", n)
 	}
 }
+
+// parseChart reads a chart's command line: flags in any order and exactly
+// one data file. It returns the data path and the shared render options.
+func parseChart(fs *flag.FlagSet, sh *shared, args []string) (string, render.Common, error) {
+	pos, err := parse(fs, args)
+	if err != nil {
+		return "", render.Common{}, err
+	}
+	if len(pos) != 1 {
+		return "", render.Common{}, usagef("give one data file (.csv, .tsv, .json), or - for standard input")
+	}
+	c, err := sh.common()
+	return pos[0], c, err
+}
+
+// emit writes the figure that draw produces to -o (or stdout), prints the
+// notes of loading and drawing, and returns the exit code.
+func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []string, draw func(io.Writer) ([]string, error)) int {
+	err := writeOutput(sh.out, stdout, func(w io.Writer) error {
+		n, err := draw(w)
+		notes = append(notes, n...)
+		return err
+	})
+	printNotes(stderr, notes, sh.quiet)
+	if err != nil {
+		return exitCode(fmt.Errorf("%s: %w", chart, err), stderr)
+	}
+	return exitOK
+}

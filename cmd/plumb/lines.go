@@ -186,32 +186,18 @@ func runLines(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs := newFlagSet("lines", stderr)
 	var f linesFlags
 	f.register(fs)
-	pos, err := parse(fs, args)
+	path, c, err := parseChart(fs, &f.shared, args)
 	if err != nil {
 		return exitCode(err, stderr)
 	}
-	if len(pos) != 1 {
-		return exitCode(usagef("give one data file (.csv, .tsv, .json), or - for standard input"), stderr)
-	}
-	c, err := f.common()
-	if err != nil {
-		return exitCode(err, stderr)
-	}
-	series, opt, notes, err := loadLines(pos[0], &f, stdin)
+	series, opt, notes, err := loadLines(path, &f, stdin)
 	if err != nil {
 		return exitCode(err, stderr)
 	}
 	opt.Common = c
-	err = writeOutput(f.out, stdout, func(w io.Writer) error {
-		n, err := render.Lines(w, series, opt)
-		notes = append(notes, n...)
-		return err
+	return emit("lines", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]string, error) {
+		return render.Lines(w, series, opt)
 	})
-	printNotes(stderr, notes, f.quiet)
-	if err != nil {
-		return exitCode(fmt.Errorf("lines: %w", err), stderr)
-	}
-	return exitOK
 }
 
 // loadLines reads the table and builds the series, wide or long.
