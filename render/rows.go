@@ -9,6 +9,8 @@ import (
 	"strings"
 	"unicode"
 	"unicode/utf8"
+
+	"plumb/internal/suggest"
 )
 
 // Order says how categories are arranged.
@@ -212,39 +214,12 @@ func findLabels(want []string, have []string) error {
 	return nil
 }
 
-// closest suggests the nearest of the candidates by edit distance.
+// closest suggests the nearest of the candidates, as "; did you mean ...?".
 func closest(s string, cands []string) string {
-	best, bestD := "", math.MaxInt
-	for _, c := range cands {
-		if d := editDistance(strings.ToLower(s), strings.ToLower(c)); d < bestD {
-			best, bestD = c, d
-		}
+	if best, ok := suggest.Closest(s, cands); ok {
+		return fmt.Sprintf("; did you mean %q?", best)
 	}
-	if best == "" || bestD > max(3, len([]rune(s))/2) {
-		return ""
-	}
-	return fmt.Sprintf("; did you mean %q?", best)
-}
-
-func editDistance(a, b string) int {
-	ra, rb := []rune(a), []rune(b)
-	prev := make([]int, len(rb)+1)
-	cur := make([]int, len(rb)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(ra); i++ {
-		cur[0] = i
-		for j := 1; j <= len(rb); j++ {
-			c := 1
-			if ra[i-1] == rb[j-1] {
-				c = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+c)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(rb)]
+	return ""
 }
 
 // dataNumber formats a value for a data-* attribute: the shortest text that

@@ -15,6 +15,8 @@ import (
 	"strconv"
 	"strings"
 	"unicode/utf8"
+
+	"plumb/internal/suggest"
 )
 
 // Causes of a DataError, for errors.Is. Each names what is wrong with the
@@ -566,7 +568,7 @@ const maxListed = 12
 
 func columnHint(col string, header []string) string {
 	var b strings.Builder
-	if best, ok := closest(col, header); ok {
+	if best, ok := suggest.Closest(col, header); ok {
 		fmt.Fprintf(&b, "did you mean %q? ", best)
 	}
 	names := 0
@@ -596,50 +598,6 @@ func columnHint(col string, header []string) string {
 		listed++
 	}
 	return b.String()
-}
-
-// closest finds the header name nearest to col by Levenshtein edit distance
-// (case-insensitive; ties go to the earlier column). A name is only
-// suggested when fewer than half its letters would have to change, so that
-// a wild guess is not offered as a fix.
-func closest(col string, header []string) (string, bool) {
-	lc := []rune(strings.ToLower(col))
-	best, bestD := "", math.MaxInt
-	for _, h := range header {
-		if h == "" {
-			continue
-		}
-		if d := editDistance(lc, []rune(strings.ToLower(h))); d < bestD {
-			best, bestD = h, d
-		}
-	}
-	n := max(len(lc), utf8.RuneCountInString(best))
-	if best == "" || bestD*2 >= n {
-		return "", false
-	}
-	return best, true
-}
-
-// editDistance is the Levenshtein distance (insertions, deletions and
-// substitutions each cost one), computed with two rows (Wagner & Fischer 1974).
-func editDistance(a, b []rune) int {
-	prev := make([]int, len(b)+1)
-	cur := make([]int, len(b)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(a); i++ {
-		cur[0] = i
-		for j := 1; j <= len(b); j++ {
-			cost := 1
-			if a[i-1] == b[j-1] {
-				cost = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(b)]
 }
 
 // recordSource yields the records of a delimited text file, one []string

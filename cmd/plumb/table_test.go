@@ -339,47 +339,6 @@ func TestParseNumber(t *testing.T) {
 	}
 }
 
-func TestEditDistance(t *testing.T) {
-	tests := []struct {
-		a, b string
-		want int
-	}{
-		{"kitten", "sitting", 3}, // Levenshtein's textbook pair; from memory
-		{"flaw", "lawn", 2},      // from memory
-		{"", "abc", 3},
-		{"abc", "", 3},
-		{"revenue", "revenue", 0},
-		{"revenu", "revenue", 1},
-		{"café", "cafe", 1}, // runes, not bytes
-	}
-	for _, tc := range tests {
-		if got := editDistance([]rune(tc.a), []rune(tc.b)); got != tc.want {
-			t.Errorf("editDistance(%q, %q) = %d, want %d", tc.a, tc.b, got, tc.want)
-		}
-	}
-}
-
-func TestClosest(t *testing.T) {
-	header := []string{"region", "revenue", "", "crossing_minutes"}
-	tests := []struct {
-		col  string
-		want string // "" for no suggestion
-	}{
-		{"revenu", "revenue"},
-		{"Revenue", "revenue"},
-		{"regoin", "region"},
-		{"crossing minutes", "crossing_minutes"},
-		{"x", ""},
-		{"passengers", ""},
-	}
-	for _, tc := range tests {
-		got, ok := closest(tc.col, header)
-		if got != tc.want || ok != (tc.want != "") {
-			t.Errorf("closest(%q) = %q, %v; want %q", tc.col, got, ok, tc.want)
-		}
-	}
-}
-
 // TestReadTableColumnForms covers a column that stays a dictionary and one
 // that turns into plain text past the first checkpoint, and that both read
 // back exactly.
