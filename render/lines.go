@@ -442,7 +442,12 @@ func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool 
 		maxLines = max(maxLines, len(l.lines))
 		want[i] = l.ey
 	}
+	// Labels of several lines need a little air between them, or two
+	// wrapped names read as one.
 	gap := lh * float64(maxLines)
+	if maxLines > 1 {
+		gap += sp.gap
+	}
 	got, ok := layout.Spread(want, gap, top, bottom)
 	if !ok {
 		return false
