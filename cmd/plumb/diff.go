@@ -3,7 +3,6 @@ package main
 import (
 	"fmt"
 	"io"
-	"strings"
 
 	"plumb/render"
 )
@@ -69,12 +68,16 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 	acol, bcol := f.a, f.b
 	if acol == "" || bcol == "" {
 		var nums []string
+		var first error
 		for _, h := range t.Header {
 			if h == xcol || h == acol || h == bcol {
 				continue
 			}
-			if _, _, err := t.Numbers(h); err == nil {
+			_, _, err := t.Numbers(h)
+			if err == nil {
 				nums = append(nums, h)
+			} else if first == nil {
+				first = err
 			}
 		}
 		if acol == "" && len(nums) > 0 {
@@ -84,8 +87,10 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 			bcol = nums[0]
 		}
 		if acol == "" || bcol == "" {
-			return nil, nil, nil, opt, nil, &DataError{File: t.File, Line: 1, Err: ErrMissingColumn,
-				Hint: fmt.Sprintf("a difference needs two numeric columns; name them with --a and --b (columns: %s)", strings.Join(t.Header, ", "))}
+			if first != nil {
+				return nil, nil, nil, opt, nil, first // a bad cell in a column that was likely meant
+			}
+			return nil, nil, nil, opt, nil, tooFewColumns(t, "a difference needs two numeric columns; name them with --a and --b")
 		}
 		notes = append(notes, fmt.Sprintf("drawing %q minus %q over %q (choose with --x, --a and --b)", acol, bcol, xcol))
 	}

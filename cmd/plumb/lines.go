@@ -220,7 +220,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 		return nil, opt, nil, err
 	}
 	if len(t.Header) < 2 {
-		return nil, opt, nil, &DataError{File: t.File, Line: 1, Err: ErrMissingColumn, Hint: "a line chart needs an x column and a value column"}
+		return nil, opt, nil, tooFewColumns(t, "a line chart needs an x column and a value column")
 	}
 	xcol := f.x
 	if xcol == "" {
@@ -234,20 +234,27 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 	}
 	ycols := []string(f.y)
 	if len(ycols) == 0 {
+		var first error
 		for _, h := range t.Header {
 			if h == xcol || h == f.series || slices.Index(t.Header, h) < slices.Index(t.Header, xcol) {
 				continue
 			}
-			if _, _, err := t.Numbers(h); err == nil {
+			_, _, err := t.Numbers(h)
+			if err == nil {
 				ycols = append(ycols, h)
 				if f.series != "" {
 					break
 				}
+			} else if first == nil {
+				first = err
 			}
 		}
+		if len(ycols) == 0 && first != nil {
+			// The first candidate's bad cell is the likeliest mistake.
+			return nil, opt, nil, first
+		}
 		if len(ycols) == 0 {
-			return nil, opt, nil, &DataError{File: t.File, Line: 1, Err: ErrMissingColumn,
-				Hint: fmt.Sprintf("no column after %q holds numbers; name the value columns with --y (columns: %s)", xcol, strings.Join(t.Header, ", "))}
+			return nil, opt, nil, tooFewColumns(t, fmt.Sprintf("no column after %q to draw; name the value columns with --y", xcol))
 		}
 		notes = append(notes, fmt.Sprintf("using column %q for x and %s for values (choose with --x and --y)", xcol, quoteList(ycols)))
 	}

@@ -148,8 +148,7 @@ func pluralS(n int, word string) string {
 // it whose cells read as numbers as values, filling whichever is not given.
 func guessColumns(t *Table, labelCol, valueCol string) (string, string, error) {
 	if len(t.Header) < 2 {
-		return "", "", fmt.Errorf("%s: line 1: the data has %d %s (%s); a chart needs a label column and a value column",
-			displayName(t.File), len(t.Header), pluralS(len(t.Header), "column"), strings.Join(t.Header, ", "))
+		return "", "", tooFewColumns(t, "a chart needs a label column and a value column")
 	}
 	if labelCol == "" {
 		labelCol = t.Header[0]
@@ -180,4 +179,11 @@ func guessColumns(t *Table, labelCol, valueCol string) (string, string, error) {
 		}
 	}
 	return labelCol, valueCol, nil
+}
+
+// tooFewColumns says that the data lacks the columns a chart needs, listing
+// the ones it has.
+func tooFewColumns(t *Table, need string) error {
+	return fmt.Errorf("%s: line 1: the data has %d %s (%s); %s",
+		displayName(t.File), len(t.Header), pluralS(len(t.Header), "column"), strings.Join(t.Header, ", "), need)
 }
