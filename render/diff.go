@@ -64,6 +64,9 @@ func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
 	if err != nil {
 		return nil, err
 	}
+	if len(series) < 2 { // one of them has no values at all
+		return nil, fmt.Errorf("no x has both %s and %s: nothing to subtract", opt.AName, opt.BName)
+	}
 	x, a, b = series[0].X, series[0].Y, series[1].Y
 	d := make([]float64, len(x))
 	for i := range x {

@@ -163,7 +163,7 @@ func cleanSeries(in []Series) ([]Series, []string, error) {
 		return nil, nil, fmt.Errorf("no series to draw")
 	}
 	var notes []string
-	out := make([]Series, len(in))
+	out := make([]Series, 0, len(in))
 	for i, s := range in {
 		if s.Name == "" {
 			s.Name = fmt.Sprintf("series %d", i+1)
@@ -200,7 +200,14 @@ func cleanSeries(in []Series) ([]Series, []string, error) {
 				return nil, nil, fmt.Errorf("series %q has two points at x = %g: a line needs one value per x; combine them first", s.Name, s.X[j])
 			}
 		}
-		out[i] = s
+		if !slices.ContainsFunc(s.Y, func(v float64) bool { return !math.IsNaN(v) }) {
+			notes = append(notes, fmt.Sprintf("left out series %q: every value is missing", s.Name))
+			continue
+		}
+		out = append(out, s)
+	}
+	if len(out) == 0 {
+		return nil, nil, fmt.Errorf("no values to draw: every value is missing")
 	}
 	return out, notes, nil
 }
