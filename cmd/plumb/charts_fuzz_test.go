@@ -21,14 +21,30 @@ func FuzzCharts(f *testing.F) {
 		"a,b\n,\n",
 	} {
 		for chart := range uint8(4) {
-			f.Add(seed, chart)
+			f.Add(seed, chart, uint8(0))
+			f.Add(seed, chart, uint8(1+chart))
 		}
 	}
+	// Inputs that once panicked: a series with no values at all.
+	f.Add("0,1,2\n0,0,", uint8(2), uint8(0))
+	f.Add("0,2,1\n0,,0", uint8(3), uint8(0))
 	charts := []string{"bars", "dots", "lines", "diff"}
-	f.Fuzz(func(t *testing.T, data string, chart uint8) {
-		name := charts[int(chart)%len(charts)]
+	// Flags that change the layout the most, per chart; variant 0 is none.
+	variants := [][][]string{
+		{{"--percent"}, {"--vertical"}, {"--for", "print", "--top", "3"}, {"--order", "label", "--for", "slide"}},
+		{{"--for", "print"}, {"--top", "2"}, {"--order", "data"}},
+		{{"--index"}, {"--together", "--for", "print"}, {"--aspect", "orientation"}, {"--aspect", "3:1", "--for", "slide"}},
+		{{"--context"}, {"--for", "print", "--context"}},
+	}
+	f.Fuzz(func(t *testing.T, data string, chart, variant uint8) {
+		c := int(chart) % len(charts)
+		name := charts[c]
+		args := []string{name, "-", "--format", "csv", "--quiet"}
+		if v := int(variant) % (len(variants[c]) + 1); v > 0 {
+			args = append(args, variants[c][v-1]...)
+		}
 		var out, errs bytes.Buffer
-		code := run([]string{name, "-", "--format", "csv", "--quiet"}, strings.NewReader(data), &out, &errs)
+		code := run(args, strings.NewReader(data), &out, &errs)
 		switch code {
 		case exitOK:
 			dec := xml.NewDecoder(&out)
@@ -38,15 +54,15 @@ func FuzzCharts(f *testing.F) {
 					break
 				}
 				if err != nil {
-					t.Fatalf("%s on %q: output is not XML: %v", name, data, err)
+					t.Fatalf("%v on %q: output is not XML: %v", args, data, err)
 				}
 			}
 		case exitData:
 			if errs.Len() == 0 {
-				t.Fatalf("%s on %q: exit 1 without a message", name, data)
+				t.Fatalf("%v on %q: exit 1 without a message", args, data)
 			}
 		default:
-			t.Fatalf("%s on %q: exit %d: %s", name, data, code, errs.String())
+			t.Fatalf("%v on %q: exit %d: %s", args, data, code, errs.String())
 		}
 	})
 }
