@@ -44,7 +44,7 @@ func (r *rowFlags) register(fs *flag.FlagSet, dots bool) {
 // runRows is plumb bars and plumb dots.
 func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	dots := chart == "dots"
-	fs := newFlagSet(chart, stderr)
+	fs := newFlagSet(chart, dataSynopsis, stderr)
 	var f rowFlags
 	f.register(fs, dots)
 	path, c, err := parseChart(fs, &f.shared, args)

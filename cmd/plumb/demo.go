@@ -54,7 +54,7 @@ var gallery = []figure{
 
 // runDemo renders the gallery from the data built into the binary.
 func runDemo(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("demo", stderr)
+	fs := newFlagSet("demo", "[-o DIR]", stderr)
 	out := fs.String("o", "plumb-demo", "write the gallery into `DIR`")
 	pos, err := parse(fs, args)
 	if err != nil {

@@ -16,7 +16,7 @@ type diffFlags struct {
 
 // runDiff is plumb diff.
 func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
-	fs := newFlagSet("diff", stderr)
+	fs := newFlagSet("diff", dataSynopsis, stderr)
 	var f diffFlags
 	f.shared.register(fs)
 	fs.StringVar(&f.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")

@@ -93,10 +93,18 @@ func parse(fs *flag.FlagSet, args []string) ([]string, error) {
 	}
 }
 
-// newFlagSet makes a flag set that reports to stderr and never exits.
-func newFlagSet(name string, stderr io.Writer) *flag.FlagSet {
+// dataSynopsis is the usage line of a chart that reads a data file.
+const dataSynopsis = "DATA [flags]\n\nDATA is a .csv, .tsv or .json file, or - for standard input."
+
+// newFlagSet makes a flag set that reports to stderr and never exits; -h
+// prints "usage: plumb NAME SYNOPSIS" and the flags.
+func newFlagSet(name, synopsis string, stderr io.Writer) *flag.FlagSet {
 	fs := flag.NewFlagSet("plumb "+name, flag.ContinueOnError)
 	fs.SetOutput(stderr)
+	fs.Usage = func() {
+		fmt.Fprintf(stderr, "usage: plumb %s %s\n\nflags:\n", name, synopsis)
+		fs.PrintDefaults()
+	}
 	return fs
 }
 

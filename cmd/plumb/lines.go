@@ -183,7 +183,7 @@ func (l *linesFlags) register(fs *flag.FlagSet) {
 
 // runLines is plumb lines.
 func runLines(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
-	fs := newFlagSet("lines", stderr)
+	fs := newFlagSet("lines", dataSynopsis, stderr)
 	var f linesFlags
 	f.register(fs)
 	path, c, err := parseChart(fs, &f.shared, args)

@@ -40,7 +40,7 @@ func runPalette(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 }
 
 func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("palette "+kind, stderr)
+	fs := newFlagSet("palette "+kind, "[--n N] [--hue NAME] [--json] [-o FILE]", stderr)
 	n := fs.Int("n", 0, "number of colours (categorical 1-8, default 8; sequential and diverging 3-11, default 7 and 9)")
 	hue := fs.String("hue", "", "sequential: "+strings.Join(palette.SequentialHues(), ", ")+
 		"; diverging: "+strings.Join(palette.DivergingHues(), ", "))
@@ -129,7 +129,7 @@ type contrastJSON struct {
 }
 
 func runPaletteCheck(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("palette check", stderr)
+	fs := newFlagSet("palette check", "[--background HEX] [--json] [-o FILE] COLOUR...", stderr)
 	bgFlag := fs.String("background", "#ffffff", "background colour the marks sit on")
 	asJSON := fs.Bool("json", false, "print the measurements as JSON")
 	out := fs.String("o", "", "file for the JSON (with --json) or the SVG swatch sheet")
