@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"strings"
 
 	"plumb/palette"
@@ -333,19 +334,15 @@ func (c *rowChart) insideColour(fill string) string {
 func (c *rowChart) layoutRows() (float64, error) {
 	f, sp := c.f, c.f.spec
 	lh := lineHeight(sp.text)
-	asc, desc := f.fonts.Face(false).Ascent(sp.text), f.fonts.Face(false).Descent(sp.text)
-	inner := f.width - 2*sp.pad
-	n := len(c.rows)
-
-	// Rows: two lines of label where height allows, else one.
-	maxLines := 2
+	top := f.plotTop()
 	axisH := sp.gap + lh
-	if c.valueName != "" || c.unit != "" {
+	if c.axisTitle() != "" {
 		axisH += lh
 	}
-	top := f.plotTop()
-	band := 0.0
+	// Rows: two lines of label where height allows, else one.
+	maxLines, band := 2, 0.0
 	if fb := f.fixedPlotBottom(); fb > 0 {
+		n := len(c.rows)
 		band = (fb - axisH - top) / float64(n)
 		if band < 2*lh+sp.gap {
 			maxLines = 1
@@ -354,42 +351,80 @@ func (c *rowChart) layoutRows() (float64, error) {
 			return 0, fmt.Errorf("%d rows do not fit in a %g px high figure with %g px text: show fewer with --top, or give a taller --size", n, f.spec.height, sp.text)
 		}
 	}
-	labelMax := inner * 0.38
-	wrapped := make([][]string, n)
-	labelCol, linesUsed := 0.0, 1
-	for i, r := range c.rows {
-		lines, cut := f.wrap(r.label, sp.text, r.highlight, labelMax, maxLines)
-		wrapped[i] = lines
-		if cut {
-			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
-		}
-		linesUsed = max(linesUsed, len(lines))
-		for _, l := range lines {
-			labelCol = math.Max(labelCol, f.measure(l, sp.text, r.highlight))
-		}
-	}
+	wrapped, labelCol, linesUsed := c.wrapLabels((f.width-2*sp.pad)*0.38, maxLines)
 	if band == 0 && c.dots {
 		// A dot needs no thickness: rows only as tall as their labels.
 		band = math.Max(float64(linesUsed)*lh+sp.gap, sp.text*1.8)
 	} else if band == 0 {
 		band = math.Max(float64(linesUsed)*lh+sp.gap*1.5, sp.text*2.1)
 	}
-	markH := math.Min(math.Max(band*0.7, sp.text*0.9), band-sp.gap/2)
-	markH = math.Min(markH, math.Max(sp.text*2.4, band*0.5))
-	radius := sp.text * 0.36
-
-	plotL := sp.pad + labelCol + sp.gap*1.5
-	right := f.width - sp.pad
-	vtext := make([]string, n)
-	vw := make([]float64, n)
+	g := rowGeom{top: top, band: band, radius: sp.text * 0.36, plotL: sp.pad + labelCol + sp.gap*1.5}
+	g.markH = math.Min(math.Max(band*0.7, sp.text*0.9), band-sp.gap/2)
+	g.markH = math.Min(g.markH, math.Max(sp.text*2.4, band*0.5))
+	vtext, vw := c.valueTexts()
+	inside := c.fitValueAxis(&g, vw)
+	g.xs = scale.Linear{D0: c.d0, D1: c.d1, R0: g.x0, R1: g.x1}
+	g.zero = round2(g.xs.Map(0))
+	bottom := top + float64(len(c.rows))*band
+	axisBottom := c.drawAxisBelow(&g, bottom)
 	for i, r := range c.rows {
-		vtext[i] = c.vfmt.Format(r.value)
-		vw[i] = f.measure(vtext[i], sp.text, false)
+		c.drawRow(&g, i, r, wrapped[i], vtext[i], inside[i])
 	}
-	// Reserve room beyond the domain ends for the value labels outside the
-	// marks, first assuming every label is outside; then let the labels that
-	// fit inside their bars give the room back (their bars only grow).
-	inside := make([]bool, n)
+	return axisBottom, nil
+}
+
+// rowGeom is the geometry shared by the rows of a horizontal chart.
+type rowGeom struct {
+	top, band     float64 // first row's top and each row's height
+	markH, radius float64 // bar thickness, dot radius
+	plotL         float64 // left edge of the plot; labels end just before it
+	x0, x1        float64 // pixel ends of the value domain
+	xs            scale.Linear
+	zero          float64 // pixel x of value 0
+}
+
+// wrapLabels wraps every category label to at most maxLines lines of
+// width, noting each shortened one, and returns the lines with the widest
+// line's width and the most lines any label needs.
+func (c *rowChart) wrapLabels(width float64, maxLines int) ([][]string, float64, int) {
+	f, size := c.f, c.f.spec.text
+	wrapped := make([][]string, len(c.rows))
+	widest, most := 0.0, 1
+	for i, r := range c.rows {
+		lines, cut := f.wrap(r.label, size, r.highlight, width, maxLines)
+		wrapped[i] = lines
+		if cut {
+			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
+		}
+		most = max(most, len(lines))
+		for _, l := range lines {
+			widest = math.Max(widest, f.measure(l, size, r.highlight))
+		}
+	}
+	return wrapped, widest, most
+}
+
+// valueTexts formats every row's value label and measures it.
+func (c *rowChart) valueTexts() ([]string, []float64) {
+	text := make([]string, len(c.rows))
+	width := make([]float64, len(c.rows))
+	for i, r := range c.rows {
+		text[i] = c.vfmt.Format(r.value)
+		width[i] = c.f.measure(text[i], c.f.spec.text, false)
+	}
+	return text, width
+}
+
+// fitValueAxis sets the pixel ends of the value domain (g.x0, g.x1) and the
+// ticks, leaving room beyond the domain ends for the value labels outside
+// the marks and for the outer tick labels. It first assumes every value
+// label is outside; the labels that then fit inside their bars give their
+// room back (which only lengthens the bars). It reports which labels sit
+// inside.
+func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
+	f, sp := c.f, c.f.spec
+	right := f.width - sp.pad
+	inside := make([]bool, len(c.rows))
 	reserve := func() (l, r float64) {
 		for i, row := range c.rows {
 			if inside[i] {
@@ -397,7 +432,7 @@ func (c *rowChart) layoutRows() (float64, error) {
 			}
 			need := vw[i] + sp.gap
 			if c.dots {
-				need += radius
+				need += g.radius
 			}
 			if row.value < 0 && !c.dots {
 				l = math.Max(l, need)
@@ -407,17 +442,16 @@ func (c *rowChart) layoutRows() (float64, error) {
 		}
 		return l, r
 	}
-	var x0, x1 float64
 	place := func() {
 		rl, rr := reserve()
 		for pass := 0; pass < 3; pass++ {
-			x0, x1 = plotL+rl, right-rr
-			c.fitTicks(x1-x0, true)
+			g.x0, g.x1 = g.plotL+rl, right-rr
+			c.fitTicks(g.x1-g.x0, true)
 			// The end tick labels are centred on their ticks: keep them on the canvas.
 			tf := scale.TickFormat(c.ticks.Values, c.unit)
 			if k := len(c.ticks.Values); k > 0 {
 				lastHalf := f.measure(tf.Format(c.ticks.Values[k-1]), sp.text, false) / 2
-				if x1+lastHalf > right {
+				if g.x1+lastHalf > right {
 					rr = math.Max(rr, lastHalf)
 					continue
 				}
@@ -426,90 +460,113 @@ func (c *rowChart) layoutRows() (float64, error) {
 		}
 	}
 	place()
-	if !c.dots {
-		k := (x1 - x0) / (c.d1 - c.d0)
-		changed := false
-		for i, r := range c.rows {
-			if math.Abs(r.value)*k >= vw[i]+2*sp.gap && c.insideColour(c.fill(r)) != "" {
-				inside[i], changed = true, true
-			}
-		}
-		if changed {
-			place()
+	if c.dots {
+		return inside
+	}
+	k := (g.x1 - g.x0) / (c.d1 - c.d0)
+	changed := false
+	for i, r := range c.rows {
+		if math.Abs(r.value)*k >= vw[i]+2*sp.gap && c.insideColour(c.fill(r)) != "" {
+			inside[i], changed = true, true
 		}
 	}
-	xs := scale.Linear{D0: c.d0, D1: c.d1, R0: x0, R1: x1}
-	bottom := top + float64(n)*band
+	if changed {
+		place()
+	}
+	return inside
+}
 
-	// Grid and ticks first, so marks draw over them.
+// drawAxisBelow draws the grid, the tick labels under the rows, the axis
+// title and the zero baseline, and returns the y under the axis. The grid
+// comes first so that marks draw over it.
+func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
+	f, sp := c.f, c.f.spec
+	lh := lineHeight(sp.text)
+	asc := f.fonts.Face(false).Ascent(sp.text)
 	tf := scale.TickFormat(c.ticks.Values, c.unit)
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
 	for _, t := range c.ticks.Values {
-		x := round2(xs.Map(t))
+		x := round2(g.xs.Map(t))
 		if !(t == 0 && !c.dots) {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1})
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1})
 		}
 		f.text(x, bottom+sp.gap+asc, tf.Format(t), sp.text, false, f.th.muted, "plumb-tick", Middle)
 	}
 	axisBottom := bottom + sp.gap + lh
 	if title := c.axisTitle(); title != "" {
-		f.text((x0+x1)/2, axisBottom+asc, title, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
+		f.text((g.x0+g.x1)/2, axisBottom+asc, title, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
 		axisBottom += lh
 	}
 	f.scene.Add(Mark{Kind: GroupEnd})
-	zero := round2(xs.Map(0))
 	if !c.dots {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{zero, top}, {zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
 	}
+	return axisBottom
+}
 
-	for i, r := range c.rows {
-		cy := top + (float64(i)+0.5)*band
-		textY := cy + (asc-desc)/2
-		// Category label, right-aligned against the plot.
-		lines := wrapped[i]
-		fill := f.th.text
-		if r.other > 0 {
-			fill = f.th.muted
-		}
-		tip := ""
-		if strings.Join(lines, " ") != r.label {
-			tip = r.label
-		}
-		for j, l := range lines {
-			y := textY + (float64(j)-float64(len(lines)-1)/2)*lh
-			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: plotL - sp.gap*1.5, Y: y, Text: l, Size: sp.text, Bold: r.highlight, Fill: fill, Anchor: End, Tooltip: tip})
-		}
-		attrs := []Attr{{"label", r.label}, {"value", dataNumber(r.value)}}
-		if c.percent {
-			attrs = append(attrs, Attr{"amount", dataNumber(r.raw)})
-		}
-		if r.other > 0 {
-			attrs = append(attrs, Attr{"combined", fmt.Sprint(r.other)})
-		}
-		xv := round2(xs.Map(r.value))
-		if c.dots {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Dash: "1 3"})
-			f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark", X: xv, Y: cy, R: radius, Fill: c.fill(r), Attrs: attrs})
-			f.text(xv+radius+sp.gap, textY, vtext[i], sp.text, false, f.th.text, "plumb-value", Start)
-			continue
-		}
-		lo, hi := zero, xv
-		if r.value < 0 {
-			lo, hi = xv, zero
-		}
-		f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: lo, Y: cy - markH/2, W: hi - lo, H: markH, Fill: c.fill(r), Attrs: attrs})
-		switch {
-		case inside[i] && r.value >= 0:
-			f.text(xv-sp.gap, textY, vtext[i], sp.text, false, c.insideColour(c.fill(r)), "plumb-value", End)
-		case inside[i]:
-			f.text(xv+sp.gap, textY, vtext[i], sp.text, false, c.insideColour(c.fill(r)), "plumb-value", Start)
-		case r.value < 0:
-			f.text(xv-sp.gap, textY, vtext[i], sp.text, false, f.th.text, "plumb-value", End)
-		default:
-			f.text(xv+sp.gap, textY, vtext[i], sp.text, false, f.th.text, "plumb-value", Start)
-		}
+// markAttrs are the data attributes of a row's mark.
+func (c *rowChart) markAttrs(r row) []Attr {
+	attrs := []Attr{{"label", r.label}, {"value", dataNumber(r.value)}}
+	if c.percent {
+		attrs = append(attrs, Attr{"amount", dataNumber(r.raw)})
 	}
-	return axisBottom, nil
+	if r.other > 0 {
+		attrs = append(attrs, Attr{"combined", fmt.Sprint(r.other)})
+	}
+	return attrs
+}
+
+// labelFill is the colour of a category label: muted for the Other row.
+func (c *rowChart) labelFill(r row) string {
+	if r.other > 0 {
+		return c.f.th.muted
+	}
+	return c.f.th.text
+}
+
+// tooltip is the full label when the drawn lines shortened it.
+func tooltip(label string, lines []string) string {
+	if strings.Join(lines, " ") != label {
+		return label
+	}
+	return ""
+}
+
+// drawRow draws row i: its label right-aligned against the plot, its bar or
+// dot, and its value label.
+func (c *rowChart) drawRow(g *rowGeom, i int, r row, lines []string, vtext string, inside bool) {
+	f, sp := c.f, c.f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	cy := g.top + (float64(i)+0.5)*g.band
+	textY := cy + (face.Ascent(sp.text)-face.Descent(sp.text))/2
+	tip := tooltip(r.label, lines)
+	for j, l := range lines {
+		y := textY + (float64(j)-float64(len(lines)-1)/2)*lh
+		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: g.plotL - sp.gap*1.5, Y: y, Text: l, Size: sp.text, Bold: r.highlight, Fill: c.labelFill(r), Anchor: End, Tooltip: tip})
+	}
+	xv := round2(g.xs.Map(r.value))
+	if c.dots {
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{g.x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Dash: "1 3"})
+		f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark", X: xv, Y: cy, R: g.radius, Fill: c.fill(r), Attrs: c.markAttrs(r)})
+		f.text(xv+g.radius+sp.gap, textY, vtext, sp.text, false, f.th.text, "plumb-value", Start)
+		return
+	}
+	lo, hi := g.zero, xv
+	if r.value < 0 {
+		lo, hi = xv, g.zero
+	}
+	f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: lo, Y: cy - g.markH/2, W: hi - lo, H: g.markH, Fill: c.fill(r), Attrs: c.markAttrs(r)})
+	fill := f.th.text
+	if inside {
+		fill = c.insideColour(c.fill(r))
+	}
+	// Inside a bar the label sits against its end; outside, beyond it.
+	if (r.value < 0) != inside {
+		f.text(xv-sp.gap, textY, vtext, sp.text, false, fill, "plumb-value", End)
+	} else {
+		f.text(xv+sp.gap, textY, vtext, sp.text, false, fill, "plumb-value", Start)
+	}
 }
 
 // axisTitle names the value axis: what is measured and its unit.
@@ -589,27 +646,12 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	zero := round2(ys.Map(0))
 	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
 
-	showValues := true
-	vtext := make([]string, n)
-	for i, r := range c.rows {
-		vtext[i] = c.vfmt.Format(r.value)
-		if f.measure(vtext[i], sp.text, false) > band-2 {
-			showValues = false
-		}
-	}
+	vtext, vw := c.valueTexts()
+	showValues := slices.IndexFunc(vw, func(w float64) bool { return w > band-2 }) < 0
 	if !showValues {
 		f.scene.Note("left out the value labels: they are wider than the columns; the axis carries the values (or drop --vertical)")
 	}
-	lines := 1
-	wrapped := make([][]string, n)
-	for i, r := range c.rows {
-		ls, cut := f.wrap(r.label, sp.text, r.highlight, band-sp.gap, 2)
-		wrapped[i] = ls
-		lines = max(lines, len(ls))
-		if cut {
-			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
-		}
-	}
+	wrapped, _, lines := c.wrapLabels(band-sp.gap, 2)
 	for i, r := range c.rows {
 		cx := plotL + (float64(i)+0.5)*band
 		yv := round2(ys.Map(r.value))
@@ -617,14 +659,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 		if r.value < 0 {
 			lo, hi = zero, yv
 		}
-		attrs := []Attr{{"label", r.label}, {"value", dataNumber(r.value)}}
-		if c.percent {
-			attrs = append(attrs, Attr{"amount", dataNumber(r.raw)})
-		}
-		if r.other > 0 {
-			attrs = append(attrs, Attr{"combined", fmt.Sprint(r.other)})
-		}
-		f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: round2(cx - barW/2), Y: lo, W: round2(barW), H: hi - lo, Fill: c.fill(r), Attrs: attrs})
+		f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: round2(cx - barW/2), Y: lo, W: round2(barW), H: hi - lo, Fill: c.fill(r), Attrs: c.markAttrs(r)})
 		if showValues {
 			if r.value < 0 {
 				f.text(cx, yv+sp.gap/2+asc, vtext[i], sp.text, false, f.th.text, "plumb-value", Middle)
@@ -632,16 +667,9 @@ func (c *rowChart) layoutColumns() (float64, error) {
 				f.text(cx, yv-sp.gap/2-desc, vtext[i], sp.text, false, f.th.text, "plumb-value", Middle)
 			}
 		}
-		tip := ""
-		if strings.Join(wrapped[i], " ") != r.label {
-			tip = r.label
-		}
-		fill := f.th.text
-		if r.other > 0 {
-			fill = f.th.muted
-		}
+		tip := tooltip(r.label, wrapped[i])
 		for j, l := range wrapped[i] {
-			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: cx, Y: bottom + sp.gap + asc + float64(j)*lh, Text: l, Size: sp.text, Bold: r.highlight, Fill: fill, Anchor: Middle, Tooltip: tip})
+			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: cx, Y: bottom + sp.gap + asc + float64(j)*lh, Text: l, Size: sp.text, Bold: r.highlight, Fill: c.labelFill(r), Anchor: Middle, Tooltip: tip})
 		}
 	}
 	return bottom + sp.gap + float64(lines)*lh, nil
