@@ -70,22 +70,34 @@ func (f *frame) fitX(lo, hi float64, isTime bool, length float64) xAxis {
 			return a
 		}
 	}
-	// Even two ticks collide (very long labels on a narrow axis): keep every
-	// other label until they fit; the ticks and grid stay.
-	for len(best.labels) > 2 && !f.xLabelsFit(best, length) {
-		for i := 1; i < len(best.labels); i += 2 {
-			best.labels[i] = ""
-		}
-		var t []float64
-		var l []string
-		for i := range best.labels {
-			if best.labels[i] != "" {
-				t, l = append(t, best.ticks[i]), append(l, best.labels[i])
-			}
-		}
-		best.ticks, best.labels = t, l
+	// Even the fewest ticks collide (very long labels on a narrow axis):
+	// keep every other tick, the first always, until the labels fit.
+	for len(best.ticks) > 1 && !f.xLabelsFit(best, length) {
+		best = thinX(best)
 	}
 	return best
+}
+
+// thinX keeps every other tick of a, starting with the first. Time labels
+// of two or more kept ticks are written again, so that a kept tick whose
+// date was on a dropped one still says which day it is.
+func thinX(a xAxis) xAxis {
+	out := xAxis{time: a.time, d0: a.d0, d1: a.d1}
+	for i := 0; i < len(a.ticks); i += 2 {
+		out.ticks, out.labels = append(out.ticks, a.ticks[i]), append(out.labels, a.labels[i])
+	}
+	// A lone tick keeps its label, which TimeTicks wrote with the full
+	// context at the precision of its step.
+	if a.time && len(out.ticks) > 1 {
+		ts := make([]time.Time, len(out.ticks))
+		for i, t := range out.ticks {
+			ts[i] = unixTime(t)
+		}
+		for i, t := range scale.TimeLabels(ts, time.UTC) {
+			out.labels[i] = t.Label
+		}
+	}
+	return out
 }
 
 // xTicks computes about m ticks and their labels.
@@ -411,22 +423,62 @@ func (f *frame) drawXAxis(a xAxis, left float64, w int, bottom float64, labels b
 	return top + lineHeight(sp.text)
 }
 
-// fitPlotX places a plot horizontally between left and the right edge less
-// labelW (room for end labels): it fits the x ticks, then narrows the plot
-// until the outer tick labels, centred on their ticks, stay on the canvas.
-func (f *frame) fitPlotX(left, labelW, xlo, xhi float64, isTime bool) (float64, float64, xAxis) {
+// fitPanelsX places cols plots of one width side by side, from left0 to
+// the right edge less labelW (room for end labels beside the last plot). It
+// fits the x ticks to the plot width, then narrows the plots until the
+// outer tick labels, centred on their ticks, stay on the canvas and keep one
+// text height clear of the labels of the neighbouring plot, widening the
+// gutter between plots (at least gap0) as they need. It returns the first
+// plot's left edge, the plot width, the gutter and the axis; the width may
+// come out too small to draw, which callers check.
+func (f *frame) fitPanelsX(left0, labelW float64, cols int, gap0, xlo, xhi float64, isTime bool) (left, w, gap float64, ax xAxis) {
 	sp := f.spec
-	w := math.Floor(f.width - sp.pad - labelW - left)
-	ax := f.fitX(xlo, xhi, isTime, w)
-	for pass := 0; pass < 3; pass++ {
-		lo, ro := f.xOverhang(ax, w)
-		left = math.Max(left, math.Ceil(sp.pad+lo))
-		nw := math.Floor(f.width - sp.pad - math.Max(labelW, ro) - left)
-		if nw == w {
-			break
-		}
-		w = nw
+	cols = max(cols, 1)
+	n := float64(cols)
+	right := f.width - sp.pad
+	w = math.Floor((right - labelW - left0 - (n-1)*gap0) / n)
+	for {
 		ax = f.fitX(xlo, xhi, isTime, w)
+		lo, ro := f.xOverhang(ax, w)
+		left, gap = math.Max(left0, math.Ceil(sp.pad+lo)), gap0
+		if cols > 1 {
+			gap = math.Max(gap0, math.Ceil(lo+ro+sp.text))
+		}
+		excess := left + n*w + (n-1)*gap + math.Max(labelW, ro) - right
+		// Each pass narrows the plots, so the loop ends; below a few
+		// characters' width no caller draws.
+		if excess <= 0 || w < sp.text*4 {
+			return left, w, gap, ax
+		}
+		w -= math.Max(1, math.Ceil(excess/n))
 	}
-	return left, w, ax
+}
+
+// axisTitleText is an axis or panel title wrapped to its width.
+type axisTitleText struct {
+	lines []string
+	tip   string // the full text when it was shortened
+}
+
+// axisTitle wraps an axis title to at most two lines of width, shortening
+// the second with an ellipsis; the full text then goes in the tooltip.
+func (f *frame) axisTitle(text string, width float64) axisTitleText {
+	lines, cut := f.wrap(text, f.spec.text, false, width, 2)
+	t := axisTitleText{lines: lines}
+	if cut {
+		t.tip = text
+	}
+	return t
+}
+
+// height is the title's height in lines of height lh.
+func (t axisTitleText) height(lh float64) float64 { return float64(len(t.lines)) * lh }
+
+// drawAxisTitle draws the title's lines from top, starting at x.
+func (f *frame) drawAxisTitle(t axisTitleText, x, top float64) {
+	sp := f.spec
+	asc, lh := f.fonts.Face(false).Ascent(sp.text), lineHeight(sp.text)
+	for i, l := range t.lines {
+		f.scene.Add(Mark{Kind: Text, Class: "plumb-axis-title", X: x, Y: top + asc + float64(i)*lh, Text: l, Size: sp.text, Fill: f.th.muted, Anchor: Start, Tooltip: t.tip})
+	}
 }

@@ -4,8 +4,10 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"strings"
 
+	"plumb/layout"
 	"plumb/palette"
 	"plumb/scale"
 )
@@ -132,7 +134,7 @@ func (c *diffChart) layout() (float64, error) {
 		yw = math.Max(yw, f.yLabelWidth(lvLo, lvHi, "", nil))
 		labels, labelW = f.directLabels([]string{c.opt.AName, c.opt.BName}, []string{lineA, lineB}, (f.width-2*sp.pad)*0.3)
 	}
-	left, w, ax := f.fitPlotX(math.Ceil(sp.pad+yw+sp.gap), labelW, xlo, xhi, c.opt.Time)
+	left, w, _, ax := f.fitPanelsX(math.Ceil(sp.pad+yw+sp.gap), labelW, 1, 0, xlo, xhi, c.opt.Time)
 	if w < sp.text*8 {
 		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size")
 	}
@@ -158,14 +160,19 @@ func (c *diffChart) layout() (float64, error) {
 	}
 	var bk banking
 	h, ay := f.bank(&bk, []scale.Polyline{pd}, ax.d1-ax.d0, w, dlo, dhi, "", &zero)
-	panelTop := lh + sp.gap + half
+	// Panel titles name both series, which may be long: up to two lines
+	// across the figure, then shortened with the full text in a tooltip.
+	inner := f.width - 2*sp.pad
+	ctxTitle := f.axisTitle(c.opt.AName+" and "+c.opt.BName+c.unitSuffix(), inner)
+	diffTitle := f.axisTitle("difference, "+c.opt.AName+" − "+c.opt.BName+c.unitSuffix(), inner)
+	panelTop := diffTitle.height(lh) + sp.gap + half
 	if fb := f.fixedPlotBottom(); fb > 0 {
 		room := fb - y - panelTop - (f.xLabelTop(0) + lh)
 		if c.opt.XName != "" {
 			room -= lh
 		}
 		if c.opt.Context {
-			room -= panelTop + half + sp.gap*2
+			room -= ctxTitle.height(lh) + sp.gap + 2*half + sp.gap*2
 		}
 		if room < sp.text*6 {
 			return 0, fmt.Errorf("the figure is too short for a difference chart: give a taller --size")
@@ -186,8 +193,8 @@ func (c *diffChart) layout() (float64, error) {
 		h, ay := hc, ayc
 		f.scene.Note("levels panel: " + bkc.note(w, h))
 		f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "levels"}}})
-		f.text(-left+sp.pad, asc, c.opt.AName+" and "+c.opt.BName+c.unitSuffix(), sp.text, false, f.th.muted, "plumb-axis-title", Start)
-		top := lh + sp.gap + half
+		f.drawAxisTitle(ctxTitle, -left+sp.pad, 0)
+		top := ctxTitle.height(lh) + sp.gap + half
 		ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: top + h, R1: top}
 		f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
 		f.drawYAxis(ay, ys, 0, w, true)
@@ -210,8 +217,8 @@ func (c *diffChart) layout() (float64, error) {
 	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
 	f.scene.Note(bk.note(w, h))
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "difference"}}})
-	f.text(-left+sp.pad, asc, "difference, "+c.opt.AName+" − "+c.opt.BName+c.unitSuffix(), sp.text, false, f.th.muted, "plumb-axis-title", Start)
-	top := lh + sp.gap + half
+	f.drawAxisTitle(diffTitle, -left+sp.pad, 0)
+	top := panelTop
 	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: top + h, R1: top}
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
 	f.drawYAxis(ay, ys, 0, w, true)
@@ -278,8 +285,9 @@ func (c *diffChart) layout() (float64, error) {
 		dl = append(dl, l)
 	}
 	f.scene.Add(seriesPath("difference", dl, f.th.text, lw*0.75))
-	c.regionLabel(largest[0], c.opt.AName+" above "+c.opt.BName, xs, ys, w, top, top+h, true)
-	c.regionLabel(largest[1], c.opt.BName+" above "+c.opt.AName, xs, ys, w, top, top+h, false)
+	var placed []layout.Box
+	placed = c.regionLabel(placed, largest[0], c.opt.AName, c.opt.BName, xs, ys, w, top, top+h, true)
+	c.regionLabel(placed, largest[1], c.opt.BName, c.opt.AName, xs, ys, w, top, top+h, false)
 	f.scene.Add(Mark{Kind: GroupEnd})
 	return y + bottom, nil
 }
@@ -289,61 +297,138 @@ type areaInfo struct {
 	pts  []xy
 }
 
-// regionLabel names the largest area of one sign, beside its extreme,
-// away from the baseline, inside the plot.
-func (c *diffChart) regionLabel(ar areaInfo, text string, xs, ys scale.Linear, w, top, bottom float64, above bool) {
+// regionLabel names the largest area of one sign, "a above b", inside the
+// plot: where the area is tallest under the whole label, on the light fill
+// just off the baseline; else beside the area's extreme, outside it; else
+// at the plot's top (or bottom) edge. The first place clear of the labels
+// already placed wins; the label is shortened to the plot's width, and
+// left out with a note only when no place is free. It returns placed with
+// the label's box added.
+func (c *diffChart) regionLabel(placed []layout.Box, ar areaInfo, a, b string, xs, ys scale.Linear, w, top, bottom float64, above bool) []layout.Box {
 	if ar.area == 0 {
-		return
+		return placed
 	}
 	f, sp := c.f, c.f.spec
+	full := a + " above " + b
+	text, ok := f.regionText(a, b, w-4)
+	if !ok {
+		f.scene.Note(fmt.Sprintf("left out the label %q: the plot is too narrow for it", full))
+		return placed
+	}
 	face := f.fonts.Face(false)
 	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	zero := ys.Map(0)
+	lh := lineHeight(sp.text)
+	type spot struct {
+		text     string
+		tw       float64
+		cx, base float64
+	}
+	// Inside, the label may need shortening to the area's width; it goes
+	// there first unless that shortens it more than outside would.
+	var inside *spot
+	x0, x1 := xs.Map(ar.pts[0].X), xs.Map(ar.pts[len(ar.pts)-1].X)
+	if in, ok := f.regionText(a, b, math.Min(w, x1-x0)-4); ok {
+		tw := f.measure(in, sp.text, false)
+		bestCX, bestH := 0.0, -1.0
+		for cx := x0 + tw/2 + 2; cx <= x1-tw/2-2; cx += 2 {
+			if hgt := minDepth(ar.pts, xs, ys, cx-tw/2-2, cx+tw/2+2); hgt > bestH {
+				bestCX, bestH = cx, hgt
+			}
+		}
+		if bestH >= lh+sp.gap {
+			base := zero + sp.gap/2 + asc
+			if above {
+				base = zero - sp.gap/2 - desc
+			}
+			inside = &spot{in, tw, bestCX, base}
+		}
+	}
 	tw := f.measure(text, sp.text, false)
-	// Centre on the area's extreme, kept inside the plot.
 	ext := ar.pts[0]
 	for _, p := range ar.pts {
 		if math.Abs(p.Y) > math.Abs(ext.Y) {
 			ext = p
 		}
 	}
-	zero := ys.Map(0)
-	lh := lineHeight(sp.text)
-	// Inside the area where it is tallest under the whole label, on the
-	// light fill, just off the baseline; else beside the extreme, outside.
-	bestCX, bestH := 0.0, -1.0
-	x0, x1 := xs.Map(ar.pts[0].X), xs.Map(ar.pts[len(ar.pts)-1].X)
-	for cx := x0 + tw/2 + 2; cx <= x1-tw/2-2; cx += 2 {
-		if hgt := minDepth(ar.pts, xs, ys, cx-tw/2-2, cx+tw/2+2); hgt > bestH {
-			bestCX, bestH = cx, hgt
+	cx := math.Min(math.Max(xs.Map(ext.X), tw/2+2), w-tw/2-2)
+	peak := zero
+	for _, p := range ar.pts {
+		if px := xs.Map(p.X); px < cx-tw/2-2 || px > cx+tw/2+2 {
+			continue
+		}
+		if y := ys.Map(p.Y); above && y < peak || !above && y > peak {
+			peak = y
 		}
 	}
-	var cx, base float64
-	if bestH >= lh+sp.gap {
-		cx = bestCX
-		if above {
-			base = zero - sp.gap/2 - desc
-		} else {
-			base = zero + sp.gap/2 + asc
-		}
-	} else {
-		cx = math.Min(math.Max(xs.Map(ext.X), tw/2), w-tw/2)
-		peak := zero
-		for _, p := range ar.pts {
-			px := xs.Map(p.X)
-			if px < cx-tw/2-2 || px > cx+tw/2+2 {
-				continue
-			}
-			if y := ys.Map(p.Y); above && y < peak || !above && y > peak {
-				peak = y
-			}
-		}
-		if above {
-			base = math.Max(peak-sp.gap-desc, top+asc)
-		} else {
-			base = math.Min(peak+sp.gap+asc, bottom-desc)
-		}
+	beside, edge := spot{text, tw, cx, peak - sp.gap - desc}, spot{text, tw, cx, top + asc}
+	clear := beside.base >= edge.base
+	if !above {
+		beside.base, edge.base = peak+sp.gap+asc, bottom-desc
+		clear = beside.base <= edge.base
 	}
-	f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(cx), Y: round2(base), Text: text, Size: sp.text, Fill: f.th.text, Anchor: Middle})
+	var spots []spot
+	if inside != nil && inside.text == text {
+		spots = append(spots, *inside)
+	}
+	if clear {
+		spots = append(spots, beside)
+	}
+	if inside != nil && inside.text != text {
+		spots = append(spots, *inside)
+	}
+	spots = append(spots, edge)
+	for _, s := range spots {
+		box := layout.Box{X: s.cx - s.tw/2, Y: s.base - asc, W: s.tw, H: asc + desc}
+		if slices.ContainsFunc(placed, box.Overlaps) {
+			continue
+		}
+		tip := ""
+		if s.text != full {
+			tip = full
+		}
+		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(s.cx), Y: round2(s.base), Text: s.text, Size: sp.text, Fill: f.th.text, Anchor: Middle, Tooltip: tip})
+		return append(placed, box)
+	}
+	f.scene.Note(fmt.Sprintf("left out the label %q: no room for it in the plot clear of the other label", full))
+	return placed
+}
+
+// regionText is "a above b" within width: when it is too wide, the longer
+// name is shortened first, then both, with an ellipsis, so that the reader
+// still sees which series is above which. It reports false when even that
+// does not fit.
+func (f *frame) regionText(a, b string, width float64) (string, bool) {
+	sp := f.spec
+	full := a + " above " + b
+	if f.measure(full, sp.text, false) <= width {
+		return full, true
+	}
+	room := width - f.measure(" above ", sp.text, false)
+	wa, wb := f.measure(a, sp.text, false), f.measure(b, sp.text, false)
+	// Give the shorter name all it needs up to half the room, the longer
+	// one the rest.
+	switch {
+	case wa <= wb:
+		wa = math.Min(wa, room/2)
+		wb = room - wa
+	default:
+		wb = math.Min(wb, room/2)
+		wa = room - wb
+	}
+	if wa <= 0 || wb <= 0 {
+		return "", false
+	}
+	sa, _ := f.wrap(a, sp.text, false, wa, 1)
+	sb, _ := f.wrap(b, sp.text, false, wb, 1)
+	if len(sa) != 1 || len(sb) != 1 || sa[0] == "…" && sb[0] == "…" {
+		return "", false
+	}
+	text := sa[0] + " above " + sb[0]
+	if f.measure(text, sp.text, false) > width {
+		return "", false
+	}
+	return text, true
 }
 
 // crossings returns the drawn difference as runs without gaps, with a

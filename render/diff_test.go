@@ -2,6 +2,7 @@ package render
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -73,4 +74,33 @@ func TestDiffScene(t *testing.T) {
 	assert.Error(t, err)
 	_, err = DiffScene([]float64{1, 2}, []float64{math.NaN(), 1}, []float64{1, math.NaN()}, DiffOptions{})
 	assert.Error(t, err)
+}
+
+func TestDiffLongNamesFit(t *testing.T) {
+	// Long series names: the panel titles wrap, the region labels shorten
+	// with the full text in a tooltip, and nothing leaves the canvas or
+	// covers the tick labels.
+	long := "Saltmarrow Point to Kettlewick Harbour via Little Osk"
+	x := make([]float64, 40)
+	a, b := make([]float64, 40), make([]float64, 40)
+	for i := range x {
+		x[i] = float64(i)
+		a[i] = 50 + 40*math.Sin(float64(i)/6)
+		b[i] = 50
+	}
+	for _, c := range []Common{{Medium: Screen, Width: 336}, {Medium: Print}, {Medium: Slide}} {
+		for _, ctx := range []bool{false, true} {
+			s, err := DiffScene(x, a, b, DiffOptions{Common: c, AName: long + " east", BName: long + " west", Context: ctx})
+			require.NoError(t, err)
+			assertNoOverlap(t, s)
+			labels := 0
+			for _, mk := range s.Marks {
+				if mk.Kind == Text && mk.Class == "plumb-label" && strings.Contains(mk.Tooltip, " above ") {
+					labels++
+					assert.Contains(t, mk.Text, " above ", "the shortened label still says which is above")
+				}
+			}
+			assert.Equal(t, 2, labels, "%v context=%v: both regions named", c.Medium, ctx)
+		}
+	}
 }

@@ -455,7 +455,14 @@ func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool 
 	if maxLines > 1 {
 		gap += sp.gap
 	}
-	got, ok := layout.Spread(want, gap, top, bottom)
+	// A label of several lines is centred on its place, so keep its extra
+	// lines within the plot's height: above it is the axis title, and below
+	// it the last x tick label may reach under the labels.
+	hang := float64(maxLines-1) * lh / 2
+	if top+hang > bottom-hang {
+		return false
+	}
+	got, ok := layout.Spread(want, gap, top+hang, bottom-hang)
 	if !ok {
 		return false
 	}
@@ -530,8 +537,9 @@ func (c *lineChart) layoutSingle() (float64, error) {
 	inner := f.width - 2*sp.pad
 	top := f.plotTop()
 	if c.yTitle != "" {
-		f.text(sp.pad, top+asc, c.yTitle, sp.text, false, f.th.muted, "plumb-axis-title", Start)
-		top += lh + sp.gap
+		t := f.axisTitle(c.yTitle, f.width-2*sp.pad)
+		f.drawAxisTitle(t, sp.pad, top)
+		top += t.height(lh) + sp.gap
 	}
 	plotTop := top + math.Ceil((asc+desc)/2)
 	ylo, yhi, xlo, xhi := c.ylo, c.yhi, c.xlo, c.xhi
@@ -546,7 +554,7 @@ func (c *lineChart) layoutSingle() (float64, error) {
 		labels, labelW = f.directLabels(names, colors, inner*0.3)
 	}
 	left := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
-	left, w, ax := f.fitPlotX(left, labelW, xlo, xhi, c.opt.Time)
+	left, w, _, ax := f.fitPanelsX(left, labelW, 1, 0, xlo, xhi, c.opt.Time)
 	if w < sp.text*8 {
 		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size or shorter series names")
 	}
@@ -614,31 +622,27 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
 	top := f.plotTop()
 	if c.yTitle != "" {
-		f.text(sp.pad, top+asc, c.yTitle, sp.text, false, f.th.muted, "plumb-axis-title", Start)
-		top += lh + sp.gap
+		t := f.axisTitle(c.yTitle, f.width-2*sp.pad)
+		f.drawAxisTitle(t, sp.pad, top)
+		top += t.height(lh) + sp.gap
 	}
 	n := len(c.series)
 	ylo, yhi, xlo, xhi := c.ylo, c.yhi, c.xlo, c.xhi
-	left := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
-	hgap := math.Ceil(sp.text * 2)
-	avail := f.width - sp.pad - left
+	left0 := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
+	// The gutter between panels is two characters, or wider when the
+	// outer x labels of neighbouring panels need it; a panel narrower than
+	// ten characters reads poorly, so fewer columns are tried first.
+	hgap0 := math.Ceil(sp.text * 2)
 	cols := min(n, int(math.Ceil(math.Sqrt(float64(n)))))
-	for cols > 1 && (avail-float64(cols-1)*hgap)/float64(cols) < sp.text*10 {
-		cols--
-	}
-	rows := (n + cols - 1) / cols
-	var w float64
+	var left, w, hgap float64
 	var ax xAxis
-	right := f.width - sp.pad
-	for pass := 0; pass < 3; pass++ {
-		w = math.Floor((right - left - float64(cols-1)*hgap) / float64(cols))
-		ax = f.fitX(xlo, xhi, c.opt.Time, w)
-		_, ro := f.xOverhang(ax, w)
-		if ro <= f.width-sp.pad-(left+float64(cols)*w+float64(cols-1)*hgap)+0.01 {
+	for ; ; cols-- {
+		left, w, hgap, ax = f.fitPanelsX(left0, 0, cols, hgap0, xlo, xhi, c.opt.Time)
+		if cols == 1 || w >= sp.text*10 {
 			break
 		}
-		right = f.width - sp.pad - ro
 	}
+	rows := (n + cols - 1) / cols
 	if w < sp.text*6 {
 		return 0, fmt.Errorf("%d panels do not fit at this width: give a wider --size, or --together for one panel", n)
 	}

@@ -348,3 +348,38 @@ func mustSpec(t *testing.T) mediumSpec {
 	require.NoError(t, err)
 	return sp
 }
+
+func TestLinesTickLabelsClearOfNeighbours(t *testing.T) {
+	// Small multiples whose outer x labels reach past their panels (numbers
+	// whose domain ends on a tick; a seconds axis whose first label carries
+	// the date) and a long y title: every label stays on the canvas and
+	// clear of the neighbouring panel's labels.
+	for _, c := range []struct {
+		name  string
+		time  bool
+		start float64
+		step  float64
+	}{
+		{"numbers", false, 252e6, 7919},
+		{"seconds", true, 1261440000, 1},
+		{"hours", true, 1261440000, 3600},
+	} {
+		for _, m := range []Medium{Screen, Print, Slide} {
+			var series []Series
+			for k := range 6 {
+				s := Series{Name: fmt.Sprintf("route %d", k)}
+				for i := range 95 {
+					s.X = append(s.X, c.start+float64(i)*c.step)
+					s.Y = append(s.Y, float64(k*10+i%7))
+				}
+				series = append(series, s)
+			}
+			opt := LinesOptions{Common: Common{Medium: m, Title: "Title"}, Time: c.time,
+				YName: strings.Repeat("a long measure name ", 8), Unit: "passengers"}
+			s, err := LinesScene(series, opt)
+			require.NoError(t, err, "%s %v", c.name, m)
+			assertNoOverlap(t, s)
+			assert.Greater(t, classCount(s, "plumb-panel"), 1)
+		}
+	}
+}

@@ -383,6 +383,48 @@ func timeWriteClock(b *strings.Builder, t time.Time, unit, decimals int) {
 	}
 }
 
+// TimeLabels labels instants the way TimeTicks labels its ticks, for ticks
+// chosen elsewhere, such as every other tick of TimeTicks when their labels
+// crowd an axis: each label gives only what changed since the previous
+// instant, at the precision of the finest calendar unit that some instant
+// does not fall on a boundary of ("08:30:15" only when some tick has
+// seconds). ts must be in increasing order; they are shown in loc (nil
+// means UTC).
+func TimeLabels(ts []time.Time, loc *time.Location) []TimeTick {
+	if loc == nil {
+		loc = time.UTC
+	}
+	c := timeCandidate{unit: unitYear, ticks: make([]time.Time, len(ts))}
+	for i, t := range ts {
+		t = t.In(loc)
+		c.ticks[i] = t
+		_, mo, d := t.Date()
+		h, mi, s := t.Clock()
+		unit := unitYear
+		switch {
+		case t.Nanosecond() != 0:
+			unit = unitSubsecond
+			digits := 9
+			for ns := t.Nanosecond(); ns%10 == 0; ns /= 10 {
+				digits--
+			}
+			c.decimals = max(c.decimals, digits)
+		case s != 0:
+			unit = unitSecond
+		case mi != 0:
+			unit = unitMinute
+		case h != 0:
+			unit = unitHour
+		case d != 1:
+			unit = unitDay
+		case mo != time.January:
+			unit = unitMonth
+		}
+		c.unit = max(c.unit, unit)
+	}
+	return c.label()
+}
+
 // timeFullLabel labels a lone tick with as much as it needs.
 func timeFullLabel(t time.Time) string {
 	var b strings.Builder

@@ -381,6 +381,21 @@ func FuzzTimeTicks(f *testing.F) {
 			lo, hi = hi, lo
 		}
 		checkTimeTicks(t, "fuzz", ticks, lo, hi, min(max(m%50, 2), 1000), time.UTC)
+		// Every other tick, labelled again, still labels every tick and
+		// names the date on the first.
+		var kept []time.Time
+		for i := 0; i < len(ticks); i += 2 {
+			kept = append(kept, ticks[i].T)
+		}
+		relabelled := TimeLabels(kept, nil)
+		if len(relabelled) != len(kept) {
+			t.Fatalf("TimeLabels gave %d labels for %d instants", len(relabelled), len(kept))
+		}
+		for i, k := range relabelled {
+			if k.Label == "" || !k.T.Equal(kept[i]) {
+				t.Fatalf("TimeLabels(%v)[%d] = %+v", kept, i, k)
+			}
+		}
 	})
 }
 
@@ -390,5 +405,51 @@ func BenchmarkTimeTicks(b *testing.B) {
 	b.ReportAllocs()
 	for b.Loop() {
 		TimeTicks(lo, hi, 7, nil)
+	}
+}
+
+func TestTimeLabels(t *testing.T) {
+	at := func(h, mi, s, ns int) time.Time { return time.Date(2024, 3, 17, h, mi, s, ns, time.UTC) }
+	cases := []struct {
+		name string
+		ts   []time.Time
+		want []string
+	}{
+		// Every other tick of a seconds axis that fell on whole minutes reads
+		// as minutes; the date only on the first tick.
+		{"minutes from seconds", []time.Time{at(8, 0, 0, 0), at(8, 1, 0, 0), at(8, 2, 0, 0)}, []string{"Mar 17, 2024 08:00", "08:01", "08:02"}},
+		{"seconds", []time.Time{at(8, 0, 0, 0), at(8, 0, 30, 0)}, []string{"Mar 17, 2024 08:00:00", "08:00:30"}},
+		{"fractions", []time.Time{at(8, 0, 0, 0), at(8, 0, 0, 250e6)}, []string{"Mar 17, 2024 08:00:00.00", "08:00:00.25"}},
+		// A kept tick on a new day must say so, even when the tick that
+		// carried the date was dropped.
+		{"new day", []time.Time{at(12, 0, 0, 0), at(18, 0, 0, 0), at(30, 0, 0, 0)}, []string{"Mar 17, 2024 12:00", "18:00", "Mar 18 06:00"}},
+		{"midnight", []time.Time{at(0, 0, 0, 0), at(24, 0, 0, 0), at(48, 0, 0, 0)}, []string{"Mar 17, 2024", "Mar 18", "Mar 19"}},
+		{"years", []time.Time{time.Date(2020, 1, 1, 0, 0, 0, 0, time.UTC), time.Date(2030, 1, 1, 0, 0, 0, 0, time.UTC)}, []string{"2020", "2030"}},
+		{"empty", nil, nil},
+	}
+	for _, c := range cases {
+		var got []string
+		for _, k := range TimeLabels(c.ts, nil) {
+			got = append(got, k.Label)
+		}
+		if !slices.Equal(got, c.want) {
+			t.Errorf("%s: labels %q, want %q", c.name, got, c.want)
+		}
+	}
+}
+
+func TestTimeTicksSecondLabels(t *testing.T) {
+	// A few minutes at one-second resolution: the date and clock on the
+	// first tick, only the clock after it.
+	lo := time.Date(2009, 12, 22, 0, 0, 0, 0, time.UTC)
+	ticks := TimeTicks(lo, lo.Add(200*time.Second), 5, nil)
+	checkTimeTicks(t, "seconds", ticks, lo, lo.Add(200*time.Second), 5, time.UTC)
+	if !strings.HasPrefix(ticks[0].Label, "Dec 22, 2009") {
+		t.Errorf("first label %q lacks the date", ticks[0].Label)
+	}
+	for _, k := range ticks[1:] {
+		if strings.Contains(k.Label, ",") || len(k.Label) > len("00:00:00") {
+			t.Errorf("label %q repeats context", k.Label)
+		}
 	}
 }

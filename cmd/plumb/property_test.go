@@ -74,3 +74,51 @@ func TestChartsProperty(t *testing.T) {
 		})
 	}
 }
+
+// TestLinesProperty draws random line and difference charts (1 to 8 series,
+// missing values, names of every length, every medium) and asserts that no
+// text overlaps other text or leaves the canvas.
+func TestLinesProperty(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 5))
+	media := []render.Medium{render.Screen, render.Print, render.Slide}
+	names := []string{"a", "North", "Saltmarrow Point to Kettlewick Harbour via Little Osk", "B & <c>", "vessel_b", "Quillhaven"}
+	for trial := range 60 {
+		n := 5 + rng.IntN(200)
+		k := 1 + rng.IntN(8)
+		xs := make([]float64, n)
+		start := float64(rng.IntN(50)) * 86400 * 365
+		step := []float64{1, 3600, 86400, 86400 * 30}[rng.IntN(4)]
+		for i := range xs {
+			xs[i] = start + float64(i)*step
+		}
+		series := make([]render.Series, k)
+		for s := range series {
+			y := make([]float64, n)
+			v := rng.NormFloat64() * 100
+			for i := range y {
+				v += rng.NormFloat64()
+				y[i] = v
+				if rng.IntN(40) == 0 {
+					y[i] = math.NaN()
+				}
+			}
+			series[s] = render.Series{Name: fmt.Sprintf("%s %d", names[rng.IntN(len(names))], s), X: xs, Y: y}
+		}
+		c := render.Common{Medium: media[rng.IntN(len(media))], Title: "Random walk"}
+		isTime := rng.IntN(2) == 0
+		var svg bytes.Buffer
+		var err error
+		if trial%3 == 2 && k >= 2 {
+			_, err = render.Diff(&svg, xs, series[0].Y, series[1].Y, render.DiffOptions{Common: c, Time: isTime, Context: rng.IntN(2) == 0, AName: series[0].Name, BName: series[1].Name})
+		} else {
+			_, err = render.Lines(&svg, series, render.LinesOptions{Common: c, Time: isTime, Index: rng.IntN(4) == 0})
+		}
+		if err != nil {
+			if !strings.Contains(err.Error(), "narrow") && !strings.Contains(err.Error(), "fit") && !strings.Contains(err.Error(), "index") && !strings.Contains(err.Error(), "100") {
+				t.Errorf("trial %d: %v", trial, err)
+			}
+			continue
+		}
+		t.Run(fmt.Sprintf("trial%d", trial), func(t *testing.T) { checkFigure(t, svg.Bytes()) })
+	}
+}
