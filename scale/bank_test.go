@@ -255,8 +255,8 @@ func TestBankMedian(t *testing.T) {
 	}
 }
 
-func BenchmarkBankMedianSlope(b *testing.B) {
-	const n = 1_000_000 // segments
+// benchWalk is a random walk of n segments from a fixed seed.
+func benchWalk(n int) Polyline {
 	r := rand.New(rand.NewPCG(5, 6))
 	p := Polyline{X: make([]float64, n+1), Y: make([]float64, n+1)}
 	y := 0.0
@@ -264,6 +264,11 @@ func BenchmarkBankMedianSlope(b *testing.B) {
 		y += r.NormFloat64()
 		p.X[i], p.Y[i] = float64(i), y
 	}
+	return p
+}
+
+func BenchmarkBankMedianSlope(b *testing.B) {
+	p := benchWalk(1_000_000)
 	lines := []Polyline{p}
 	rx, ry := bankExtent(p.X), bankExtent(p.Y)
 	b.ReportAllocs()
@@ -275,14 +280,7 @@ func BenchmarkBankMedianSlope(b *testing.B) {
 }
 
 func BenchmarkBankWeightedOrientation(b *testing.B) {
-	const n = 100_000 // segments
-	r := rand.New(rand.NewPCG(5, 6))
-	p := Polyline{X: make([]float64, n+1), Y: make([]float64, n+1)}
-	y := 0.0
-	for i := range n + 1 {
-		y += r.NormFloat64()
-		p.X[i], p.Y[i] = float64(i), y
-	}
+	p := benchWalk(100_000)
 	lines := []Polyline{p}
 	rx, ry := bankExtent(p.X), bankExtent(p.Y)
 	b.ReportAllocs()

@@ -2,8 +2,6 @@ package main
 
 import (
 	"bytes"
-	"encoding/csv"
-	"io"
 	"math/rand/v2"
 	"strconv"
 	"strings"
@@ -39,33 +37,7 @@ func linesCSV(n int) []byte {
 // against: encoding/csv with a reused record and strconv.ParseFloat on both
 // columns, keeping nothing.
 func BenchmarkLinesParseOnly(b *testing.B) {
-	data := linesCSV(linesBenchRows)
-	b.SetBytes(int64(len(data)))
-	b.ReportAllocs()
-	for b.Loop() {
-		r := csv.NewReader(bytes.NewReader(data))
-		r.ReuseRecord = true
-		if _, err := r.Read(); err != nil {
-			b.Fatal(err)
-		}
-		var sum float64
-		for {
-			rec, err := r.Read()
-			if err == io.EOF {
-				break
-			}
-			if err != nil {
-				b.Fatal(err)
-			}
-			x, err1 := strconv.ParseFloat(rec[0], 64)
-			y, err2 := strconv.ParseFloat(rec[1], 64)
-			if err1 != nil || err2 != nil {
-				b.Fatal(err1, err2)
-			}
-			sum += x + y
-		}
-		_ = sum
-	}
+	parseOnly(b, linesCSV(linesBenchRows), 0, 1)
 }
 
 // BenchmarkLinesCLI is the whole lines command on the same bytes: load,
