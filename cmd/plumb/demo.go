@@ -6,6 +6,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"slices"
 )
 
 // figure is one entry of the demo gallery: a command line run on one of the
@@ -13,7 +14,7 @@ import (
 // chart variant worth pinning appears here.
 type figure struct {
 	name string   // output file name without extension
-	data string   // file in demodata/
+	data string   // file in demodata/, or "" for a command that reads none
 	args []string // the command line after "plumb", without data and -o
 }
 
@@ -50,6 +51,9 @@ var gallery = []figure{
 		"--subtitle", "Share of seats taken; the other days in grey behind each panel"}},
 	{"diff-fuel", "fuel.csv", []string{"diff", "--x", "month", "--a", "vessel_a", "--b", "vessel_b", "--context", "--unit", "t",
 		"--title", "Vessel A burns more fuel than vessel B every month", "--subtitle", "Monthly fuel use in tonnes (above) and the difference A − B (below)"}},
+	{"palette-categorical", "", []string{"palette", "categorical", "--n", "8"}},
+	{"palette-sequential", "", []string{"palette", "sequential", "--n", "7", "--hue", "blue"}},
+	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
 }
 
 // runDemo renders the gallery from the data built into the binary.
@@ -67,12 +71,16 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 		return exitCode(fmt.Errorf("demo: %w", err), stderr)
 	}
 	for _, fig := range gallery {
-		data, err := demoFS.ReadFile("demodata/" + fig.data)
-		if err != nil {
-			return exitCode(fmt.Errorf("demo: %w", err), stderr)
-		}
 		path := filepath.Join(*out, fig.name+".svg")
-		args := append([]string{fig.args[0], "-", "--format", "csv", "--quiet", "-o", path}, fig.args[1:]...)
+		args := append(slices.Clone(fig.args), "-o", path)
+		var data []byte
+		if fig.data != "" {
+			var err error
+			if data, err = demoFS.ReadFile("demodata/" + fig.data); err != nil {
+				return exitCode(fmt.Errorf("demo: %w", err), stderr)
+			}
+			args = append([]string{fig.args[0], "-", "--format", "csv", "--quiet", "-o", path}, fig.args[1:]...)
+		}
 		var errs bytes.Buffer
 		if code := run(args, bytes.NewReader(data), stdout, &errs); code != exitOK {
 			fmt.Fprintf(stderr, "plumb: demo %s failed: %s", fig.name, errs.String())
