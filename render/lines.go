@@ -261,7 +261,7 @@ func magnitudeNote(series []Series) string {
 	if lo > 0 && hi/lo <= 10 {
 		return ""
 	}
-	return fmt.Sprintf("%q reaches more than ten times the size of %q, which looks flat on a shared axis: compare changes with --index, or draw separate panels with --by (no second y axis)", hiName, loName)
+	return fmt.Sprintf("%q reaches more than ten times the size of %q, which looks flat on a shared axis: compare changes with --index, or draw each in its own figure (plumb draws no second y axis)", hiName, loName)
 }
 
 // rebase turns every series into an index, 100 at its first value or at x
