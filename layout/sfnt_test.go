@@ -239,12 +239,14 @@ func TestReferenceCmapMatchesGlyphNames(t *testing.T) {
 		r    rune
 		name string
 	}{
-		{' ', "#3"},  // standard Macintosh order: space (from memory)
-		{'A', "#36"}, // A
-		{'V', "#57"}, // V
-		{'a', "#68"}, // a
-		{'o', "#82"}, // o
-		{'Å', "#99"}, // Aring, after asciitilde (97) and Adieresis (98)
+		// Indices in the standard Macintosh glyph order of the TrueType
+		// 'post' table, all from memory.
+		{' ', "#3"},  // space (from memory)
+		{'A', "#36"}, // A (from memory)
+		{'V', "#57"}, // V (from memory)
+		{'a', "#68"}, // a (from memory)
+		{'o', "#82"}, // o (from memory)
+		{'Å', "#99"}, // Aring, after asciitilde (97) and Adieresis (98) (from memory)
 	} {
 		if got := postName(t, data, r.glyph(tc.r)); got != tc.name {
 			t.Errorf("glyph for %q is named %q, want %q", tc.r, got, tc.name)

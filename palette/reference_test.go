@@ -103,10 +103,12 @@ func TestSRGBToOKLabPrimaries(t *testing.T) {
 			t.Errorf("%s: SRGBToOKLab = %+v, want %v %v %v", r.Name, got, r.L, r.A, r.B) // go-colorful TestRgbToOkLab; Ottosson (2020)
 		}
 	}
+	checked := 0
 	for _, r := range ref.SRGBToOKLab.WPT {
 		if r.L == 0 && r.A == 0 && r.B == 0 {
 			continue // the black row carries no numbers in the file
 		}
+		checked++
 		c, err := ParseHex(r.Hex)
 		if err != nil {
 			t.Fatal(err)
@@ -116,6 +118,9 @@ func TestSRGBToOKLabPrimaries(t *testing.T) {
 		if !near(got.L, r.L, 5e-6) || !near(got.A, r.A, 5e-5) || !near(got.B, r.B, 5e-6) {
 			t.Errorf("%s: SRGBToOKLab = %+v, want %v %v %v", r.Hex, got, r.L, r.A, r.B) // W3C WPT css-color/oklab-001.html
 		}
+	}
+	if checked == 0 {
+		t.Fatal("no W3C WPT row with numbers in oklab.json")
 	}
 	// Red in OKLCH, computed from the values above (oklab.json
 	// derived_red_oklch_computed).
@@ -139,6 +144,9 @@ func TestSRGBToLabAnchors(t *testing.T) {
 		} `json:"anchors_srgb_to_lab_d65"`
 	}
 	loadJSON(t, "srgb.json", &ref)
+	if len(ref.Anchors.Rows) != 5 {
+		t.Fatalf("got %d anchor rows, want 5", len(ref.Anchors.Rows))
+	}
 	for _, r := range ref.Anchors.Rows {
 		c, err := ParseHex(r.Hex)
 		if err != nil {
@@ -359,6 +367,9 @@ func TestOkabeItoDistances(t *testing.T) {
 		}
 	}
 	loadJSON(t, "okabe-ito.json", &ref)
+	if len(ref.Palette) != 8 {
+		t.Fatalf("got %d Okabe-Ito colours, want 8", len(ref.Palette))
+	}
 	var p Palette
 	for _, c := range ref.Palette {
 		col, err := ParseHex(c.Hex)
@@ -367,13 +378,19 @@ func TestOkabeItoDistances(t *testing.T) {
 		}
 		p = append(p, col)
 		got := SRGBToLab(col)
-		want := ref.Computed.Lab[c.Name]
+		want, ok := ref.Computed.Lab[c.Name]
+		if !ok {
+			t.Fatalf("%s: no computed CIELAB in okabe-ito.json", c.Name)
+		}
 		if !near(got.L, want[0], 5e-5) || !near(got.A, want[1], 5e-5) || !near(got.B, want[2], 5e-5) {
 			t.Errorf("%s: Lab %+v, want %v", c.Name, got, want) // okabe-ito.json computed CIELAB
 		}
 	}
 	for key, v := range map[string]Vision{"normal": Normal, "protanopia": Protan, "deuteranopia": Deutan, "tritanopia": Tritan} {
 		want := ref.Computed.Min[key].Including.MinDE00
+		if !(want > 0) {
+			t.Fatalf("%s: no min_dE00 including black in okabe-ito.json", key)
+		}
 		if got := p.MinDistance(v); !near(got, want, 5e-5) {
 			t.Errorf("Okabe-Ito MinDistance(%v) = %.5f, want %.4f", v, got, want) // okabe-ito.json computed
 		}

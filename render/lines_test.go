@@ -191,8 +191,6 @@ func TestLinesM4PixelIdentity(t *testing.T) {
 	// Recover the chart's geometry from the scene: the plot's pixel columns
 	// start at the whole pixel under the first vertex, and x maps linearly.
 	left := math.Floor(reduced[0].X)
-	c := &lineChart{}
-	_ = c
 	g, ys := sceneGeometry(t, s, x, y)
 	require.Equal(t, left, g.left)
 	full := make([][2]int, n)

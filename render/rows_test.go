@@ -24,7 +24,8 @@ func TestNaturalCompare(t *testing.T) {
 
 func TestArrange(t *testing.T) {
 	rows := func() []row {
-		return []row{{label: "b", value: 2}, {label: "a", value: 5}, {label: "c", value: 2}, {label: "d", value: -1}}
+		// e is largest but last by label, so value and label orders differ.
+		return []row{{label: "b", value: 2}, {label: "a", value: 5}, {label: "e", value: 9}, {label: "c", value: 2}, {label: "d", value: -1}}
 	}
 	labels := func(rs []row) string {
 		var s []string
@@ -37,10 +38,10 @@ func TestArrange(t *testing.T) {
 		order Order
 		want  string
 	}{
-		{"", "abcd"}, // largest first; ties by label
-		{ByValue, "abcd"},
-		{ByLabel, "abcd"},
-		{ByData, "bacd"},
+		{"", "eabcd"}, // largest first; ties by label
+		{ByValue, "eabcd"},
+		{ByLabel, "abcde"},
+		{ByData, "baecd"},
 	} {
 		rs := rows()
 		require.NoError(t, arrange(rs, tc.order))

@@ -2,6 +2,7 @@ package scale
 
 import (
 	"math"
+	"strconv"
 	"strings"
 	"testing"
 	"unicode/utf8"
@@ -93,11 +94,25 @@ func TestTickFormatDistinctAndExact(t *testing.T) {
 	for _, c := range [][3]float64{{8.1, 14.1, 4}, {0.000123, 0.000987, 5}, {1e6, 1.1e6, 5}, {-3.7, 12.2, 6},
 		{3, 3.0000001, 5}, {1e10, 1e10 + 1, 5}, {1e-300, 3e-300, 5}, {-1e300, 1e300, 5}, {123456, 123457, 3}} {
 		tk := NiceDomain(c[0], c[1], int(c[2]))
-		labels := formatAll(TickFormat(tk.Values, ""), tk.Values)
+		f := TickFormat(tk.Values, "")
+		labels := formatAll(f, tk.Values)
 		seen := map[string]bool{}
-		for _, l := range labels {
+		for i, l := range labels {
 			assert.False(t, seen[l], "%v: duplicate label %q in %q", c, l, labels)
 			seen[l] = true
+			// Read the label back: undo the minus sign, grouping and
+			// abbreviation, and it must give the tick to a millionth of a step.
+			num := strings.TrimSuffix(l, f.Suffix)
+			num = strings.ReplaceAll(strings.ReplaceAll(num, "\u2212", "-"), ",", "")
+			x, err := strconv.ParseFloat(num, 64)
+			if !assert.NoError(t, err, "%v: label %q", c, l) {
+				continue
+			}
+			div := f.Divisor
+			if !(div > 0) {
+				div = 1
+			}
+			assert.InDelta(t, tk.Values[i], x*div, 1e-6*tk.Step, "%v: label %q reads back wrong", c, l)
 		}
 	}
 }

@@ -211,10 +211,21 @@ func evenTicks(dmin, dmax float64, m int) Ticks {
 	n1 := float64(m - 1)
 	by := (dmax - dmin) / n1
 	if math.IsInf(by, 0) {
-		by = dmax/n1 - dmin/n1 // R overflows to Inf here; finite ticks serve callers better
-	}
-	for i := range v {
-		v[i] = dmin + float64(float64(i)*by)
+		// The span overflows float64, where R gives Inf. Finite ticks serve
+		// callers better: weigh the two ends, each term finite, since
+		// dmin + i·step may overflow on the way.
+		for i := range v {
+			t := float64(i) / n1
+			v[i] = float64(dmin*(1-t)) + float64(dmax*t)
+		}
+		by = dmax/n1 - dmin/n1
+		if math.IsInf(by, 0) {
+			by = math.MaxFloat64
+		}
+	} else {
+		for i := range v {
+			v[i] = dmin + float64(float64(i)*by)
+		}
 	}
 	v[m-1] = dmax
 	return Ticks{Values: v, Step: by, Decimals: shortestDecimals(v)}

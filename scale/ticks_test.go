@@ -406,12 +406,19 @@ func FuzzBarDomain(f *testing.F) {
 func FuzzExtended(f *testing.F) {
 	f.Add(8.1, 14.1, 4, false)
 	f.Add(3.0, 3.0000001, 5, true)
+	f.Add(10.0, 0.0, 5, false)
+	f.Add(-1e308, 7e307, 5, false)
+	f.Add(-1e308, 1.4e308, 2, false)                   // the span overflows float64
+	f.Add(-math.MaxFloat64, math.MaxFloat64, 5, false) // the widest span there is
 	f.Fuzz(func(t *testing.T, dmin, dmax float64, m int, loose bool) {
 		m = m % 64
 		tk := Extended(dmin, dmax, m, loose)
-		for _, v := range tk.Values {
+		for i, v := range tk.Values {
 			if math.IsNaN(v) {
 				t.Fatalf("NaN tick in %v", tk.Values)
+			}
+			if math.IsInf(v, 0) || i > 0 && v < tk.Values[i-1] {
+				t.Fatalf("Extended(%g, %g, %d): ticks not finite and ascending: %v", dmin, dmax, m, tk.Values)
 			}
 		}
 	})

@@ -190,6 +190,17 @@ func TestLinesIndexStartsTogether(t *testing.T) {
 	// passes through 100 there.
 	root, _ = linesSVG(t, csv, "--index=2024-02-15")
 	assert.Contains(t, root.all("text", "plumb-axis-title")[0].Text, "= 100")
+	// The vertices sit at Feb 1 and Mar 1; Feb 15 is 14 of the 29 days of
+	// February 2024 after the first. Both lines must cross there at one y.
+	var atY []float64
+	for _, p := range root.all("path", "plumb-mark") {
+		pts := polylines(t, p)[0]
+		require.GreaterOrEqual(t, len(pts), 3)
+		f := 14.0 / 29
+		atY = append(atY, pts[1][1]+f*(pts[2][1]-pts[1][1]))
+	}
+	require.Len(t, atY, 2)
+	assert.InDelta(t, atY[0], atY[1], 0.02, "both series are 100 at the index point")
 
 	// Without --index, the tenfold difference in size gets a suggestion.
 	_, stderr = linesSVG(t, csv)

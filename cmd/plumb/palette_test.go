@@ -56,10 +56,15 @@ func TestPaletteShowJSON(t *testing.T) {
 	// The categorical 8 measured from the CLI output reaches the target.
 	_, out, _ := runP("categorical", "--n", "8", "--json")
 	var got struct{ Colors []string }
-	json.Unmarshal([]byte(out), &got)
+	if err := json.Unmarshal([]byte(out), &got); err != nil || len(got.Colors) != 8 {
+		t.Fatalf("categorical 8: %v, %d colours", err, len(got.Colors))
+	}
 	var p palette.Palette
 	for _, h := range got.Colors {
-		c, _ := palette.ParseHex(h)
+		c, err := palette.ParseHex(h)
+		if err != nil {
+			t.Fatal(err)
+		}
 		p = append(p, c)
 	}
 	if w := p.WorstCase(); w < 12 || p.MinContrast(palette.SRGB{R: 1, G: 1, B: 1}) < 3 {
@@ -152,7 +157,7 @@ func TestPaletteUsageErrors(t *testing.T) {
 		{[]string{"check", "--background", "white", "#000"}, `"white"`},
 		{[]string{"categorical", "--n", "9"}, "9"},
 		{[]string{"categorical", "--hue", "blue"}, "--hue"},
-		{[]string{"sequential", "--hue", "spectral"}, "spectral"},
+		{[]string{"sequential", "--hue", "magenta"}, "magenta"},
 		{[]string{"sequential", "--n", "x"}, "x"},
 		{[]string{"diverging", "--n", "2"}, "2"},
 		{[]string{"diverging", "extra"}, "extra"},
