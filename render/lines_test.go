@@ -250,27 +250,27 @@ func TestLinesIndex(t *testing.T) {
 }
 
 func TestLinesRejects(t *testing.T) {
-	cases := map[string][]Series{
-		"no series":     nil,
-		"length":        {{Name: "a", X: []float64{1, 2}, Y: []float64{1}}},
-		"empty":         {{Name: "a"}},
-		"duplicate x":   {{Name: "a", X: []float64{1, 1}, Y: []float64{1, 2}}},
-		"infinite y":    {{Name: "a", X: []float64{1, 2}, Y: []float64{1, math.Inf(1)}}},
-		"nan x":         {{Name: "a", X: []float64{1, math.NaN()}, Y: []float64{1, 2}}},
-		"all missing":   {{Name: "a", X: []float64{1, 2}, Y: []float64{math.NaN(), math.NaN()}}},
-		"bad aspect":    {{Name: "a", X: []float64{1, 2}, Y: []float64{1, 2}}},
-		"narrow canvas": {{Name: "a", X: []float64{1, 2}, Y: []float64{1, 2}}},
+	ok := []Series{{Name: "a", X: []float64{1, 2}, Y: []float64{1, 2}}}
+	cases := map[string]struct {
+		series []Series
+		opt    LinesOptions
+		says   string // part of the message that names the cause
+	}{
+		"no series":     {nil, LinesOptions{}, "no series"},
+		"length":        {[]Series{{Name: "a", X: []float64{1, 2}, Y: []float64{1}}}, LinesOptions{}, "2 x values but 1 y"},
+		"empty":         {[]Series{{Name: "a"}}, LinesOptions{}, "no points"},
+		"duplicate x":   {[]Series{{Name: "a", X: []float64{1, 1}, Y: []float64{1, 2}}}, LinesOptions{}, "two points at x = 1"},
+		"infinite y":    {[]Series{{Name: "a", X: []float64{1, 2}, Y: []float64{1, math.Inf(1)}}}, LinesOptions{}, "infinite"},
+		"nan x":         {[]Series{{Name: "a", X: []float64{1, math.NaN()}, Y: []float64{1, 2}}}, LinesOptions{}, "finite x"},
+		"all missing":   {[]Series{{Name: "a", X: []float64{1, 2}, Y: []float64{math.NaN(), math.NaN()}}}, LinesOptions{}, "every value is missing"},
+		"bad aspect":    {ok, LinesOptions{Aspect: "wide"}, "wide"},
+		"narrow canvas": {ok, LinesOptions{Common: Common{Width: 90}}, "narrow"},
 	}
-	for name, series := range cases {
-		opt := LinesOptions{}
-		switch name {
-		case "bad aspect":
-			opt.Aspect = "wide"
-		case "narrow canvas":
-			opt.Width = 90
+	for name, tc := range cases {
+		_, err := LinesScene(tc.series, tc.opt)
+		if assert.Error(t, err, name) {
+			assert.Contains(t, err.Error(), tc.says, name)
 		}
-		_, err := LinesScene(series, opt)
-		assert.Error(t, err, name)
 	}
 }
 
