@@ -9,23 +9,19 @@ import (
 
 // diffFlags are the flags of plumb diff.
 type diffFlags struct {
-	shared
-	x, a, b, xFormat, unit, xName string
-	context                       bool
+	xFlags
+	a, b    string
+	context bool
 }
 
 // runDiff is plumb diff.
 func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs := newFlagSet("diff", dataSynopsis, stderr)
 	var f diffFlags
-	f.shared.register(fs)
-	fs.StringVar(&f.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
+	f.xFlags.register(fs)
 	fs.StringVar(&f.a, "a", "", "`COLUMN` of the first series (default: the first numeric column after x)")
 	fs.StringVar(&f.b, "b", "", "`COLUMN` of the second series, subtracted from a (default: the next numeric column)")
 	fs.BoolVar(&f.context, "context", false, "add a panel above with both series on the same x scale")
-	fs.StringVar(&f.xFormat, "x-format", "auto", "read x as auto, number or time")
-	fs.StringVar(&f.unit, "unit", "", "unit of the values, such as t or %")
-	fs.StringVar(&f.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
 	path, c, err := parseChart(fs, &f.shared, args)
 	if err != nil {
 		return exitCode(err, stderr)

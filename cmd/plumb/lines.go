@@ -157,27 +157,37 @@ func pick(v []float64, rows []int) []float64 {
 	return out
 }
 
+// xFlags are the flags of the charts drawn over an x axis: lines and diff.
+type xFlags struct {
+	shared
+	x, xFormat, unit, xName string
+}
+
+func (x *xFlags) register(fs *flag.FlagSet) {
+	x.shared.register(fs)
+	fs.StringVar(&x.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
+	fs.StringVar(&x.xFormat, "x-format", "auto", "read x as auto, number or time")
+	fs.StringVar(&x.unit, "unit", "", "unit of the values, such as % or t")
+	fs.StringVar(&x.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
+}
+
 // linesFlags are the flags of plumb lines.
 type linesFlags struct {
-	shared
-	x, series, aspect, xFormat, unit, indexAt, xName, yName string
-	y                                                       listFlag
-	index                                                   indexFlag
-	together                                                bool
+	xFlags
+	series, aspect, indexAt, yName string
+	y                              listFlag
+	index                          indexFlag
+	together                       bool
 }
 
 func (l *linesFlags) register(fs *flag.FlagSet) {
-	l.shared.register(fs)
-	fs.StringVar(&l.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
+	l.xFlags.register(fs)
 	fs.Var(&l.y, "y", "value `COLUMNS`, comma-separated, one line each (default: every numeric column after x)")
 	fs.StringVar(&l.series, "series", "", "long format: `COLUMN` naming the series of each row")
 	fs.Var(&l.index, "index", "rebase every series to 100 at its first value; --index=AT rebases at x = AT")
 	fs.StringVar(&l.indexAt, "index-at", "", "rebase every series to 100 at x = `AT` (same as --index=AT)")
 	fs.StringVar(&l.aspect, "aspect", "", "plot shape: orientation (bank by mean orientation) or W:H; default banks to 45° by median slope")
 	fs.BoolVar(&l.together, "together", false, "keep more than four series on one panel instead of small multiples")
-	fs.StringVar(&l.xFormat, "x-format", "auto", "read x as auto, number or time")
-	fs.StringVar(&l.unit, "unit", "", "unit of the values, such as % or t")
-	fs.StringVar(&l.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
 	fs.StringVar(&l.yName, "y-name", "", "what the values measure, for the axis")
 }
 
