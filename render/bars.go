@@ -44,7 +44,7 @@ type DotsOptions struct {
 
 // Bars draws a bar chart of values by label and writes it as SVG to w. It
 // returns the notes that record what was decided for the caller.
-func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]string, error) {
+func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]Note, error) {
 	s, err := BarsScene(labels, values, opt)
 	if err != nil {
 		return nil, err
@@ -63,7 +63,7 @@ func BarsScene(labels []string, values []float64, opt BarsOptions) (*Scene, erro
 }
 
 // Dots draws a dot plot of values by label and writes it as SVG to w.
-func Dots(w io.Writer, labels []string, values []float64, opt DotsOptions) ([]string, error) {
+func Dots(w io.Writer, labels []string, values []float64, opt DotsOptions) ([]Note, error) {
 	s, err := DotsScene(labels, values, opt)
 	if err != nil {
 		return nil, err
@@ -143,7 +143,7 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	var note string
 	c.rows, note = combineTail(c.rows, top, !c.averages)
 	if note != "" {
-		f.scene.Note(note)
+		f.scene.Note("other", true, note)
 	}
 	if err := c.domain(); err != nil {
 		return nil, err
@@ -189,7 +189,7 @@ func (c *rowChart) toShares() error {
 		c.rows[i].value = 100 * c.rows[i].value / total
 	}
 	c.unit = "%"
-	c.f.scene.Note(fmt.Sprintf("showing each value as a percentage of the total, %s", scale.ValueFormat([]float64{total}, "").Format(total)))
+	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", scale.ValueFormat([]float64{total}, "").Format(total)))
 	return nil
 }
 
@@ -394,7 +394,7 @@ func (c *rowChart) wrapLabels(width float64, maxLines int) ([][]string, float64,
 		lines, cut := f.wrap(r.label, size, r.highlight, width, maxLines)
 		wrapped[i] = lines
 		if cut {
-			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
+			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
 		}
 		most = max(most, len(lines))
 		for _, l := range lines {
@@ -649,7 +649,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	vtext, vw := c.valueTexts()
 	showValues := slices.IndexFunc(vw, func(w float64) bool { return w > band-2 }) < 0
 	if !showValues {
-		f.scene.Note("left out the value labels: they are wider than the columns; the axis carries the values (or drop --vertical)")
+		f.scene.Note("value-labels-dropped", false, "left out the value labels: they are wider than the columns; the axis carries the values (or drop --vertical)")
 	}
 	wrapped, _, lines := c.wrapLabels(band-sp.gap, 2)
 	for i, r := range c.rows {

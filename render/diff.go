@@ -30,7 +30,7 @@ type DiffOptions struct {
 // to w. Readers judge the gap between two curves by their shortest
 // distance rather than the vertical one (Cleveland & McGill 1984), so the
 // difference itself is plotted. It returns the notes.
-func Diff(w io.Writer, x, a, b []float64, opt DiffOptions) ([]string, error) {
+func Diff(w io.Writer, x, a, b []float64, opt DiffOptions) ([]Note, error) {
 	s, err := DiffScene(x, a, b, opt)
 	if err != nil {
 		return nil, err
@@ -82,10 +82,10 @@ func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
 		return nil, err
 	}
 	for _, n := range notes[:min(len(notes), 1)] {
-		f.scene.Note(n)
+		f.scene.Notes = append(f.scene.Notes, n)
 	}
 	if n := missingNote([]Series{{Name: "difference", X: x, Y: d}}); n != "" {
-		f.scene.Note(strings.Replace(n, "the lines are drawn", "the difference is drawn", 1))
+		f.scene.Note("missing", false, strings.Replace(n, "the lines are drawn", "the difference is drawn", 1))
 	}
 	c := &diffChart{opt: opt, f: f, x: x, a: a, b: b, d: d}
 	bottom, err := c.layout()
@@ -156,7 +156,7 @@ func (c *diffChart) layout() (float64, error) {
 	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
 	pd := g.polyline(c.x, c.d)
 	if g.reduce && len(pd.X) < len(c.x) {
-		f.scene.Note(reduceNote(len(c.x), len(pd.X)))
+		f.scene.Note("reduced", false, reduceNote(len(c.x), len(pd.X)))
 	}
 	var bk banking
 	h, ay := f.bank(&bk, []scale.Polyline{pd}, ax.d1-ax.d0, w, dlo, dhi, "", &zero)
@@ -191,7 +191,7 @@ func (c *diffChart) layout() (float64, error) {
 	if c.opt.Context {
 		g.reduce = shouldReduce(series, g.w)
 		h, ay := hc, ayc
-		f.scene.Note("levels panel: " + bkc.note(w, h))
+		f.scene.Note("aspect", false, "levels panel: "+bkc.note(w, h))
 		f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "levels"}}})
 		f.drawAxisTitle(ctxTitle, -left+sp.pad, 0)
 		top := ctxTitle.height(lh) + sp.gap + half
@@ -208,14 +208,14 @@ func (c *diffChart) layout() (float64, error) {
 			}
 		}
 		if !f.placeLabels(labels, w, top, top+h) {
-			f.scene.Note("the series names do not fit beside the line ends: named them in the panel title")
+			f.scene.Note("legend", false, "the series names do not fit beside the line ends: named them in the panel title")
 		}
 		f.scene.Add(Mark{Kind: GroupEnd})
 		y += top + h + half + sp.gap*2
 	}
 
 	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
-	f.scene.Note(bk.note(w, h))
+	f.scene.Note("aspect", false, bk.note(w, h))
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "difference"}}})
 	f.drawAxisTitle(diffTitle, -left+sp.pad, 0)
 	top := panelTop
@@ -312,7 +312,7 @@ func (c *diffChart) regionLabel(placed []layout.Box, ar areaInfo, a, b string, x
 	full := a + " above " + b
 	text, ok := f.regionText(a, b, w-4)
 	if !ok {
-		f.scene.Note(fmt.Sprintf("left out the label %q: the plot is too narrow for it", full))
+		f.scene.Note("label-dropped", false, fmt.Sprintf("left out the label %q: the plot is too narrow for it", full))
 		return placed
 	}
 	face := f.fonts.Face(false)
@@ -390,7 +390,7 @@ func (c *diffChart) regionLabel(placed []layout.Box, ar areaInfo, a, b string, x
 		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(s.cx), Y: round2(s.base), Text: s.text, Size: sp.text, Fill: f.th.text, Anchor: Middle, Tooltip: tip})
 		return append(placed, box)
 	}
-	f.scene.Note(fmt.Sprintf("left out the label %q: no room for it in the plot clear of the other label", full))
+	f.scene.Note("label-dropped", false, fmt.Sprintf("left out the label %q: no room for it in the plot clear of the other label", full))
 	return placed
 }
 

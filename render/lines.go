@@ -52,7 +52,7 @@ const MaxTogether = 4
 
 // Lines draws a line chart and writes it as SVG to w. It returns the notes
 // that record what was decided for the caller.
-func Lines(w io.Writer, series []Series, opt LinesOptions) ([]string, error) {
+func Lines(w io.Writer, series []Series, opt LinesOptions) ([]Note, error) {
 	s, err := LinesScene(series, opt)
 	if err != nil {
 		return nil, err
@@ -93,9 +93,7 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 		return nil, err
 	}
 	c.f = f
-	for _, n := range notes {
-		f.scene.Note(n)
-	}
+	f.scene.Notes = append(f.scene.Notes, notes...)
 	if c.opt.Index || c.opt.IndexAt != nil {
 		if series, err = c.rebase(series); err != nil {
 			return nil, err
@@ -109,18 +107,18 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	}
 	c.xlo, c.xhi, _ = dataRange(c.xs()...)
 	if n := missingNote(series); n != "" {
-		f.scene.Note(n)
+		f.scene.Note("missing", false, n)
 	}
 	multiples := len(series) > MaxTogether && !c.opt.Together
 	switch {
 	case multiples:
-		f.scene.Note(fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the others faint behind it (--together keeps one panel)", len(series)))
+		f.scene.Note("multiples", false, fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the others faint behind it (--together keeps one panel)", len(series)))
 	case len(series) > MaxTogether:
-		f.scene.Note(fmt.Sprintf("kept %d series on one panel as asked (--together); small multiples would read more easily", len(series)))
+		f.scene.Note("together", false, fmt.Sprintf("kept %d series on one panel as asked (--together); small multiples would read more easily", len(series)))
 	}
 	if !multiples && !c.opt.Index && c.opt.IndexAt == nil {
 		if n := magnitudeNote(series); n != "" {
-			f.scene.Note(n)
+			f.scene.Note("magnitude", false, n)
 		}
 	}
 	var bottom float64
@@ -158,11 +156,11 @@ func (c *lineChart) xs() [][]float64 {
 
 // cleanSeries validates the series, sorts any out of x order (with a note)
 // and refuses duplicate x values, which a line cannot draw.
-func cleanSeries(in []Series) ([]Series, []string, error) {
+func cleanSeries(in []Series) ([]Series, []Note, error) {
 	if len(in) == 0 {
 		return nil, nil, fmt.Errorf("no series to draw")
 	}
-	var notes []string
+	var notes []Note
 	out := make([]Series, 0, len(in))
 	for i, s := range in {
 		if s.Name == "" {
@@ -193,7 +191,7 @@ func cleanSeries(in []Series) ([]Series, []string, error) {
 				x[j], y[j] = s.X[k], s.Y[k]
 			}
 			s.X, s.Y = x, y
-			notes = append(notes, fmt.Sprintf("sorted series %q by x: a line joins its points in x order", s.Name))
+			notes = append(notes, Note{Code: "sorted", Text: fmt.Sprintf("sorted series %q by x: a line joins its points in x order", s.Name)})
 		}
 		for j := 1; j < len(s.X); j++ {
 			if s.X[j] == s.X[j-1] {
@@ -201,7 +199,7 @@ func cleanSeries(in []Series) ([]Series, []string, error) {
 			}
 		}
 		if !slices.ContainsFunc(s.Y, func(v float64) bool { return !math.IsNaN(v) }) {
-			notes = append(notes, fmt.Sprintf("left out series %q: every value is missing", s.Name))
+			notes = append(notes, Note{Code: "series-dropped", Changed: true, Text: fmt.Sprintf("left out series %q: every value is missing", s.Name)})
 			continue
 		}
 		out = append(out, s)
@@ -283,7 +281,7 @@ func (c *lineChart) rebase(series []Series) ([]Series, error) {
 	if c.opt.IndexAt != nil {
 		at = "x = " + c.xText(*c.opt.IndexAt)
 	}
-	c.f.scene.Note(fmt.Sprintf("rebased every series to 100 at %s (--index), so that the lines compare change, not size", at))
+	c.f.scene.Note("index", true, fmt.Sprintf("rebased every series to 100 at %s (--index), so that the lines compare change, not size", at))
 	return out, nil
 }
 
@@ -416,7 +414,7 @@ func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, 
 	for i, n := range names {
 		lines, cut := f.wrap(n, sp.text, false, maxW, 2)
 		if cut {
-			f.scene.Note(fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
+			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
 		}
 		txt := f.th.text
 		if col, err := palette.ParseHex(colors[i]); err == nil && palette.Contrast(col, white) >= 4.5 {
@@ -566,7 +564,7 @@ func (c *lineChart) layoutSingle() (float64, error) {
 		before, after = before+len(s.X), after+len(polys[i].X)
 	}
 	if g.reduce && after < before {
-		f.scene.Note(reduceNote(before, after))
+		f.scene.Note("reduced", false, reduceNote(before, after))
 	}
 	h, ay := f.bank(&c.bank, polys, ax.d1-ax.d0, w, ylo, yhi, c.unit, nil)
 	if fb := f.fixedPlotBottom(); fb > 0 {
@@ -583,7 +581,7 @@ func (c *lineChart) layoutSingle() (float64, error) {
 			c.bank.limit(w, h)
 		}
 	}
-	f.scene.Note(c.bank.note(w, h))
+	f.scene.Note("aspect", false, c.bank.note(w, h))
 	bottom := plotTop + h
 	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: bottom, R1: plotTop}
 
@@ -607,7 +605,7 @@ func (c *lineChart) layoutSingle() (float64, error) {
 		}
 	}
 	if labels != nil && !f.placeLabels(labels, left+w, plotTop, bottom) {
-		f.scene.Note("the series names do not fit beside the line ends: named them in a legend below the chart")
+		f.scene.Note("legend", false, "the series names do not fit beside the line ends: named them in a legend below the chart")
 		axisBottom = f.legend(labels, left, axisBottom)
 	}
 	return axisBottom, nil
@@ -655,7 +653,7 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 		before, after = before+len(s.X), after+len(polys[i].X)
 	}
 	if after < before {
-		f.scene.Note(reduceNote(before, after))
+		f.scene.Note("reduced", false, reduceNote(before, after))
 	}
 	h, ay := f.bank(&c.bank, polys, ax.d1-ax.d0, w, ylo, yhi, c.unit, nil)
 	titleH := lh
@@ -676,7 +674,7 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 			c.bank.limit(w, h)
 		}
 	}
-	f.scene.Note(c.bank.note(w, h) + ", each panel")
+	f.scene.Note("aspect", false, c.bank.note(w, h)+", each panel")
 	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: plotOff + h, R1: plotOff}
 	lastRow := n - (rows-1)*cols
 	y := top

@@ -179,7 +179,7 @@ func TestLinesM4PixelIdentity(t *testing.T) {
 	}
 	s, err := LinesScene([]Series{{Name: "walk", X: x, Y: y}}, LinesOptions{})
 	require.NoError(t, err)
-	assert.Contains(t, strings.Join(s.Notes, "\n"), "M4")
+	assert.Contains(t, fmt.Sprint(s.Notes), "M4")
 	var mark Mark
 	for _, m := range s.Marks {
 		if m.Class == "plumb-mark" {
@@ -286,7 +286,7 @@ func TestLinesAspectForced(t *testing.T) {
 	w := grid[0].Lines[0][1].X - grid[0].Lines[0][0].X
 	h := grid[0].Lines[0][0].Y - grid[len(grid)-1].Lines[0][0].Y
 	assert.InDelta(t, 0.5, h/w, 0.005)
-	assert.Contains(t, strings.Join(s.Notes, "\n"), "forced")
+	assert.Contains(t, fmt.Sprint(s.Notes), "forced")
 }
 
 func TestLinesSmallMultiplesPanels(t *testing.T) {

@@ -7,7 +7,7 @@ type Scene struct {
 	Width, Height float64 // canvas size in pixels (SVG user units)
 	Title         string  // accessible name, written as <title>
 	Desc          string  // plain-language description, written as <desc>
-	Notes         []string
+	Notes         []Note
 	Font          Font
 	Marks         []Mark
 }
@@ -85,5 +85,19 @@ type Mark struct {
 // Add appends marks to the scene.
 func (s *Scene) Add(m ...Mark) { s.Marks = append(s.Marks, m...) }
 
+// A Note records one decision plumb made for the user. Notes are values so
+// that a caller can act on them (for example warn "your data was changed")
+// without matching their text.
+type Note struct {
+	Code    string // stable name of the kind of decision, such as "other" or "aspect"
+	Text    string // the decision in plain words, with the numbers involved
+	Changed bool   // what is drawn differs from the data given: rows left out, values combined or transformed
+}
+
+// String returns the note's text.
+func (n Note) String() string { return n.Text }
+
 // Note records a decision plumb made for the user.
-func (s *Scene) Note(n string) { s.Notes = append(s.Notes, n) }
+func (s *Scene) Note(code string, changed bool, text string) {
+	s.Notes = append(s.Notes, Note{Code: code, Text: text, Changed: changed})
+}

@@ -43,7 +43,7 @@ func WriteSVG(w io.Writer, s *Scene) error {
 	fmt.Fprintf(bw, "<desc id=\"%s-desc\">%s</desc>\n", id, escape(s.Desc))
 	bw.WriteString("<metadata>\n<plumb:notes xmlns:plumb=\"" + notesNamespace + "\">\n")
 	for _, n := range s.Notes {
-		bw.WriteString("<plumb:note>" + escape(n) + "</plumb:note>\n")
+		bw.WriteString("<plumb:note>" + escape(n.Text) + "</plumb:note>\n")
 	}
 	bw.WriteString("</plumb:notes>\n</metadata>\n")
 	if s.Font.Data != nil {

@@ -110,7 +110,7 @@ func PaletteSheet(title string, colors []palette.SRGB) *Scene {
 		mins[k] = c.minD
 	}
 	s.Desc = sheetDesc(colors, mins)
-	s.Note("colour vision simulated with Machado, Oliveira & Fernandes (2009) at full severity; distances are CIEDE2000")
+	s.Note("cvd-method", false, "colour vision simulated with Machado, Oliveira & Fernandes (2009) at full severity; distances are CIEDE2000")
 	return s
 }
 

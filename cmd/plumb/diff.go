@@ -31,13 +31,13 @@ func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		return exitCode(err, stderr)
 	}
 	opt.Common = c
-	return emit("diff", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]string, error) {
+	return emit("diff", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
 		return render.Diff(w, x, a, b, opt)
 	})
 }
 
 // loadDiff reads the x, a and b columns, in x order.
-func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, opt render.DiffOptions, notes []string, err error) {
+func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, opt render.DiffOptions, notes []render.Note, err error) {
 	r, format, done, notes, err := openData(path, f.format, stdin)
 	if err != nil {
 		return nil, nil, nil, opt, nil, err
@@ -88,7 +88,7 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 			}
 			return nil, nil, nil, opt, nil, tooFewColumns(t, "a difference needs two numeric columns; name them with --a and --b")
 		}
-		notes = append(notes, fmt.Sprintf("drawing %q minus %q over %q (choose with --x, --a and --b)", acol, bcol, xcol))
+		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("drawing %q minus %q over %q (choose with --x, --a and --b)", acol, bcol, xcol)})
 	}
 	xc, xn, err := readX(t, xcol, f.xFormat)
 	if err != nil {
@@ -110,7 +110,7 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 	x = xc.values
 	if rows != nil {
 		x, av, bv = pick(x, rows), pick(av, rows), pick(bv, rows)
-		notes = append(notes, fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol))
+		notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
 	}
 	opt = render.DiffOptions{Time: xc.time, AName: acol, BName: bcol, Context: f.context, Unit: f.unit, XName: f.xName}
 	if opt.XName == "" && !xc.time {

@@ -158,12 +158,12 @@ func exitCode(err error, stderr io.Writer) int {
 }
 
 // printNotes writes the decisions plumb made on stderr, one per line.
-func printNotes(stderr io.Writer, notes []string, quiet bool) {
+func printNotes(stderr io.Writer, notes []render.Note, quiet bool) {
 	if quiet {
 		return
 	}
 	for _, n := range notes {
-		fmt.Fprintln(stderr, "plumb: note:", n)
+		fmt.Fprintln(stderr, "plumb: note:", n.Text)
 	}
 }
 
@@ -183,7 +183,7 @@ func parseChart(fs *flag.FlagSet, sh *shared, args []string) (string, render.Com
 
 // emit writes the figure that draw produces to -o (or stdout), prints the
 // notes of loading and drawing, and returns the exit code.
-func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []string, draw func(io.Writer) ([]string, error)) int {
+func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []render.Note, draw func(io.Writer) ([]render.Note, error)) int {
 	err := writeOutput(sh.out, stdout, func(w io.Writer) error {
 		n, err := draw(w)
 		notes = append(notes, n...)

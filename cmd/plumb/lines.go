@@ -63,7 +63,7 @@ type xColumn struct {
 // readX parses the x column: numbers, or ISO 8601 dates and times. format
 // is auto (detected with scale.DetectTime when the cells are not all
 // numbers), number or time. Every row needs an x.
-func readX(t *Table, col, format string) (*xColumn, []string, error) {
+func readX(t *Table, col, format string) (*xColumn, []render.Note, error) {
 	switch format {
 	case "", "auto", "number", "time":
 	default:
@@ -101,9 +101,9 @@ func readX(t *Table, col, format string) (*xColumn, []string, error) {
 		}
 		x.values[i] = float64(tm.Unix()) + float64(tm.Nanosecond())/1e9
 	}
-	var notes []string
+	var notes []render.Note
 	if format != "time" {
-		notes = append(notes, fmt.Sprintf("read column %q as dates and times (--x-format number to treat it as numbers)", col))
+		notes = append(notes, render.Note{Code: "dates", Text: fmt.Sprintf("read column %q as dates and times (--x-format number to treat it as numbers)", col)})
 	}
 	return x, notes, nil
 }
@@ -205,13 +205,13 @@ func runLines(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		return exitCode(err, stderr)
 	}
 	opt.Common = c
-	return emit("lines", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]string, error) {
+	return emit("lines", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
 		return render.Lines(w, series, opt)
 	})
 }
 
 // loadLines reads the table and builds the series, wide or long.
-func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, render.LinesOptions, []string, error) {
+func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, render.LinesOptions, []render.Note, error) {
 	var opt render.LinesOptions
 	r, format, done, notes, err := openData(path, f.format, stdin)
 	if err != nil {
@@ -266,7 +266,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 		if len(ycols) == 0 {
 			return nil, opt, nil, tooFewColumns(t, fmt.Sprintf("no column after %q to draw; name the value columns with --y", xcol))
 		}
-		notes = append(notes, fmt.Sprintf("using column %q for x and %s for values (choose with --x and --y)", xcol, quoteList(ycols)))
+		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for x and %s for values (choose with --x and --y)", xcol, quoteList(ycols))})
 	}
 	if f.series != "" && len(ycols) != 1 {
 		return nil, opt, nil, usagef("--series takes one value column (--y COL); give several --y columns only in wide format")
@@ -306,7 +306,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 			return nil, opt, nil, err
 		}
 		if rows != nil {
-			notes = append(notes, fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol))
+			notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
 		}
 		xs := x.values
 		if rows != nil {
@@ -353,7 +353,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 		series = append(series, render.Series{Name: n, X: pick(x.values, rows), Y: pick(ys, rows)})
 	}
 	if sortedAny {
-		notes = append(notes, fmt.Sprintf("sorted each series by %q: a line joins its points in x order", xcol))
+		notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted each series by %q: a line joins its points in x order", xcol)})
 	}
 	return series, opt, notes, nil
 }

@@ -7,6 +7,8 @@ import (
 	"io"
 	"os"
 	"strings"
+
+	"plumb/render"
 )
 
 // labelled is a data file reduced to one value per label.
@@ -14,13 +16,13 @@ type labelled struct {
 	labels             []string
 	values             []float64
 	labelCol, valueCol string
-	notes              []string
+	notes              []render.Note
 }
 
 // openData opens a data file, or standard input for "-". For standard input
 // without --format it looks at the first bytes to tell JSON, TSV and CSV
 // apart, and says so in a note.
-func openData(path, format string, stdin io.Reader) (io.Reader, string, func(), []string, error) {
+func openData(path, format string, stdin io.Reader) (io.Reader, string, func(), []render.Note, error) {
 	if path != "-" {
 		fh, err := os.Open(path)
 		if err != nil {
@@ -34,7 +36,7 @@ func openData(path, format string, stdin io.Reader) (io.Reader, string, func(), 
 	}
 	head, _ := br.Peek(4096)
 	format = sniffFormat(head)
-	return br, format, func() {}, []string{fmt.Sprintf("read standard input as %s (say --format csv|tsv|json to choose)", strings.ToUpper(format))}, nil
+	return br, format, func() {}, []render.Note{{Code: "format", Text: fmt.Sprintf("read standard input as %s (say --format csv|tsv|json to choose)", strings.ToUpper(format))}}, nil
 }
 
 // sniffFormat guesses the format of data from its first bytes.
@@ -76,7 +78,7 @@ func loadLabelled(path, format, labelCol, valueCol, agg string, stdin io.Reader)
 		if err != nil {
 			return nil, err
 		}
-		notes = append(notes, fmt.Sprintf("using column %q for labels and %q for values (choose with --label and --value)", labelCol, valueCol))
+		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for labels and %q for values (choose with --label and --value)", labelCol, valueCol)})
 	}
 	labels := t.Strings(labelCol)
 	if labels == nil {
@@ -105,8 +107,8 @@ func loadLabelled(path, format, labelCol, valueCol, agg string, stdin io.Reader)
 			}
 		}
 		labels, values = kl, kv
-		notes = append(notes, fmt.Sprintf("skipped %d %s with no value in column %q (%s %s)",
-			len(missing), pluralS(len(missing), "row"), valueCol, pluralS(len(lines), "line"), strings.Join(lines, ", ")))
+		notes = append(notes, render.Note{Code: "rows-skipped", Changed: true, Text: fmt.Sprintf("skipped %d %s with no value in column %q (%s %s)",
+			len(missing), pluralS(len(missing), "row"), valueCol, pluralS(len(lines), "line"), strings.Join(lines, ", "))})
 	}
 	if len(values) == 0 {
 		return nil, &DataError{File: path, Column: valueCol, Err: ErrEmpty, Hint: "every row lacks a value; check the column name and the file"}
@@ -116,7 +118,7 @@ func loadLabelled(path, format, labelCol, valueCol, agg string, stdin io.Reader)
 		return nil, err
 	}
 	if repeats > 0 {
-		notes = append(notes, fmt.Sprintf("combined %d repeated %s by %s (--agg %s); %d categories remain", repeats, pluralS(repeats, "label"), aggWord(agg), agg, len(labels)))
+		notes = append(notes, render.Note{Code: "combined", Changed: true, Text: fmt.Sprintf("combined %d repeated %s by %s (--agg %s); %d categories remain", repeats, pluralS(repeats, "label"), aggWord(agg), agg, len(labels))})
 	}
 	return &labelled{labels: labels, values: values, labelCol: labelCol, valueCol: valueCol, notes: notes}, nil
 }
