@@ -17,6 +17,33 @@ type labelled struct {
 	values             []float64
 	labelCol, valueCol string
 	notes              []render.Note
+	// repeated lists the labels that occurred on more than one row, with
+	// their row counts, in order of first appearance: values that were
+	// combined, which decides whether they may be summed further into Other.
+	repeated []labelCount
+}
+
+// labelCount is a label and how many rows carried it.
+type labelCount struct {
+	label string
+	n     int
+}
+
+// countRepeats returns the labels that occur more than once, with their
+// counts, in order of first appearance.
+func countRepeats(labels []string) []labelCount {
+	n := make(map[string]int, min(len(labels), 1024))
+	for _, l := range labels {
+		n[l]++
+	}
+	var out []labelCount
+	for _, l := range labels {
+		if c := n[l]; c > 1 {
+			out = append(out, labelCount{l, c})
+			n[l] = 0
+		}
+	}
+	return out
 }
 
 // openData opens a data file, or standard input for "-". For standard input
@@ -113,6 +140,7 @@ func loadLabelled(path, format, labelCol, valueCol, agg string, stdin io.Reader)
 	if len(values) == 0 {
 		return nil, &DataError{File: path, Column: valueCol, Err: ErrEmpty, Hint: "every row lacks a value; check the column name and the file"}
 	}
+	repeated := countRepeats(labels)
 	labels, values, repeats, err := Aggregate(labels, values, agg)
 	if err != nil {
 		return nil, err
@@ -120,7 +148,7 @@ func loadLabelled(path, format, labelCol, valueCol, agg string, stdin io.Reader)
 	if repeats > 0 {
 		notes = append(notes, render.Note{Code: "combined", Changed: true, Text: fmt.Sprintf("combined %d repeated %s by %s (--agg %s); %d categories remain", repeats, pluralS(repeats, "label"), aggWord(agg), agg, len(labels))})
 	}
-	return &labelled{labels: labels, values: values, labelCol: labelCol, valueCol: valueCol, notes: notes}, nil
+	return &labelled{labels: labels, values: values, labelCol: labelCol, valueCol: valueCol, notes: notes, repeated: repeated}, nil
 }
 
 func aggWord(agg string) string {
