@@ -149,5 +149,8 @@ func TestEmbedFont(t *testing.T) {
 	var b strings.Builder
 	require.NoError(t, WriteSVG(&b, s))
 	assert.Contains(t, b.String(), "@font-face")
-	assert.Contains(t, b.String(), `font-family="plumb-embedded, Go, sans-serif"`)
+	family := FontFamilyName(s.Font)
+	assert.Regexp(t, `^plumb-font-[0-9a-f]{16}$`, family)
+	assert.Contains(t, b.String(), `font-family="`+family+`, Go, sans-serif"`)
+	assert.Contains(t, b.String(), `@font-face{font-family:"`+family+`"`)
 }

@@ -2,8 +2,10 @@ package render
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/base64"
 	"encoding/xml"
+	"errors"
 	"fmt"
 	"hash/fnv"
 	"io"
@@ -21,17 +23,54 @@ const notesNamespace = "urn:x-plumb:notes"
 // WriteSVG serialises the scene as a standalone SVG document. It decides
 // nothing: every position, size and colour comes from the scene. Output is a
 // pure function of the scene, so identical scenes give identical bytes.
-func WriteSVG(w io.Writer, s *Scene) error {
+func WriteSVG(w io.Writer, s *Scene) error { return SVGEncoder{}.Encode(w, s) }
+
+// An SVGEncoder writes scenes as SVG. Its zero value writes standalone
+// documents, as WriteSVG does; the fields serve pages that inline several
+// charts.
+type SVGEncoder struct {
+	// Fragment leaves out the XML prolog and the generator comment, so that
+	// the <svg> element can be pasted into an HTML page.
+	Fragment bool
+	// IDPrefix starts every element id (default "plumb"). Ids also carry a
+	// hash of the whole scene, so two different charts never share one.
+	IDPrefix string
+	// FontDeclared says the page already holds the embedded font's
+	// @font-face rule (FontFaceCSS), so the chart refers to the family
+	// without embedding the font bytes again.
+	FontDeclared bool
+}
+
+// ErrNoScene is returned when there is no scene to write.
+var ErrNoScene = errors.New("no scene to write")
+
+// Encode writes the scene to w.
+func (e SVGEncoder) Encode(w io.Writer, s *Scene) error {
+	if s == nil {
+		return ErrNoScene
+	}
+	// The marks are written first into a buffer so that the element ids can
+	// be derived from every byte of the drawing, not from a summary of it.
+	var body bytes.Buffer
+	bbw := bufio.NewWriter(&body)
+	bdoc := svg.New(bbw)
+	bdoc.Decimals = 2
+	for i := range s.Marks {
+		writeMark(bdoc, bbw, &s.Marks[i])
+	}
+	bbw.Flush()
+
 	bw := bufio.NewWriter(w)
-	doc := svg.New(bw)
+	var head bytes.Buffer
+	doc := svg.New(&head)
 	doc.Decimals = 2
-	id := sceneID(s)
+	id := e.sceneID(s, body.Bytes())
 	family := s.Font.Family
 	if family == "" {
 		family = "Go, sans-serif"
 	}
 	if s.Font.Data != nil {
-		family = "plumb-embedded, " + family
+		family = FontFamilyName(s.Font) + ", " + family
 	}
 	doc.Start(round2(s.Width), round2(s.Height),
 		fmt.Sprintf(`viewBox="0 0 %s %s"`, num(s.Width), num(s.Height)),
@@ -39,6 +78,11 @@ func WriteSVG(w io.Writer, s *Scene) error {
 		fmt.Sprintf(`aria-labelledby="%s-title %s-desc"`, id, id),
 		attr("font-family", family),
 	)
+	h := head.Bytes()
+	if e.Fragment {
+		h = h[bytes.Index(h, []byte("<svg")):]
+	}
+	bw.Write(h)
 	fmt.Fprintf(bw, "<title id=\"%s-title\">%s</title>\n", id, escape(s.Title))
 	fmt.Fprintf(bw, "<desc id=\"%s-desc\">%s</desc>\n", id, escape(s.Desc))
 	bw.WriteString("<metadata>\n<plumb:notes xmlns:plumb=\"" + notesNamespace + "\">\n")
@@ -46,21 +90,37 @@ func WriteSVG(w io.Writer, s *Scene) error {
 		bw.WriteString("<plumb:note>" + escape(n.Text) + "</plumb:note>\n")
 	}
 	bw.WriteString("</plumb:notes>\n</metadata>\n")
-	if s.Font.Data != nil {
-		format := s.Font.Format
-		if format == "" {
-			format = "truetype"
-		}
-		doc.Def()
-		fmt.Fprintf(bw, "<style>@font-face{font-family:\"plumb-embedded\";src:url(data:font/%s;base64,%s) format(\"%s\");}</style>\n",
-			fontMime(format), base64.StdEncoding.EncodeToString(s.Font.Data), format)
-		doc.DefEnd()
+	if s.Font.Data != nil && !e.FontDeclared {
+		bw.WriteString("<defs>\n<style>" + FontFaceCSS(s.Font) + "</style>\n</defs>\n")
 	}
-	for i := range s.Marks {
-		writeMark(doc, bw, &s.Marks[i])
-	}
-	doc.End()
+	bw.Write(body.Bytes())
+	bw.WriteString("</svg>\n")
 	return bw.Flush()
+}
+
+// FontFamilyName is the CSS family under which an embedded font is declared:
+// derived from a hash of the font's bytes, so that charts embedding
+// different fonts on one page never draw in each other's face, and charts
+// embedding the same font can share one declaration.
+func FontFamilyName(f Font) string {
+	h := fnv.New64a()
+	h.Write(f.Data)
+	return fmt.Sprintf("plumb-font-%016x", h.Sum64())
+}
+
+// FontFaceCSS returns the @font-face rule that declares an embedded font, for
+// a page that declares it once and writes its charts with FontDeclared. It
+// returns "" for a font with no data.
+func FontFaceCSS(f Font) string {
+	if f.Data == nil {
+		return ""
+	}
+	format := f.Format
+	if format == "" {
+		format = "truetype"
+	}
+	return fmt.Sprintf("@font-face{font-family:\"%s\";src:url(data:font/%s;base64,%s) format(\"%s\");}",
+		FontFamilyName(f), fontMime(format), base64.StdEncoding.EncodeToString(f.Data), format)
 }
 
 func fontMime(format string) string {
@@ -192,12 +252,21 @@ func escape(s string) string {
 	return b.String()
 }
 
-// sceneID derives element ids from the content, so that two figures on
-// one page do not share ids and identical input still gives identical bytes.
-func sceneID(s *Scene) string {
-	h := fnv.New32a()
-	io.WriteString(h, s.Title)
-	io.WriteString(h, s.Desc)
-	fmt.Fprintf(h, "%d", len(s.Marks))
-	return fmt.Sprintf("plumb-%08x", h.Sum32())
+// sceneID derives element ids from the whole scene (its size, words,
+// notes, font and every byte of its drawing), so that two figures on one page
+// do not share ids unless they are the same figure, and identical input still
+// gives identical bytes.
+func (e SVGEncoder) sceneID(s *Scene, body []byte) string {
+	h := fnv.New64a()
+	fmt.Fprintf(h, "%g %g\x00%s\x00%s\x00%s\x00", s.Width, s.Height, s.Title, s.Desc, s.Font.Family)
+	for _, n := range s.Notes {
+		fmt.Fprintf(h, "%s\x00%s\x00", n.Code, n.Text)
+	}
+	h.Write(s.Font.Data)
+	h.Write(body)
+	prefix := e.IDPrefix
+	if prefix == "" {
+		prefix = "plumb"
+	}
+	return fmt.Sprintf("%s-%016x", prefix, h.Sum64())
 }
