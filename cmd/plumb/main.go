@@ -186,7 +186,7 @@ func notDrawn(name string) (instead, why string, ok bool) {
 // when it names one plumb does not draw.
 func unknownChart(name string) error {
 	if instead, why, ok := notDrawn(name); ok {
-		return usagef("plumb does not draw %q charts: use plumb %s; %s", name, instead, why)
+		return usagef("%q is not a plumb chart: use plumb %s, because %s", name, instead, why)
 	}
 	if best, ok := suggest.Closest(name, commands()); ok {
 		return usagef("unknown chart %q: did you mean %q?", name, best)
