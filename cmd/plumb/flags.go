@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -303,9 +304,16 @@ func parseChart(fs *flag.FlagSet, sh *shared, args []string) (string, render.Com
 // emit writes the figure that draw produces to -o (or stdout), prints the
 // notes of loading and drawing, and returns the exit code.
 func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []render.Note, draw func(io.Writer) ([]render.Note, error)) int {
+	before := len(notes)
 	err := writeOutput(sh.out, stdout, func(w io.Writer) error {
-		n, err := draw(w)
-		notes = append(notes, n...)
+		drawn, err := draw(w)
+		for _, n := range drawn {
+			// The loading notes come back from the drawing when the chart
+			// passed them on (render.Common.Notes) for the metadata.
+			if !slices.Contains(notes[:before], n) {
+				notes = append(notes, n)
+			}
+		}
 		return err
 	})
 	printNotes(stderr, describeOutput(sh.out, sh.data), notes, sh.level())
