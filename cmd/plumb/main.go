@@ -8,6 +8,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -58,22 +59,27 @@ func newSession(stdout io.Writer) *session {
 	return &session{Writer: stdout, temps: map[string]bool{}, start: time.Now()}
 }
 
-// add registers a temporary file before it is created; false once the run
-// is being aborted.
-func (s *session) add(name string) bool {
+// create makes a new file for writing (O_EXCL) and registers it, under
+// the lock that abort takes, so that a file is either registered or never
+// created; it fails once the run is being aborted.
+func (s *session) create(name string, perm os.FileMode) (*os.File, error) {
+	open := func() (*os.File, error) { return os.OpenFile(name, os.O_RDWR|os.O_CREATE|os.O_EXCL, perm) }
 	if s == nil {
-		return true
+		return open()
 	}
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	if s.aborted {
-		return false
+		return nil, errors.New("interrupted")
 	}
-	s.temps[name] = true
-	return true
+	f, err := open()
+	if err == nil {
+		s.temps[name] = true
+	}
+	return f, err
 }
 
-// forget drops a name whose file was never created.
+// forget drops a name from the registry.
 func (s *session) forget(name string) {
 	if s == nil {
 		return
@@ -99,7 +105,7 @@ func (s *session) rename(name, target string) error {
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	if s.aborted {
-		return fmt.Errorf("interrupted")
+		return errors.New("interrupted")
 	}
 	err := os.Rename(name, target)
 	delete(s.temps, name)

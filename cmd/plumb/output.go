@@ -209,20 +209,17 @@ func tempPrefix(target string) string {
 	return "." + base + tempMark
 }
 
-// createTemp creates a new temporary file beside target and registers it
-// with the session before any byte is written.
+// createTemp creates a new temporary file beside target, registered with
+// the session in the same step, so that a signal never finds a file it does
+// not know of.
 func createTemp(s *session, target string, perm fs.FileMode) (*os.File, string, error) {
 	prefix := filepath.Join(filepath.Dir(target), tempPrefix(target)) + strconv.Itoa(os.Getpid()) + "-"
 	for range 100 {
 		name := prefix + strconv.FormatUint(uint64(rand.Uint32()), 10) + ".tmp"
-		if !s.add(name) {
-			return nil, "", errors.New("interrupted")
-		}
-		f, err := os.OpenFile(name, os.O_RDWR|os.O_CREATE|os.O_EXCL, perm)
+		f, err := s.create(name, perm)
 		if err == nil {
 			return f, name, nil
 		}
-		s.forget(name)
 		if !errors.Is(err, fs.ErrExist) {
 			return nil, "", err
 		}

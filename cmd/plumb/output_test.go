@@ -259,3 +259,23 @@ func TestSignalRemovesTemporaryFile(t *testing.T) {
 	}
 	t.Skip("the run always finished before its temporary file could be seen")
 }
+
+// TestOutputToDeviceWritesDirectly makes its own character device, a copy
+// of the null device, inside the test's folder (root only), and checks that
+// -o writes into it rather than replacing it with a plain file. The
+// system's /dev/null is never touched.
+func TestOutputToDeviceWritesDirectly(t *testing.T) {
+	dir := t.TempDir()
+	dev := filepath.Join(dir, "null")
+	// Linux's null device is character device 1:3 (devices.txt in the
+	// kernel documentation); makedev packs major 1, minor 3 as 0x103.
+	if err := syscall.Mknod(dev, syscall.S_IFCHR|0o666, 0x103); err != nil {
+		t.Skipf("cannot make a device node here: %v", err)
+	}
+	code, _, stderr := plumb(t, eightRegions, "bars", "-", "-o", dev)
+	require.Equal(t, exitOK, code, stderr)
+	fi, err := os.Lstat(dev)
+	require.NoError(t, err)
+	assert.NotZero(t, fi.Mode()&os.ModeCharDevice, "still a device, not a plain file")
+	assert.ElementsMatch(t, []string{"null"}, entries(t, dir), "no temporary file")
+}
