@@ -154,20 +154,50 @@ func parse(fs *flag.FlagSet, args []string) ([]string, error) {
 	}
 }
 
-// flagError rewords the flag package's errors in plumb's manner and
-// suggests the nearest flag for a misspelt one.
+// flagError rewords the flag package's errors in plumb's manner ("--top
+// "x": give a whole number") and suggests the nearest flag for a misspelt
+// one. The flag package's own wording is kept for anything else.
 func flagError(fs *flag.FlagSet, err error) error {
 	msg := err.Error()
-	name, ok := strings.CutPrefix(msg, "flag provided but not defined: -")
-	if !ok {
-		return &usageError{msg + " (see " + fs.Name() + " -h)"}
+	if name, ok := strings.CutPrefix(msg, "flag provided but not defined: -"); ok {
+		var names []string
+		fs.VisitAll(func(f *flag.Flag) { names = append(names, f.Name) })
+		if best, ok := suggest.Closest(name, names); ok {
+			return usagef("unknown flag --%s: did you mean --%s?", name, best)
+		}
+		return usagef("unknown flag --%s (see %s -h)", name, fs.Name())
 	}
-	var names []string
-	fs.VisitAll(func(f *flag.Flag) { names = append(names, f.Name) })
-	if best, ok := suggest.Closest(name, names); ok {
-		return usagef("unknown flag --%s: did you mean --%s?", name, best)
+	if name, ok := strings.CutPrefix(msg, "flag needs an argument: -"); ok {
+		return usagef("--%s needs a value (see %s -h)", name, fs.Name())
 	}
-	return usagef("unknown flag --%s (see %s -h)", name, fs.Name())
+	// invalid boolean value "VALUE" for -NAME: CAUSE
+	if rest, ok := strings.CutPrefix(msg, "invalid boolean value "); ok {
+		if i := strings.LastIndex(rest, " for -"); i > 0 {
+			name, _, _ := strings.Cut(rest[i+len(" for -"):], ": ")
+			return usagef("--%s=%s: give true or false (or --%s alone for true)", name, rest[:i], name)
+		}
+	}
+	// invalid value "VALUE" for flag -NAME: CAUSE
+	if rest, ok := strings.CutPrefix(msg, "invalid value "); ok {
+		if i := strings.LastIndex(rest, " for flag -"); i > 0 {
+			value := rest[:i]
+			name, cause, _ := strings.Cut(rest[i+len(" for flag -"):], ": ")
+			if f := fs.Lookup(name); f != nil {
+				if g, ok := f.Value.(flag.Getter); ok {
+					switch g.Get().(type) {
+					case int, int64, uint, uint64:
+						cause = "give a whole number"
+					case float64:
+						cause = "give a number"
+					case bool:
+						cause = "give true or false"
+					}
+				}
+			}
+			return usagef("--%s %s: %s", name, value, cause)
+		}
+	}
+	return usagef("%s (see %s -h)", msg, fs.Name())
 }
 
 // dataSynopsis is the usage line of a chart that reads a data file.
@@ -206,7 +236,7 @@ func (f *floatFlag) String() string {
 func (f *floatFlag) Set(s string) error {
 	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
 	if err != nil {
-		return fmt.Errorf("%q is not a number", s)
+		return errors.New("give a number")
 	}
 	f.v = &v
 	return nil

@@ -52,10 +52,20 @@ func TestUnknownFlagPrintedOnce(t *testing.T) {
 	code, _, stderr = plumb(t, eightRegions, "bars", "-", "--qqqqqq")
 	assert.Equal(t, exitUsage, code)
 	assert.Equal(t, 1, strings.Count(stderr, "qqqqqq"), stderr)
-	// A flag missing its value is reported once, too.
-	code, _, stderr = plumb(t, eightRegions, "bars", "-", "--label")
-	assert.Equal(t, exitUsage, code)
-	assert.Equal(t, 1, strings.Count(stderr, "\n"), stderr)
+	// Bad values are reported once, in plumb's words, naming the fix.
+	for _, tc := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"bars", "-", "--label"}, "plumb: --label needs a value (see plumb bars -h)\n"},
+		{[]string{"bars", "-", "--top", "abc"}, "plumb: --top \"abc\": give a whole number\n"},
+		{[]string{"bars", "-", "--from", "x"}, "plumb: --from \"x\": give a number\n"},
+		{[]string{"lines", "-", "--together=maybe"}, "plumb: --together=\"maybe\": give true or false (or --together alone for true)\n"},
+	} {
+		code, _, stderr = plumb(t, eightRegions, tc.args...)
+		assert.Equal(t, exitUsage, code)
+		assert.Equal(t, tc.want, stderr)
+	}
 }
 
 func TestControlCharactersEscaped(t *testing.T) {
