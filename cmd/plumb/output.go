@@ -165,31 +165,36 @@ func writeReplacing(s *session, path, target string, write func(io.Writer) error
 	if err != nil {
 		return &outputError{path, bareCause(err)}
 	}
-	fail := func(err error) error {
-		tmp.Close()
-		s.remove(name)
-		return err
-	}
+	done := false
+	defer func() {
+		// Every way out but success removes the temporary file, a panic
+		// in a chart builder included.
+		if !done {
+			tmp.Close()
+			s.remove(name)
+		}
+	}()
 	if err := write(&fileWriter{tmp, path}); err != nil {
-		return fail(err)
+		return err
 	}
 	if old != nil {
 		keepOwner(tmp, old)
-		if err := tmp.Chmod(old.Mode() & (fs.ModePerm | fs.ModeSetuid | fs.ModeSetgid | fs.ModeSticky)); err != nil {
-			return fail(&outputError{path, bareCause(err)})
+		// The permission bits only: set-user-ID and set-group-ID bits are
+		// not carried over to content plumb wrote.
+		if err := tmp.Chmod(old.Mode().Perm()); err != nil {
+			return &outputError{path, bareCause(err)}
 		}
 	}
 	if err := tmp.Sync(); err != nil {
-		return fail(&outputError{path, bareCause(err)})
+		return &outputError{path, bareCause(err)}
 	}
 	if err := tmp.Close(); err != nil {
-		s.remove(name)
 		return &outputError{path, bareCause(err)}
 	}
 	if err := s.rename(name, target); err != nil {
-		s.remove(name)
 		return &outputError{path, bareCause(err)}
 	}
+	done = true
 	syncDir(filepath.Dir(target))
 	return nil
 }

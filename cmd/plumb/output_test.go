@@ -143,6 +143,16 @@ func TestOutputFailureNamesUserPathOnly(t *testing.T) {
 	assert.ErrorIs(t, err, boom)
 	assert.ElementsMatch(t, []string{"sub"}, entries(t, ro))
 
+	// Nor does a panic in the drawing.
+	func() {
+		defer func() { assert.NotNil(t, recover()) }()
+		writeOutput(target, newSession(io.Discard), func(w io.Writer) error {
+			io.WriteString(w, "partial")
+			panic("a bug in a chart builder")
+		})
+	}()
+	assert.ElementsMatch(t, []string{"sub"}, entries(t, ro))
+
 	code, _, stderr := plumb(t, eightRegions, "bars", "-", "-o", ro)
 	assert.Equal(t, exitData, code)
 	assert.Contains(t, stderr, "cannot write "+ro+": it is a folder")
