@@ -32,7 +32,7 @@ type shared struct {
 }
 
 func (s *shared) register(fs *flag.FlagSet) {
-	fs.StringVar(&s.out, "o", "", "write the figure to `FILE` (.svg); default: standard output")
+	fs.StringVar(&s.out, "o", "", "write the figure to `FILE` (.svg or no extension; - or none: standard output)")
 	fs.StringVar(&s.title, "title", "", "title above the chart")
 	fs.StringVar(&s.subtitle, "subtitle", "", "subtitle: what is measured, in what unit")
 	fs.StringVar(&s.source, "source", "", "where the numbers come from, printed under the chart")

@@ -239,5 +239,8 @@ charts:
   palette   show, make or check colour palettes
   demo      render the built-in gallery (-o DIR)
 
+Notes on standard error say what plumb changed or left out, each naming its
+figure; --explain adds routine decisions, --quiet prints none.
+
 plumb --version prints the version.
 Run 'plumb CHART -h' for the flags of one chart.`
