@@ -197,3 +197,16 @@ func TestPaletteQuietAndGrammar(t *testing.T) {
 	assert.Equal(t, exitUsage, code)
 	assert.Contains(t, stderr, pngNotYet)
 }
+
+func TestFontReadIsBounded(t *testing.T) {
+	// A sparse file just over the limit stands in for /dev/zero, which
+	// would otherwise be read until memory ran out.
+	big := filepath.Join(t.TempDir(), "huge.ttf")
+	f, err := os.Create(big)
+	require.NoError(t, err)
+	require.NoError(t, f.Truncate(maxFontBytes+1))
+	require.NoError(t, f.Close())
+	code, _, stderr := plumb(t, eightRegions, "bars", "-", "--font", big)
+	assert.Equal(t, exitData, code)
+	assert.Contains(t, stderr, "huge.ttf: more than 64 MB")
+}
