@@ -1,13 +1,15 @@
 module plumb
 
-go 1.26.8
-
-require github.com/ajstarks/svgo v0.0.0-20211024235047-1546f124cd8b
+go 1.26.0
 
 require (
-	github.com/lucasb-eyer/go-colorful v1.4.1 // indirect
-	github.com/stretchr/testify v1.12.1 // indirect
+	github.com/ajstarks/svgo v0.0.0-20211024235047-1546f124cd8b
+	github.com/lucasb-eyer/go-colorful v1.4.1
+	github.com/stretchr/testify v1.12.1
+	golang.org/x/image v0.48.0
+)
+
+require (
 	go.yaml.in/yaml/v3 v3.0.5 // indirect
-	golang.org/x/image v0.48.0 // indirect
 	golang.org/x/text v0.44.0 // indirect
 )

@@ -42,7 +42,7 @@ var ErrSize = fmt.Errorf("palette size out of range")
 // (not dark) warm hue, the pair that colour-blind readers tell apart best.
 func Categorical(n int) (Palette, error) {
 	if n < 1 || n > MaxCategorical {
-		return nil, fmt.Errorf("categorical: %d colours: %w (want 1..%d)", n, ErrSize, MaxCategorical)
+		return nil, fmt.Errorf("categorical: n = %d: %w (want 1..%d)", n, ErrSize, MaxCategorical)
 	}
 	return slices.Clone(Palette(categoricalTable[:n])), nil
 }
@@ -112,7 +112,7 @@ func lookup(kind string, t []namedRamps, name string, n int) (Palette, error) {
 			continue
 		}
 		if n < MinRamp || n > MaxRamp {
-			return nil, fmt.Errorf("%s: %d colours: %w (want %d..%d)", kind, n, ErrSize, MinRamp, MaxRamp)
+			return nil, fmt.Errorf("%s: n = %d: %w (want %d..%d)", kind, n, ErrSize, MinRamp, MaxRamp)
 		}
 		return slices.Clone(Palette(r.ramps[n-MinRamp])), nil
 	}

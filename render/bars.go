@@ -348,7 +348,7 @@ func (c *rowChart) layoutRows() (float64, error) {
 			maxLines = 1
 		}
 		if band < lh+sp.gap/2 {
-			return 0, fmt.Errorf("%d rows do not fit in a %g px high figure with %g px text: show fewer with --top, or give a taller --size", n, f.spec.height, sp.text)
+			return 0, fmt.Errorf("%d %s not fit in a %g px high figure with %g px text: show fewer with --top, or give a taller --size", n, plural(n, "row does", "rows do"), f.spec.height, sp.text)
 		}
 	}
 	wrapped, labelCol, linesUsed := c.wrapLabels((f.width-2*sp.pad)*0.38, maxLines)

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"plumb/layout"
 )
@@ -22,6 +23,11 @@ type Common struct {
 
 	Fonts     layout.Fonts // faces to measure and name; zero value: Go fonts
 	EmbedFont bool         // embed the regular face so viewers draw what was measured
+
+	// Notes are decisions the caller made before drawing, such as which
+	// columns it read and how; they open the scene's notes, so that the
+	// figure's metadata records them with the chart's own.
+	Notes []Note
 }
 
 // ErrRefused is wrapped by every error that declines to draw a misleading
@@ -87,7 +93,7 @@ func newFrame(c Common) (*frame, error) {
 	if c.EmbedFont || c.Fonts.Regular != nil {
 		f.slack = 1
 	}
-	f.scene = &Scene{Width: spec.width, Title: c.Title}
+	f.scene = &Scene{Width: spec.width, Title: c.Title, Notes: slices.Clone(c.Notes)}
 	reg := f.fonts.Face(false)
 	f.scene.Font.Family = reg.Family() + ", sans-serif"
 	if c.EmbedFont {

@@ -666,7 +666,7 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 		}
 		room := (fb - top - over) / float64(rows)
 		if room < sp.text*3 {
-			return 0, fmt.Errorf("%d rows of panels do not fit in a %g px high figure: give a taller --size, or --together for one panel", rows, f.spec.height)
+			return 0, fmt.Errorf("%d %s not fit in a %g px high figure: give a taller --size, or --together for one panel", rows, plural(rows, "row of panels does", "rows of panels do"), f.spec.height)
 		}
 		if h > room {
 			h = room

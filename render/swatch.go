@@ -124,8 +124,8 @@ func distanceAttr(d float64) string {
 // sheetDesc says in words what the sheet shows, for readers who cannot see it.
 func sheetDesc(colors []palette.SRGB, mins []float64) string {
 	var b strings.Builder
-	fmt.Fprintf(&b, "%d colours (%s) shown as seen with normal, protan, deutan and tritan colour vision.",
-		len(colors), strings.Join(palette.Palette(colors).Hex(), ", "))
+	fmt.Fprintf(&b, "%d %s (%s) shown as seen with normal, protan, deutan and tritan colour vision.",
+		len(colors), plural(len(colors), "colour", "colours"), strings.Join(palette.Palette(colors).Hex(), ", "))
 	if len(colors) < 2 {
 		return b.String()
 	}

@@ -66,6 +66,7 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 		name = d.valueCol
 	}
 	averages := f.agg != "sum" && f.agg != "count"
+	c.Notes = notes
 	return emit(chart, &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
 		if dots {
 			return render.Dots(w, d.labels, d.values, render.DotsOptions{

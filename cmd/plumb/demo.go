@@ -86,7 +86,7 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintf(stderr, "plumb: demo %s failed: %s", fig.name, errs.String())
 			return code
 		}
-		fmt.Fprintln(stderr, "wrote", path)
+		fmt.Fprintln(stderr, "wrote", terminalSafe(path))
 	}
 	return exitOK
 }

@@ -31,6 +31,7 @@ func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		return exitCode(err, stderr)
 	}
 	opt.Common = c
+	opt.Common.Notes = notes
 	return emit("diff", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
 		return render.Diff(w, x, a, b, opt)
 	})

@@ -25,7 +25,7 @@ const diffData = `x,north,south
 `
 
 func TestDiffVerticesAreDifferences(t *testing.T) {
-	code, out, stderr := plumb(t, diffData, "diff", "-", "--format", "csv")
+	code, out, stderr := plumb(t, diffData, "diff", "-", "--format", "csv", "--explain")
 	require.Equal(t, exitOK, code, stderr)
 	root := checkFigure(t, []byte(out))
 	paths := marks(t, root)["difference"]
@@ -104,7 +104,7 @@ func TestDiffAreasCloseOnBaseline(t *testing.T) {
 }
 
 func TestDiffContextPanel(t *testing.T) {
-	code, out, stderr := plumb(t, diffData, "diff", "-", "--format", "csv", "--context", "--a", "north", "--b", "south")
+	code, out, stderr := plumb(t, diffData, "diff", "-", "--format", "csv", "--explain", "--context", "--a", "north", "--b", "south")
 	require.Equal(t, exitOK, code, stderr)
 	root := checkFigure(t, []byte(out))
 	panels := root.all("g", "plumb-panel")
@@ -120,7 +120,7 @@ func TestDiffContextPanel(t *testing.T) {
 }
 
 func TestDiffMissingBreaks(t *testing.T) {
-	code, out, stderr := plumb(t, "x,a,b\n1,2,1\n2,3,1\n3,,1\n4,3,1\n5,4,1\n", "diff", "-", "--format", "csv")
+	code, out, stderr := plumb(t, "x,a,b\n1,2,1\n2,3,1\n3,,1\n4,3,1\n5,4,1\n", "diff", "-", "--format", "csv", "--explain")
 	require.Equal(t, exitOK, code, stderr)
 	root := parseSVG(t, []byte(out))
 	assert.Len(t, polylines(t, marks(t, root)["difference"][0]), 2)

@@ -205,6 +205,7 @@ func runLines(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		return exitCode(err, stderr)
 	}
 	opt.Common = c
+	opt.Common.Notes = notes
 	return emit("lines", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
 		return render.Lines(w, series, opt)
 	})

@@ -16,7 +16,7 @@ import (
 // linesSVG runs plumb lines on csv and returns the checked figure and stderr.
 func linesSVG(t *testing.T, csv string, args ...string) (*svgNode, string) {
 	t.Helper()
-	code, out, stderr := plumb(t, csv, append([]string{"lines", "-", "--format", "csv"}, args...)...)
+	code, out, stderr := plumb(t, csv, append([]string{"lines", "-", "--format", "csv", "--explain"}, args...)...)
 	require.Equal(t, exitOK, code, stderr)
 	return checkFigure(t, []byte(out)), stderr
 }
@@ -310,7 +310,7 @@ func TestLinesMillionPoints(t *testing.T) {
 		t.Skip("a million rows")
 	}
 	data := linesCSV(linesBenchRows)
-	code, out, stderr := plumb(t, string(data), "lines", "-", "--format", "csv")
+	code, out, stderr := plumb(t, string(data), "lines", "-", "--format", "csv", "--explain")
 	require.Equal(t, exitOK, code, stderr)
 	assert.Less(t, len(out), 300*1024)
 	root := parseSVG(t, []byte(out))

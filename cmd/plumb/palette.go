@@ -7,18 +7,20 @@ import (
 	"math"
 	"strings"
 
+	"plumb/internal/suggest"
 	"plumb/palette"
 	"plumb/render"
 )
 
 const paletteUsage = `usage:
-  plumb palette categorical|sequential|diverging [--n N] [--hue NAME] [--json] [-o FILE]
-  plumb palette check [--background HEX] [--json] [-o FILE] COLOR...
+  plumb palette categorical|sequential|diverging [--n N] [--hue NAME] [--json] [--quiet] [-o FILE]
+  plumb palette check [--background HEX] [--json] [--quiet] [-o FILE] COLOUR...
 
 Without --json a palette is written as an SVG swatch sheet showing the colours
 as seen with normal, protan, deutan and tritan vision. check reviews any
 colours (#rgb or #rrggbb; quote them, or leave out the '#', since the shell
-reads '#' as a comment) and exits 0 when they are safe, 1 when not.`
+reads '#' as a comment) and exits 0 when they are safe, 1 when not; with
+--quiet it prints nothing and the exit status alone answers.`
 
 // runPalette is "plumb palette": show plumb's palettes, or check colours.
 func runPalette(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
@@ -35,23 +37,36 @@ func runPalette(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stdout, paletteUsage)
 		return exitOK
 	}
-	fmt.Fprintf(stderr, "plumb palette: unknown kind %q\n%s\n", args[0], paletteUsage)
+	kinds := []string{"categorical", "sequential", "diverging", "check", "help"}
+	if best, ok := suggest.Closest(args[0], kinds); ok {
+		printError(stderr, usagef("palette: unknown kind %q: did you mean %q?", args[0], best))
+	} else {
+		printError(stderr, usagef("palette: unknown kind %q", args[0]))
+	}
+	fmt.Fprintln(stderr, paletteUsage)
 	return exitUsage
 }
 
 func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("palette "+kind, "[--n N] [--hue NAME] [--json] [-o FILE]", stderr)
-	n := fs.Int("n", 0, "number of colours (categorical 1-8, default 8; sequential and diverging 3-11, default 7 and 9)")
+	fs := newFlagSet("palette "+kind, "[--n N] [--hue NAME] [--json] [--quiet] [-o FILE]", stderr)
+	n := fs.Int("n", 0, fmt.Sprintf("number of colours (categorical 1-%d, default %d; sequential and diverging %d-%d, default 7 and 9)",
+		palette.MaxCategorical, palette.MaxCategorical, palette.MinRamp, palette.MaxRamp))
 	hue := fs.String("hue", "", "sequential: "+strings.Join(palette.SequentialHues(), ", ")+
 		"; diverging: "+strings.Join(palette.DivergingHues(), ", "))
 	asJSON := fs.Bool("json", false, `print {"kind": ..., "colors": [...]} instead of a swatch sheet`)
-	out := fs.String("o", "", "output file (default standard output)")
+	out := fs.String("o", "", "output `FILE` (.svg, or any name with --json); default standard output")
+	fs.Bool("quiet", false, "accepted for symmetry with the charts: palettes print no notes")
 	pos, err := parse(fs, args)
 	if err != nil {
 		return exitCode(err, stderr)
 	}
 	if len(pos) > 0 {
 		return exitCode(usagef("palette %s: unexpected argument %q", kind, pos[0]), stderr)
+	}
+	if !*asJSON {
+		if err := checkFigurePath(*out); err != nil {
+			return exitCode(err, stderr)
+		}
 	}
 	var (
 		p     palette.Palette
@@ -66,7 +81,7 @@ func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
 			*n = palette.MaxCategorical
 		}
 		p, err = palette.Categorical(*n)
-		title = fmt.Sprintf("Categorical palette, %d colours", *n)
+		title = fmt.Sprintf("Categorical palette, %s", colourCount(*n))
 	case "sequential":
 		if *hue == "" {
 			*hue = palette.SequentialHues()[0]
@@ -75,7 +90,7 @@ func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
 			*n = 7
 		}
 		p, err = palette.Sequential(*hue, *n)
-		title = fmt.Sprintf("Sequential palette, %s, %d colours", *hue, *n)
+		title = fmt.Sprintf("Sequential palette, %s, %s", *hue, colourCount(*n))
 	case "diverging":
 		if *hue == "" {
 			*hue = palette.DivergingHues()[0]
@@ -84,7 +99,7 @@ func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
 			*n = 9
 		}
 		p, err = palette.DivergingPair(*hue, *n)
-		title = fmt.Sprintf("Diverging palette, %s, %d colours", *hue, *n)
+		title = fmt.Sprintf("Diverging palette, %s, %s", *hue, colourCount(*n))
 	}
 	if err != nil {
 		return exitCode(usagef("%v", err), stderr)
@@ -129,13 +144,19 @@ type contrastJSON struct {
 }
 
 func runPaletteCheck(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("palette check", "[--background HEX] [--json] [-o FILE] COLOUR...", stderr)
-	bgFlag := fs.String("background", "#ffffff", "background colour the marks sit on")
+	fs := newFlagSet("palette check", "[--background HEX] [--json] [--quiet] [-o FILE] COLOUR...", stderr)
+	bgFlag := fs.String("background", "#ffffff", "background `COLOUR` the marks sit on (#rgb or #rrggbb)")
 	asJSON := fs.Bool("json", false, "print the measurements as JSON")
-	out := fs.String("o", "", "file for the JSON (with --json) or the SVG swatch sheet")
+	quiet := fs.Bool("quiet", false, "print no report; the exit status says safe (0) or not (1)")
+	out := fs.String("o", "", "`FILE` for the JSON (with --json) or the SVG swatch sheet (.svg)")
 	pos, err := parse(fs, args)
 	if err != nil {
 		return exitCode(err, stderr)
+	}
+	if !*asJSON {
+		if err := checkFigurePath(*out); err != nil {
+			return exitCode(err, stderr)
+		}
 	}
 	if len(pos) == 0 {
 		return exitCode(usagef("palette check: no colours given (want #rgb or #rrggbb)"), stderr)
@@ -153,10 +174,14 @@ func runPaletteCheck(args []string, stdout, stderr io.Writer) int {
 		colors[i] = c
 	}
 	r := palette.Check(colors, bg)
-	if *asJSON {
+	switch {
+	case *asJSON && !(*quiet && *out == ""):
 		err = writeOutput(*out, stdout, func(w io.Writer) error { return writeJSON(w, reportJSON(r)) })
-	} else {
-		writeCheckText(stdout, r)
+	case *asJSON:
+	default:
+		if !*quiet {
+			writeCheckText(stdout, r)
+		}
 		if *out != "" {
 			err = writeOutput(*out, stdout, func(w io.Writer) error {
 				return render.WritePaletteSheet(w, "Colour check", colors)
@@ -229,4 +254,12 @@ func writeCheckText(w io.Writer, r palette.Report) {
 	for _, p := range r.Problems {
 		fmt.Fprintf(w, "  - %s\n", p)
 	}
+}
+
+// colourCount is "1 colour" or "N colours".
+func colourCount(n int) string {
+	if n == 1 {
+		return "1 colour"
+	}
+	return fmt.Sprintf("%d colours", n)
 }
