@@ -5,7 +5,6 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"os"
 	"strconv"
 	"strings"
 
@@ -25,6 +24,7 @@ func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(form
 type shared struct {
 	out, title, subtitle, source, note string
 	medium, size, font, format         string
+	decimal, maxInput                  string
 	embedFont, quiet                   bool
 }
 
@@ -40,6 +40,8 @@ func (s *shared) register(fs *flag.FlagSet) {
 	fs.BoolVar(&s.embedFont, "embed-font", false, "embed the font in the SVG so every viewer draws what was measured")
 	fs.StringVar(&s.format, "format", "", "data format when the file name does not say: csv, tsv or json")
 	fs.BoolVar(&s.quiet, "quiet", false, "do not print notes on standard error")
+	fs.StringVar(&s.decimal, "decimal", "", "decimal mark of the numbers: . or , (default: decided per column from the cells)")
+	fs.StringVar(&s.maxInput, "max-input", "1GB", "read at most `SIZE` of data, such as 1GB or 200MB")
 }
 
 // common turns the shared flags into the render options they mean.
@@ -60,7 +62,7 @@ func (s *shared) common() (render.Common, error) {
 		c.Width, c.Height = wv, hv
 	}
 	if s.font != "" {
-		data, err := os.ReadFile(s.font)
+		data, err := readFileLimited(s.font, maxFontSize)
 		if err != nil {
 			return c, fmt.Errorf("--font: %w", err)
 		}

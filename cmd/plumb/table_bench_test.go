@@ -7,6 +7,8 @@ import (
 	"math/rand/v2"
 	"strconv"
 	"testing"
+
+	"plumb/internal/table"
 )
 
 // benchRows and benchLabels size the load benchmark: a million raw rows
@@ -81,7 +83,7 @@ func parseOnly(b *testing.B, data []byte, cols ...int) {
 }
 
 // BenchmarkLoadAggregate is what the CLI does before drawing bars: read
-// the table, parse the value column, and sum repeated labels.
+// the table, parse the value column, and sum by label code.
 func BenchmarkLoadAggregate(b *testing.B) {
 	data := benchCSV()
 	b.SetBytes(int64(len(data)))
@@ -95,26 +97,13 @@ func BenchmarkLoadAggregate(b *testing.B) {
 		if err != nil || len(missing) != 0 {
 			b.Fatal(err, len(missing))
 		}
-		labels, _, repeats, err := Aggregate(t.Strings("route"), vals, "sum")
+		dict, codes := t.Codes("route")
+		g, err := table.AggregateCodes(dict, codes, vals, "sum")
 		if err != nil {
 			b.Fatal(err)
 		}
-		if len(labels) != benchLabels || repeats != benchRows-benchLabels {
-			b.Fatalf("got %d labels, %d repeats", len(labels), repeats)
-		}
-	}
-}
-
-// BenchmarkNumbers isolates the number parsing of a loaded column.
-func BenchmarkNumbers(b *testing.B) {
-	t, err := ReadTable(bytes.NewReader(benchCSV()), "bench.csv", "", []string{"route", "value"})
-	if err != nil {
-		b.Fatal(err)
-	}
-	b.ReportAllocs()
-	for b.Loop() {
-		if _, _, err := t.Numbers("value"); err != nil {
-			b.Fatal(err)
+		if len(g.Labels) != benchLabels {
+			b.Fatalf("got %d labels", len(g.Labels))
 		}
 	}
 }
