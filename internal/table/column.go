@@ -114,9 +114,9 @@ type cells struct {
 	rows  int               // the most cells there can be
 
 	plain bool            // switched to the plain form
-	buf  strings.Builder // plain form: cells concatenated, until done
-	text string          // plain form after done
-	ends []int           // plain form: end of each cell in text
+	buf   strings.Builder // plain form: cells concatenated, until done
+	text  string          // plain form after done
+	ends  []int           // plain form: end of each cell in text
 }
 
 func newCells(rows int) *cells {

@@ -26,9 +26,9 @@ var (
 	// ErrAmbiguousDate is a column of dates whose day/month order no value
 	// proves; errors.Is(err, ErrBadTime) holds too.
 	ErrAmbiguousDate = fmt.Errorf("%w: ambiguous day and month order", ErrBadTime)
-	ErrTooLarge        = errors.New("input too large")
-	ErrLineTooLong     = errors.New("line too long")
-	ErrBinary          = errors.New("not a text file")
+	ErrTooLarge      = errors.New("input too large")
+	ErrLineTooLong   = errors.New("line too long")
+	ErrBinary        = errors.New("not a text file")
 )
 
 // DataError points at the input: file, 1-based line in the file (header =

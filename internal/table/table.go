@@ -87,10 +87,10 @@ type Table struct {
 	// separator, the format of standard input).
 	Notes []Note
 
-	decimal rune
-	data    []byte
-	index   map[string]int // kept column name -> position in cols
-	cols    []*column
+	decimal  rune
+	data     []byte
+	index    map[string]int // kept column name -> position in cols
+	cols     []*column
 	rows     int
 	header   int  // line of the header; 0 for JSON
 	complete bool // reading has finished

@@ -2,8 +2,8 @@ package table
 
 import (
 	"errors"
-	"io"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
@@ -207,7 +207,7 @@ func TestReadTableErrors(t *testing.T) {
 		{name: "ambiguous 1,234 in a tab file", file: "t.tsv", input: "a\tb\nx\t1,234\ny\t2,500\n",
 			numbers: "b", err: ErrMixedNumbers, line: 2, column: "b", text: "1,234", hint: "--decimal"},
 		{name: "a date among numbers", file: "n.csv", input: "a\n1\n2024-03-17\n",
-			numbers: "a", err: ErrBadNumber, line: 3, column: "a", text: "2024-03-17", hint: "looks like a date"},		{name: "unknown extension", file: "data.xlsx", input: "a\n1\n",
+			numbers: "a", err: ErrBadNumber, line: 3, column: "a", text: "2024-03-17", hint: "looks like a date"}, {name: "unknown extension", file: "data.xlsx", input: "a\n1\n",
 			err: ErrFormat, hint: "name the file .csv, .tsv or .json"},
 		{name: "unknown format", file: "data.csv", input: "a\n1\n", format: "xml",
 			err: ErrFormat, text: "xml", hint: "use --format"},
