@@ -96,7 +96,7 @@ func readX(t *Table, col, format string) (*xColumn, []render.Note, error) {
 	x.time = true
 	x.values = vals
 	notes := renderNotes(tn)
-	if format != "time" && pattern == "" {
+	if format != "time" && pattern == "" && len(notes) == 0 {
 		notes = append(notes, render.Note{Code: "dates", Text: fmt.Sprintf("read column %q as dates and times (--x-format number to treat it as numbers)", col)})
 	}
 	return x, notes, nil

@@ -294,6 +294,7 @@ func (t *Table) Times(col, pattern string) ([]float64, []Note, error) {
 	// Keep the forms that read every cell so far; the first cell that no
 	// remaining form reads is the one to name.
 	alive := make([]bool, len(autoForms))
+	diedAt := make([]int, len(autoForms)) // row where a form first failed
 	first := -1
 	for i, s := range cells {
 		if strings.TrimSpace(s) == "" {
@@ -311,7 +312,7 @@ func (t *Table) Times(col, pattern string) ([]float64, []Note, error) {
 				continue
 			}
 			if _, ok := f.read(s); !ok {
-				alive[k] = false
+				alive[k], diedAt[k] = false, i
 				continue
 			}
 			any = true
@@ -337,7 +338,13 @@ func (t *Table) Times(col, pattern string) ([]float64, []Note, error) {
 	}
 	var notes []Note
 	if !form.iso {
-		notes = append(notes, Note{Code: "date-form", Text: fmt.Sprintf("read column %q as dates written %s (say --x-format to choose)", col, form.name)})
+		why := ""
+		for k, f := range autoForms {
+			if dayMonthPair(form.name, f.name) && !alive[k] && diedAt[k] > first {
+				why = fmt.Sprintf(", as %q on line %d shows", cells[diedAt[k]], t.cellLine(slot, diedAt[k]))
+			}
+		}
+		notes = append(notes, Note{Code: "dates", Text: fmt.Sprintf("read column %q as dates written %s%s (say --x-format to choose)", col, form.name, why)})
 	}
 	return vals, notes, nil
 }
