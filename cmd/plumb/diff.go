@@ -53,7 +53,7 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 	if xcol == "" && len(t.Header) > 0 {
 		xcol = t.Header[0]
 	}
-	if t.Strings(xcol) == nil {
+	if !t.Has(xcol) {
 		return nil, nil, nil, opt, nil, t.missingColumn(xcol, 1)
 	}
 	acol, bcol := f.a, f.b

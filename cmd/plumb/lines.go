@@ -225,7 +225,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 	if xcol == "" {
 		xcol = t.Header[0]
 	}
-	if t.Strings(xcol) == nil {
+	if !t.Has(xcol) {
 		return nil, opt, nil, t.missingColumn(xcol, 1)
 	}
 	if t.Len() == 0 {

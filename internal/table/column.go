@@ -1,6 +1,7 @@
 package table
 
 import (
+	"hash/maphash"
 	"math"
 	"slices"
 	"strings"
@@ -98,7 +99,7 @@ func (c *column) done() {
 // per row into the distinct texts), which stores a label once and lets the
 // number and date readers read each distinct text once. A column whose
 // cells are mostly distinct (numbers, dates, ids) gains nothing from a
-// dictionary, so at every doubling of the row count from 1024 on, a column
+// dictionary, so at every doubling of the row count from 8192 on, a column
 // with more distinct texts than half its rows switches to plain text: all
 // cells concatenated into one string with the end offset of each.
 //
@@ -107,9 +108,9 @@ func (c *column) done() {
 // plain encoding/csv parse, half of it in garbage collection and in growing
 // those slices.
 type cells struct {
-	dict  []string          // distinct texts, while dictionary-encoded
-	ids   map[string]uint32 // text -> code, while dictionary-encoded
-	codes []uint32          // per row, while dictionary-encoded
+	dict  []string // distinct texts, while dictionary-encoded
+	ids   codeTable
+	codes []uint32 // per row, while dictionary-encoded
 	check int               // row count at which to reconsider the dictionary
 	rows  int               // the most cells there can be
 
@@ -120,7 +121,7 @@ type cells struct {
 }
 
 func newCells(rows int) *cells {
-	return &cells{ids: map[string]uint32{}, check: 1024, codes: make([]uint32, 0, min(rows, 1024)), rows: rows}
+	return &cells{ids: newCodeTable(), check: 8192, codes: make([]uint32, 0, min(rows, 8192)), rows: rows}
 }
 
 // add appends a cell.
@@ -129,9 +130,10 @@ func (c *cells) add(s string) {
 		c.addPlain(s)
 		return
 	}
-	code, ok := c.ids[s]
+	h := maphash.String(c.ids.seed, s)
+	code, ok := findCode(&c.ids, h, c.dict, s)
 	if !ok {
-		code = c.newCode(strings.Clone(s)) // the reader's string also holds the other fields of its row
+		code = c.newCode(strings.Clone(s), h) // the reader's string also holds the other fields of its row
 	}
 	c.addCode(code)
 }
@@ -146,9 +148,10 @@ func (c *cells) addBytes(b []byte) {
 		c.ends = append(grow(c.ends), c.buf.Len())
 		return
 	}
-	code, ok := c.ids[string(b)]
+	h := maphash.Bytes(c.ids.seed, b)
+	code, ok := findCode(&c.ids, h, c.dict, b)
 	if !ok {
-		code = c.newCode(string(b))
+		code = c.newCode(string(b), h)
 	}
 	c.addCode(code)
 }
@@ -161,12 +164,67 @@ func (c *cells) addPlain(s string) {
 	c.ends = append(grow(c.ends), c.buf.Len())
 }
 
-func (c *cells) newCode(s string) uint32 {
+func (c *cells) newCode(s string, h uint64) uint32 {
 	code := uint32(len(c.dict))
 	c.dict = append(c.dict, s)
-	c.ids[s] = code
+	c.ids.insert(h, code, c.dict)
 	return code
 }
+
+// codeTable maps a label's text to its code: open addressing with linear
+// probing over maphash values, comparing the bytes with the dictionary.
+// It looks a []byte cell up without converting it, and took the bars
+// benchmark's dictionary lookups from 21% of the time to about 10%
+// compared with a map[string]uint32.
+type codeTable struct {
+	seed  maphash.Seed
+	slots []uint32 // code+1, or 0 for an empty slot
+	n     int
+}
+
+func newCodeTable() codeTable {
+	return codeTable{seed: maphash.MakeSeed(), slots: make([]uint32, 64)}
+}
+
+// findCode returns the code of key, whose hash is h.
+func findCode[T ~string | ~[]byte](t *codeTable, h uint64, dict []string, key T) (uint32, bool) {
+	mask := uint64(len(t.slots) - 1)
+	for i := h & mask; ; i = (i + 1) & mask {
+		v := t.slots[i]
+		if v == 0 {
+			return 0, false
+		}
+		if d := dict[v-1]; len(d) == len(key) && d == string(key) {
+			return v - 1, true
+		}
+	}
+}
+
+// insert adds a new code, growing the table past half full.
+func (t *codeTable) insert(h uint64, code uint32, dict []string) {
+	if (t.n+1)*2 > len(t.slots) {
+		old := t.slots
+		t.slots = make([]uint32, 2*len(old))
+		t.n = 0
+		for _, v := range old {
+			if v != 0 {
+				t.put(maphash.String(t.seed, dict[v-1]), v)
+			}
+		}
+	}
+	t.put(h, code+1)
+}
+
+func (t *codeTable) put(h uint64, v uint32) {
+	mask := uint64(len(t.slots) - 1)
+	i := h & mask
+	for t.slots[i] != 0 {
+		i = (i + 1) & mask
+	}
+	t.slots[i] = v
+	t.n++
+}
+
 
 func (c *cells) addCode(code uint32) {
 	c.codes = append(grow(c.codes), code)
@@ -196,7 +254,7 @@ func (c *cells) toPlain() {
 		c.buf.WriteString(c.dict[code])
 		c.ends = append(c.ends, c.buf.Len())
 	}
-	c.dict, c.ids, c.codes = nil, nil, nil
+	c.dict, c.ids, c.codes = nil, codeTable{}, nil
 	c.plain = true
 }
 
@@ -206,7 +264,7 @@ func (c *cells) done() {
 		c.text = c.buf.String()
 		c.buf = strings.Builder{}
 	}
-	c.ids = nil
+	c.ids = codeTable{}
 }
 
 func (c *cells) len() int {
@@ -301,3 +359,6 @@ func (t *Table) Codes(col string) (dict []string, codes []uint32) {
 	}
 	return dict, codes
 }
+
+// Has reports whether column col was kept, without reading its cells.
+func (t *Table) Has(col string) bool { return t.column(col) != nil }

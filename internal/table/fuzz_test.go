@@ -200,6 +200,22 @@ func FuzzFastDecimal(f *testing.F) {
 	})
 }
 
+// FuzzScanDecimal checks that the fused scan accepts exactly the cells
+// fastDecimal accepts, with the same value, and stops at the separator.
+func FuzzScanDecimal(f *testing.F) {
+	for _, s := range []string{"12.5,x", "-0", "1.2.3", "9007199254740993", "+.5;", "1e5", "..", "5."} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		cell, _, _ := strings.Cut(s, ",")
+		want, wok := fastDecimal(cell)
+		got, n, ok := scanDecimal([]byte(s), ',')
+		if ok != wok || ok && (!sameBits(got, want) || n != len(cell)) {
+			t.Fatalf("scanDecimal(%q) = %v, %d, %v; fastDecimal(%q) = %v, %v", s, got, n, ok, cell, want, wok)
+		}
+	})
+}
+
 // FuzzSniff checks the separator sniffer: it always answers one of the
 // four separators, and a table written with a separator and consistent
 // fields is sniffed back to it.

@@ -102,6 +102,51 @@ func fastDecimal[T ~string | ~[]byte](s T) (float64, bool) {
 	return f, true
 }
 
+// scanDecimal is fastDecimal fused with the search for the field's end:
+// it reads a plain decimal from the start of b up to sep or the end of b
+// and returns the value and the bytes read. It accepts exactly what
+// fastDecimal accepts (FuzzScanDecimal), and declines everything else,
+// which then goes the general way.
+func scanDecimal(b []byte, sep byte) (float64, int, bool) {
+	i := 0
+	neg := false
+	if len(b) > 0 && (b[0] == '-' || b[0] == '+') {
+		neg = b[0] == '-'
+		i = 1
+	}
+	var mant uint64
+	start := i
+	for ; i < len(b); i++ {
+		c := b[i] - '0'
+		if c > 9 {
+			break
+		}
+		mant = mant*10 + uint64(c)
+	}
+	digits, frac := i-start, 0
+	if i < len(b) && b[i] == '.' {
+		i++
+		fs := i
+		for ; i < len(b); i++ {
+			c := b[i] - '0'
+			if c > 9 {
+				break
+			}
+			mant = mant*10 + uint64(c)
+		}
+		frac = i - fs
+		digits += frac
+	}
+	if i < len(b) && b[i] != sep || digits == 0 || digits > 19 || mant > 1<<53 || frac >= len(pow10) {
+		return 0, 0, false
+	}
+	f := float64(mant) / pow10[frac]
+	if neg {
+		f = -f
+	}
+	return f, i, true
+}
+
 // currencies are the signs read as a currency unit before or after the
 // number; the unit of the column is the sign itself.
 var currencies = []string{"US$", "A$", "C$", "$", "£", "€", "¥", "₹", "₩", "₽", "₺", "₪", "₫", "฿", "₴", "₦", "₱"}

@@ -69,6 +69,27 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 		t.starts = append(t.starts, uint32(off))
 		f := 0
 		for {
+			var c *column
+			if f < width && slots[f] >= 0 {
+				c = t.cols[slots[f]]
+			}
+			// A numeric column's cell is parsed in the same pass that
+			// finds its end; anything else is cut at the separator.
+			if c != nil && c.numeric && valid {
+				if v, n, ok := scanDecimal(line, sep); ok {
+					if c.nums == nil {
+						c.nums = make([]float64, 0, c.rows)
+					}
+					c.nums = append(c.nums, v)
+					line = line[n:]
+					f++
+					if len(line) == 0 {
+						break
+					}
+					line = line[1:]
+					continue
+				}
+			}
 			i := bytes.IndexByte(line, sep)
 			cell := line
 			if i >= 0 {
@@ -78,8 +99,8 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 				if !valid && !utf8.Valid(cell) {
 					return t.encodingError(t.lineAt(off), t.Header[f], string(cell))
 				}
-				if s := slots[f]; s >= 0 {
-					addCell(t, t.cols[s], cell)
+				if c != nil {
+					addCell(t, c, cell)
 				}
 			}
 			f++

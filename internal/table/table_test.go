@@ -389,7 +389,7 @@ func TestNumberCells(t *testing.T) {
 func TestReadTableColumnForms(t *testing.T) {
 	var b strings.Builder
 	b.WriteString("label,value,id\n")
-	const n = 5000
+	const n = 20000
 	for i := range n {
 		fmt.Fprintf(&b, "L%d,%d.5,\"id\n%d\"\n", i%7, i, i)
 	}
