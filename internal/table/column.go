@@ -111,8 +111,8 @@ type cells struct {
 	dict  []string // distinct texts, while dictionary-encoded
 	ids   codeTable
 	codes []uint32 // per row, while dictionary-encoded
-	check int               // row count at which to reconsider the dictionary
-	rows  int               // the most cells there can be
+	check int      // row count at which to reconsider the dictionary
+	rows  int      // the most cells there can be
 
 	plain bool            // switched to the plain form
 	buf   strings.Builder // plain form: cells concatenated, until done
@@ -224,7 +224,6 @@ func (t *codeTable) put(h uint64, v uint32) {
 	t.slots[i] = v
 	t.n++
 }
-
 
 func (c *cells) addCode(code uint32) {
 	c.codes = append(grow(c.codes), code)

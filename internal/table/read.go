@@ -38,7 +38,7 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 		}
 		t.Header[i] = strings.TrimSpace(h)
 	}
-	rows := bytes.Count(data[body:], []byte("\n")) + 1
+	rows := estimateRows(data[body:])
 	slots, err := t.keepColumns(want, rows)
 	if err != nil {
 		return err
@@ -47,6 +47,14 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 	sep := byte(t.Comma)
 	width := len(hdr)
 	off := body
+	// One search for the first quote replaces one per line: the lines
+	// before it take the fast path.
+	quote := len(data)
+	if t.quotes {
+		if q := bytes.IndexByte(data[body:], '"'); q >= 0 {
+			quote = body + q
+		}
+	}
 	for off < len(data) {
 		end, next := len(data), len(data)
 		if nl := bytes.IndexByte(data[off:], '\n'); nl >= 0 {
@@ -60,7 +68,7 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 			off = next
 			continue
 		}
-		if t.quotes && (slow || bytes.IndexByte(line, '"') >= 0) {
+		if t.quotes && (slow || quote < next) {
 			if err := t.readQuoted(off, slots, width, valid); err != nil {
 				return err
 			}
@@ -116,6 +124,19 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 		off = next
 	}
 	return t.finish()
+}
+
+// estimateRows bounds the rows of a body from the line feeds in its first
+// 64 KiB, with a margin, so that columns are allocated once; a guess that
+// falls short only means a column grows. Counting every line feed cost 4%
+// of the bars benchmark.
+func estimateRows(body []byte) int {
+	sample := body[:min(len(body), 64<<10)]
+	n := bytes.Count(sample, []byte("\n")) + 1
+	if len(sample) == len(body) {
+		return n
+	}
+	return int(float64(len(body))/float64(len(sample))*float64(n)*1.05) + 16
 }
 
 // readHeader reads the first record. It returns the header fields, the
