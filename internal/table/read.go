@@ -75,7 +75,8 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 			break
 		}
 		t.starts = append(t.starts, uint32(off))
-		f := 0
+		f, bad := 0, -1
+		var badText []byte
 		for {
 			var c *column
 			if f < width && slots[f] >= 0 {
@@ -104,8 +105,8 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 				cell = line[:i]
 			}
 			if f < width {
-				if !valid && !utf8.Valid(cell) {
-					return t.encodingError(t.lineAt(off), t.Header[f], string(cell))
+				if !valid && bad < 0 && !utf8.Valid(cell) {
+					bad, badText = f, cell // reported after the field count, as encoding/csv's path does
 				}
 				if c != nil {
 					addCell(t, c, cell)
@@ -119,6 +120,9 @@ func (t *Table) readDelimited(data []byte, valid bool, want []string, slow bool)
 		}
 		if f != width {
 			return t.fieldCountError(t.lineAt(off), width, f)
+		}
+		if bad >= 0 {
+			return t.encodingError(t.lineAt(off), t.Header[bad], string(badText))
 		}
 		t.rows++
 		off = next

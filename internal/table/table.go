@@ -460,6 +460,11 @@ func (t *Table) lineAt(off int) int {
 	for off < len(t.data) && (t.data[off] == '\n' || t.data[off] == '\r') {
 		off++
 	}
+	return t.rawLineAt(off)
+}
+
+// rawLineAt is the 1-based line of a byte offset.
+func (t *Table) rawLineAt(off int) int {
 	if off < t.lineOff {
 		t.lineOff, t.lineN = 0, 0
 	}
@@ -481,13 +486,13 @@ func (t *Table) cellLine(c, row int) int {
 		return line
 	}
 	// A quoted cell may span lines: ask the RFC 4180 reader where the
-	// field starts.
+	// field starts, counting from where it starts reading.
 	cr := t.csvReader(int(t.starts[row]))
 	if _, err := cr.Read(); err != nil {
 		return line
 	}
 	l, _ := cr.FieldPos(t.cols[c].field)
-	return line + l - 1
+	return t.rawLineAt(int(t.starts[row])) + l - 1
 }
 
 // csvReader is an RFC 4180 reader over the data from off.
