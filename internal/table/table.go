@@ -153,9 +153,12 @@ func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
 		return nil, err
 	}
 	t := &Table{File: file, decimal: r.Decimal}
-	if format == "" {
+	sniffed := format == ""
+	if sniffed {
 		format = sniffFormat(data)
-		t.Notes = append(t.Notes, Note{Code: "format", Text: fmt.Sprintf("read standard input as %s (say --format csv|tsv|json to choose)", strings.ToUpper(format))})
+		if format == "json" {
+			t.Notes = append(t.Notes, Note{Code: "format", Text: "read standard input as JSON (say --format csv|tsv|json to choose)"})
+		}
 	}
 	t.Format = format
 	valid := utf8.Valid(data)
@@ -172,8 +175,11 @@ func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
 			comma = def
 			if !explicit {
 				comma = sniffComma(data, t.quotes, def)
-				if comma != def {
-					t.Notes = append(t.Notes, Note{Code: "separator", Text: fmt.Sprintf("read %s as separated by %s (say --format to choose)", DisplayName(file), commaName(comma))})
+				switch {
+				case sniffed:
+					t.Notes = append(t.Notes, Note{Code: "format", Text: fmt.Sprintf("read standard input as CSV separated by %s (say --format csv, semicolon, tsv, pipe or json to choose)", commaName(comma))})
+				case comma != def:
+					t.Notes = append(t.Notes, Note{Code: "separator", Text: fmt.Sprintf("read %s as separated by %s (say --format csv, semicolon, tsv or pipe to choose)", DisplayName(file), commaName(comma))})
 				}
 			}
 		}
