@@ -307,12 +307,31 @@ func (t *Table) encodingError(line int, col, text string) *DataError {
 
 func (t *Table) fieldCountError(line, width, n int) *DataError {
 	hint := fmt.Sprintf("the header has %d %s and this row %d, separated by %s", width, plural(width, "field"), n, commaName(t.Comma))
+	if other := sniffComma(t.data, t.quotes, t.Comma); other != t.Comma {
+		// The separator was given, and the file looks separated otherwise:
+		// quoting is not the fix.
+		return &DataError{File: t.File, Line: line, Err: ErrFieldCount,
+			Hint: hint + fmt.Sprintf("; the file looks separated by %s: say --format %s", commaName(other), formatName(other))}
+	}
 	if t.quotes {
 		hint += `; quote any cell that holds the separator, as "a` + string(t.Comma) + `b"`
 	} else {
 		hint += "; a cell may not hold the separator"
 	}
 	return &DataError{File: t.File, Line: line, Err: ErrFieldCount, Hint: hint}
+}
+
+// formatName is the --format value of a separator.
+func formatName(c rune) string {
+	switch c {
+	case ';':
+		return "semicolon"
+	case '\t':
+		return "tsv"
+	case '|':
+		return "pipe"
+	}
+	return "csv"
 }
 
 func plural(n int, word string) string {

@@ -198,6 +198,8 @@ func TestReadTableErrors(t *testing.T) {
 			err: ErrMissingColumn, column: "regoin", hint: `did you mean "region"?`},
 		{name: "standard input sniffed as CSV, then a ragged row", file: "-", input: "a;b\n1;2\n3\n",
 			err: ErrFieldCount, line: 3, hint: "separated by semicolons"},
+		{name: "a semicolon file read as commas is told so, not to quote", file: "s.csv", input: "a;b\n1,5;2\n3;4\n", format: "csv",
+			err: ErrFieldCount, line: 2, hint: "looks separated by semicolons: say --format semicolon"},
 		{name: "NUL bytes", file: "z.csv", input: "a,b\n\x00\x00\x00",
 			err: ErrBinary, hint: "give a text file"},
 		{name: "mixed units", file: "u.csv", input: "a\n12%\n$5\n",
