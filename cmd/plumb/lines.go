@@ -312,6 +312,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 	if names == nil {
 		return nil, opt, nil, t.missingColumn(f.series, 1)
 	}
+	notes = append(notes, shortenNote(table.ShortenLabels(names, 0), "series name")...)
 	ys, _, err := t.Numbers(ycols[0])
 	if err != nil {
 		return nil, opt, nil, err

@@ -102,9 +102,7 @@ func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, st
 	if err != nil {
 		return nil, err
 	}
-	if k := table.ShortenLabels(g.Labels, 0); k > 0 {
-		notes = append(notes, render.Note{Code: "labels-shortened", Changed: true, Text: fmt.Sprintf("shortened %d %s longer than %d characters", k, pluralS(k, "label"), table.DefaultMaxLabel)})
-	}
+	notes = append(notes, shortenNote(table.ShortenLabels(g.Labels, 0), "label")...)
 	rows := 0
 	for i, n := range g.Rows {
 		rows += n
@@ -117,6 +115,15 @@ func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, st
 	}
 	d.labels, d.values, d.notes = g.Labels, g.Values, notes
 	return d, nil
+}
+
+// shortenNote says how many labels table.ShortenLabels shortened.
+func shortenNote(k int, what string) []render.Note {
+	if k == 0 {
+		return nil
+	}
+	return []render.Note{{Code: "labels-shortened", Changed: true,
+		Text: fmt.Sprintf("shortened %d %s longer than %d characters", k, pluralS(k, what), table.DefaultMaxLabel)}}
 }
 
 // skippedNote says which rows were left out for lack of a value.

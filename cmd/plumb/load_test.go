@@ -94,3 +94,16 @@ func TestFontLimit(t *testing.T) {
 	_, err := readFileLimited("../../go.sum", 10)
 	assert.ErrorContains(t, err, "too large for a font")
 }
+
+// TestLongLabels checks that a runaway label is shortened with a note, so
+// that the figure stays small.
+func TestLongLabels(t *testing.T) {
+	long := strings.Repeat("x", 100_000)
+	code, out, stderr := plumb(t, "k,v\n"+long+",1\nshort,2\n", "bars", "-", "--format", "csv")
+	assert.Equal(t, exitOK, code, stderr)
+	assert.Contains(t, stderr, "shortened 1 label longer than 200 characters")
+	assert.Less(t, len(out), 20_000)
+	code, _, stderr = plumb(t, "x,s,v\n1,"+long+",1\n2,"+long+",2\n1,b,3\n2,b,4\n", "lines", "-", "--series", "s", "--y", "v", "--x", "x")
+	assert.Equal(t, exitOK, code, stderr)
+	assert.Contains(t, stderr, "shortened 2 series names")
+}

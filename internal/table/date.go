@@ -18,12 +18,12 @@ type dateToken struct {
 // that MMMM is read before MMM and MM.
 var patternTokens = []string{"YYYY", "MMMM", "MMM", "MM", "M", "DD", "D", "HH", "mm", "ss", "Q"}
 
-// ParsePattern reads a date pattern in plumb's vocabulary: YYYY a
+// parsePattern reads a date pattern in plumb's vocabulary: YYYY a
 // four-digit year; MM or M a month number; DD or D a day; MMM or MMMM an
 // English month name, full or abbreviated; Q a quarter (1-4, with or
 // without a leading Q); HH, mm and ss hours, minutes and seconds. Anything
 // else stands for itself: "DD.MM.YYYY", "MMM YYYY", "YYYY-Q".
-func ParsePattern(p string) ([]dateToken, error) {
+func parsePattern(p string) ([]dateToken, error) {
 	var out []dateToken
 	for i := 0; i < len(p); {
 		matched := false
@@ -197,7 +197,7 @@ var autoForms = func() []dateForm {
 		"DD/MM/YYYY", "MM/DD/YYYY", "DD.MM.YYYY", "MM.DD.YYYY", "DD-MM-YYYY", "MM-DD-YYYY",
 		"DD/MM/YYYY HH:mm", "MM/DD/YYYY HH:mm", "DD/MM/YYYY HH:mm:ss", "MM/DD/YYYY HH:mm:ss",
 	} {
-		pat, _ := ParsePattern(p)
+		pat, _ := parsePattern(p)
 		forms = append(forms, dateForm{name: p, pat: pat})
 	}
 	return forms
@@ -278,7 +278,7 @@ func (t *Table) Times(col, pattern string) ([]float64, []Note, error) {
 	}
 	vals := make([]float64, len(cells))
 	if pattern != "" {
-		pat, err := ParsePattern(pattern)
+		pat, err := parsePattern(pattern)
 		if err != nil {
 			return nil, nil, &DataError{File: t.File, Column: col, Err: ErrBadTime, Text: pattern, Hint: err.Error()}
 		}

@@ -297,7 +297,7 @@ func FuzzDates(f *testing.F) {
 		for _, form := range autoForms {
 			form.read(s)
 		}
-		pat, err := ParsePattern(pattern)
+		pat, err := parsePattern(pattern)
 		if err != nil {
 			return
 		}
