@@ -61,9 +61,10 @@ type xColumn struct {
 	time   bool
 }
 
-// readX parses the x column: numbers, or ISO 8601 dates and times. format
-// is auto (detected with scale.DetectTime when the cells are not all
-// numbers), number or time. Every row needs an x.
+// readX parses the x column: numbers, or dates and times (Table.Times).
+// format is auto (dates when the cells are not all numbers and look like
+// dates), number, time, or a date pattern such as DD.MM.YYYY. Every row
+// needs an x.
 func readX(t *Table, col, format string) (*xColumn, []render.Note, error) {
 	pattern := ""
 	switch format {
@@ -160,7 +161,7 @@ type xFlags struct {
 func (x *xFlags) register(fs *flag.FlagSet) {
 	x.shared.register(fs)
 	fs.StringVar(&x.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
-	fs.StringVar(&x.xFormat, "x-format", "auto", "read x as auto, number or time")
+	fs.StringVar(&x.xFormat, "x-format", "auto", "read x as auto, number, time, or dates in a `PATTERN` of YYYY, MM, DD, MMM, Q, HH, mm, ss such as DD.MM.YYYY")
 	fs.StringVar(&x.unit, "unit", "", "unit of the values, such as % or t")
 	fs.StringVar(&x.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
 }
