@@ -474,7 +474,7 @@ func (t *Table) readNumbers(c *column) (*Numbers, error) {
 		}
 	}
 	// Now every distinct text gets its value, then every row.
-	grouped, paren := false, false
+	grouped, paren := "", false
 	for i := range rd {
 		r := &rd[i]
 		if r.marker >= 0 || !r.split {
@@ -518,15 +518,17 @@ func (t *Table) readNumbers(c *column) (*Numbers, error) {
 			return nil, at(ErrNotFinite, "write a finite number, or leave the cell empty to skip the row")
 		}
 		n.Values[row] = r.value
-		grouped = grouped || r.grouped
+		if r.grouped && grouped == "" {
+			grouped = r.text
+		}
 		paren = paren || r.parts.paren
 	}
 	n.Notes = append(n.Notes, markerNote(c.name, markers)...)
 	if dec == ',' && t.decimal == 0 {
 		n.Notes = append(n.Notes, Note{Code: "decimal-comma", Text: fmt.Sprintf("read column %q with a decimal comma (12,5 is 12.5); say --decimal . if the commas group thousands", c.name)})
 	}
-	if grouped {
-		n.Notes = append(n.Notes, Note{Code: "grouping", Text: fmt.Sprintf("read column %q with digits grouped in threes (1,234,567 is 1234567)", c.name)})
+	if grouped != "" {
+		n.Notes = append(n.Notes, Note{Code: "grouping", Text: fmt.Sprintf("read column %q with digits grouped in threes, such as %q", c.name, strings.TrimSpace(grouped))})
 	}
 	if paren {
 		n.Notes = append(n.Notes, Note{Code: "accounting", Text: fmt.Sprintf("read numbers in parentheses in column %q as negative: (5) is −5", c.name)})
