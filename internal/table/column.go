@@ -5,6 +5,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"unicode/utf8"
 )
 
 // column is one kept column. A column of a delimited file starts numeric:
@@ -33,15 +34,16 @@ func newColumn(name string, field, rows int, numeric bool) *column {
 	return c
 }
 
-// addCell appends one cell to c.
-func addCell[T ~string | ~[]byte](t *Table, c *column, s T) {
+// addCell appends one cell to c. It returns false, adding nothing, when
+// the cell is not valid UTF-8.
+func addCell[T ~string | ~[]byte](t *Table, c *column, s T) bool {
 	if c.numeric {
 		if v, ok := fastDecimal(s); ok {
 			if c.nums == nil {
 				c.nums = make([]float64, 0, c.rows)
 			}
 			c.nums = append(c.nums, v)
-			return
+			return true
 		}
 		if m := missingMarker(s); m >= 0 {
 			if c.nums == nil {
@@ -49,15 +51,14 @@ func addCell[T ~string | ~[]byte](t *Table, c *column, s T) {
 			}
 			c.markers[m]++
 			c.nums = append(c.nums, math.NaN())
-			return
+			return true
 		}
 		t.toText(c)
 	}
 	if b, ok := any(s).([]byte); ok {
-		c.text.addBytes(b)
-	} else {
-		c.text.add(string(s))
+		return c.text.addBytes(b)
 	}
+	return c.text.add(string(s))
 }
 
 // toText gives up the numeric form: the cells read so far are read again
@@ -124,36 +125,52 @@ func newCells(rows int) *cells {
 	return &cells{ids: newCodeTable(), check: 8192, codes: make([]uint32, 0, min(rows, 8192)), rows: rows}
 }
 
-// add appends a cell.
-func (c *cells) add(s string) {
+// add appends a cell; it returns false, adding nothing, when s is not
+// valid UTF-8. A label is checked once, when first seen.
+func (c *cells) add(s string) bool {
 	if c.plain {
+		if !utf8.ValidString(s) {
+			return false
+		}
 		c.addPlain(s)
-		return
+		return true
 	}
 	h := maphash.String(c.ids.seed, s)
 	code, ok := findCode(&c.ids, h, c.dict, s)
 	if !ok {
+		if !utf8.ValidString(s) {
+			return false
+		}
 		code = c.newCode(strings.Clone(s), h) // the reader's string also holds the other fields of its row
 	}
 	c.addCode(code)
+	return true
 }
 
 // addBytes appends a cell given as bytes; a known label costs no copy.
-func (c *cells) addBytes(b []byte) {
+// It returns false, adding nothing, when b is not valid UTF-8.
+func (c *cells) addBytes(b []byte) bool {
 	if c.plain {
+		if !utf8.Valid(b) {
+			return false
+		}
 		if c.buf.Cap()-c.buf.Len() < len(b) {
 			c.buf.Grow(max(c.buf.Cap(), len(b), 4096))
 		}
 		c.buf.Write(b)
 		c.ends = append(grow(c.ends), c.buf.Len())
-		return
+		return true
 	}
 	h := maphash.Bytes(c.ids.seed, b)
 	code, ok := findCode(&c.ids, h, c.dict, b)
 	if !ok {
+		if !utf8.Valid(b) {
+			return false
+		}
 		code = c.newCode(string(b), h)
 	}
 	c.addCode(code)
+	return true
 }
 
 func (c *cells) addPlain(s string) {

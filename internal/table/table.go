@@ -161,9 +161,8 @@ func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
 		}
 	}
 	t.Format = format
-	valid := utf8.Valid(data)
 	if format == "json" {
-		err = t.readJSON(data, valid, r.Columns)
+		err = t.readJSON(data, utf8.Valid(data), r.Columns)
 	} else {
 		data = bareCR(data)
 		t.quotes = format == "csv"
@@ -184,7 +183,7 @@ func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
 			}
 		}
 		t.Comma = comma
-		err = t.readDelimited(data, valid, r.Columns, r.slow)
+		err = t.readDelimited(data, r.Columns, r.slow)
 	}
 	if err != nil {
 		return nil, err
