@@ -306,3 +306,31 @@ func FuzzDates(f *testing.F) {
 		}
 	})
 }
+
+// TestMappedAgrees reads every fixture from its file (mapped into memory
+// where the system allows) and from a copy in memory: same table, same
+// error.
+func TestMappedAgrees(t *testing.T) {
+	fixtures, _ := filepath.Glob("../../testdata/data/*")
+	for _, name := range fixtures {
+		f, err := os.Open(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		data, _ := os.ReadFile(name)
+		a, err1 := (&Reader{}).Read(f, name)
+		f.Close()
+		b, err2 := (&Reader{}).Read(bytes.NewReader(data), name)
+		if (err1 == nil) != (err2 == nil) || err1 != nil && err1.Error() != err2.Error() {
+			t.Fatalf("%s: mapped error %v, read error %v", name, err1, err2)
+		}
+		if err1 != nil {
+			continue
+		}
+		for _, col := range a.Header {
+			if col != "" && !slices.Equal(a.Strings(col), b.Strings(col)) {
+				t.Errorf("%s: column %q differs", name, col)
+			}
+		}
+	}
+}

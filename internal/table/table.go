@@ -24,6 +24,7 @@ import (
 	"io/fs"
 	"math"
 	"path/filepath"
+	"runtime/debug"
 	"strings"
 	"unicode/utf8"
 )
@@ -115,7 +116,7 @@ const maxLine = math.MaxInt32
 
 // Read reads the whole input. file names it in messages and, unless Format
 // is set, gives the format by its extension. Every error is a *DataError.
-func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
+func (r *Reader) Read(in io.Reader, file string) (tab *Table, err error) {
 	format := strings.ToLower(strings.TrimPrefix(r.Format, "."))
 	comma := r.Comma
 	explicit := format != ""
@@ -144,8 +145,30 @@ func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
 			format = "csv"
 		}
 	}
-	data, err := r.readAll(in, file, format)
+	limit := r.MaxInput
+	if limit <= 0 {
+		limit = DefaultMaxInput
+	}
+	data := mapFile(in, limit)
+	mapped := data
+	if data != nil {
+		// A mapped file cut short by another program faults on access;
+		// that is reported as an error, not a crash.
+		defer debug.SetPanicOnFault(debug.SetPanicOnFault(true))
+		defer func() {
+			if p := recover(); p != nil {
+				if _, fault := p.(interface{ Addr() uintptr }); !fault {
+					panic(p)
+				}
+				tab, err = nil, &DataError{File: file, Err: ErrSyntax, Hint: "the file changed while it was read; read it again"}
+			}
+		}()
+		err = r.checkMapped(data, file, format)
+	} else {
+		data, err = r.readAll(in, file, format)
+	}
 	if err != nil {
+		releaseNow(mapped)
 		return nil, err
 	}
 	data, err = skipBOM(data, file)
@@ -153,6 +176,9 @@ func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
 		return nil, err
 	}
 	t := &Table{File: file, decimal: r.Decimal}
+	if mapped != nil {
+		releaseMap(t, mapped)
+	}
 	sniffed := format == ""
 	if sniffed {
 		format = sniffFormat(data)
@@ -164,7 +190,7 @@ func (r *Reader) Read(in io.Reader, file string) (*Table, error) {
 	if format == "json" {
 		err = t.readJSON(data, utf8.Valid(data), r.Columns)
 	} else {
-		data = bareCR(data)
+		data = bareCR(data, mapped != nil)
 		t.quotes = format == "csv"
 		if comma == 0 {
 			def := ','
@@ -271,6 +297,38 @@ func (r *Reader) readAll(in io.Reader, file, format string) ([]byte, error) {
 	}
 }
 
+// checkMapped applies readAll's checks to a file mapped whole: NUL bytes in
+// the first block, and for a delimited file a line past MaxLine.
+func (r *Reader) checkMapped(data []byte, file, format string) error {
+	maxLine := r.MaxLine
+	if maxLine <= 0 {
+		maxLine = DefaultMaxLine
+	}
+	first := data[:min(len(data), 1<<20)]
+	if bytes.IndexByte(first, 0) >= 0 && !utf16BOM(first) {
+		return &DataError{File: file, Err: ErrBinary, Hint: "give a text file: CSV, TSV or JSON saved as UTF-8"}
+	}
+	if format == "json" || (format == "" && sniffFormat(first) == "json") {
+		return nil
+	}
+	// Each window of maxLine+1 bytes from the last line break must hold
+	// another; the last break in it is found from its end, in a few bytes.
+	for off := 0; len(data)-off > maxLine; {
+		w := data[off : off+maxLine+1]
+		n := bytes.LastIndexByte(w, '\n')
+		if n < 0 {
+			n = bytes.LastIndexByte(w, '\r')
+		}
+		if n < 0 {
+			line := 1 + bytes.Count(data[:off], []byte("\n"))
+			return &DataError{File: file, Line: line, Err: ErrLineTooLong,
+				Hint: fmt.Sprintf("a line may hold at most %s without a line break; check that this is a table with one row per line", byteSize(int64(maxLine)))}
+		}
+		off += n + 1
+	}
+	return nil
+}
+
 func utf16BOM(b []byte) bool {
 	return bytes.HasPrefix(b, []byte("\xFE\xFF")) || bytes.HasPrefix(b, []byte("\xFF\xFE")) ||
 		bytes.HasPrefix(b, []byte("\x00\x00\xFE\xFF"))
@@ -339,12 +397,16 @@ func skipBOM(data []byte, file string) ([]byte, error) {
 }
 
 // bareCR turns carriage returns that no line feed follows into line feeds,
-// in place, so that files with classic Mac line ends read as lines. CRLF
-// is left alone: both readers drop the CR before LF.
-func bareCR(data []byte) []byte {
+// so that files with classic Mac line ends read as lines: in place, or in
+// a copy when data is read-only (a mapped file). CRLF is left alone: both
+// readers drop the CR before LF.
+func bareCR(data []byte, readOnly bool) []byte {
 	i := bytes.IndexByte(data, '\r')
 	for i >= 0 {
 		if i+1 == len(data) || data[i+1] != '\n' {
+			if readOnly {
+				data, readOnly = bytes.Clone(data), false
+			}
 			data[i] = '\n'
 		}
 		j := bytes.IndexByte(data[i+1:], '\r')
