@@ -249,7 +249,10 @@ func (r *Reader) readAll(in io.Reader, file, format string) ([]byte, error) {
 		size = v.Len()
 	case interface{ Stat() (fs.FileInfo, error) }:
 		if fi, err := v.Stat(); err == nil && fi.Mode().IsRegular() {
-			size = int(min(fi.Size(), limit)) // only a hint: the reading below enforces the limit
+			if fi.Size() > limit {
+				return nil, tooLarge(file, limit)
+			}
+			size = int(fi.Size()) // only a hint: the reading below enforces the limit
 		}
 	}
 	if int64(size) > limit {
