@@ -56,9 +56,12 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 	default:
 		return exitCode(usagef("--order %q: use value, label or data", f.order), stderr)
 	}
-	d, err := loadLabelled(path, f.format, f.label, f.value, f.agg, stdin)
+	d, err := loadLabelled(path, f.readOptions(), f.label, f.value, f.agg, stdin)
 	if err != nil {
 		return exitCode(err, stderr)
+	}
+	if f.unit == "" {
+		f.unit = d.unit // the sign the cells carry, such as % or $
 	}
 	notes := d.notes
 	name := f.valueName

@@ -39,16 +39,11 @@ func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 
 // loadDiff reads the x, a and b columns, in x order.
 func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, opt render.DiffOptions, notes []render.Note, err error) {
-	r, format, done, notes, err := openData(path, f.format, stdin)
-	if err != nil {
-		return nil, nil, nil, opt, nil, err
-	}
-	defer done()
 	var want []string
 	if f.x != "" && f.a != "" && f.b != "" {
 		want = []string{f.x, f.a, f.b}
 	}
-	t, err := ReadTable(r, path, format, want)
+	t, notes, err := readData(path, f.readOptions(), want, stdin)
 	if err != nil {
 		return nil, nil, nil, opt, nil, err
 	}
@@ -59,24 +54,12 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 	if xcol == "" && len(t.Header) > 0 {
 		xcol = t.Header[0]
 	}
-	if t.Strings(xcol) == nil {
+	if !t.Has(xcol) {
 		return nil, nil, nil, opt, nil, t.missingColumn(xcol, 1)
 	}
 	acol, bcol := f.a, f.b
 	if acol == "" || bcol == "" {
-		var nums []string
-		var first error
-		for _, h := range t.Header {
-			if h == xcol || h == acol || h == bcol {
-				continue
-			}
-			_, _, err := t.Numbers(h)
-			if err == nil {
-				nums = append(nums, h)
-			} else if first == nil {
-				first = err
-			}
-		}
+		nums, first := t.NumericColumns(xcol, []string{acol, bcol}, 2, false)
 		if acol == "" && len(nums) > 0 {
 			acol, nums = nums[0], nums[1:]
 		}
@@ -113,7 +96,11 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 		x, av, bv = pick(x, rows), pick(av, rows), pick(bv, rows)
 		notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
 	}
+	notes = append(notes, t.numberNotes(acol, bcol)...)
 	opt = render.DiffOptions{Time: xc.time, AName: acol, BName: bcol, Context: f.context, Unit: f.unit, XName: f.xName}
+	if opt.Unit == "" {
+		opt.Unit = t.unitOf(acol, bcol)
+	}
 	if opt.XName == "" && !xc.time {
 		opt.XName = xcol
 	}

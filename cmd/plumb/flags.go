@@ -27,6 +27,7 @@ func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(form
 type shared struct {
 	out, title, subtitle, source, note string
 	medium, size, font, format         string
+	decimal, maxInput                  string
 	embedFont, quiet, explain          bool
 	data                               string // the data path, set by parseChart; names the figure in notes
 }
@@ -41,9 +42,11 @@ func (s *shared) register(fs *flag.FlagSet) {
 	fs.StringVar(&s.size, "size", "", "canvas size `WxH` in pixels (H may be 0 to let the chart choose)")
 	fs.StringVar(&s.font, "font", "", "measure text with this TTF/OTF `FILE` and name it in the figure")
 	fs.BoolVar(&s.embedFont, "embed-font", false, "embed the font in the SVG so every viewer draws what was measured")
-	fs.StringVar(&s.format, "format", "", "data format when the file name does not say: csv, tsv or json")
+	fs.StringVar(&s.format, "format", "", "data format when the file name does not say: csv, tsv, json, semicolon or pipe")
 	fs.BoolVar(&s.quiet, "quiet", false, "print no notes on standard error (errors still print)")
 	fs.BoolVar(&s.explain, "explain", false, "also print routine decisions (columns chosen, types guessed, banking) on standard error; the SVG's metadata always has them")
+	fs.StringVar(&s.decimal, "decimal", "", "decimal mark of the numbers: . or , (default: decided per column from the cells)")
+	fs.StringVar(&s.maxInput, "max-input", "1GB", "read at most `SIZE` of data, such as 1GB or 200MB")
 }
 
 // common turns the shared flags into the render options they mean.

@@ -11,13 +11,14 @@ import (
 	"strconv"
 	"strings"
 
+	"plumb/internal/table"
 	"plumb/render"
 	"plumb/scale"
 )
 
 // Causes of a DataError specific to x columns.
 var (
-	ErrBadTime    = errors.New("not a date or time")
+	ErrBadTime    = table.ErrBadTime
 	ErrDuplicateX = errors.New("two rows share one x value")
 )
 
@@ -60,17 +61,22 @@ type xColumn struct {
 	time   bool
 }
 
-// readX parses the x column: numbers, or ISO 8601 dates and times. format
-// is auto (detected with scale.DetectTime when the cells are not all
-// numbers), number or time. Every row needs an x.
+// readX parses the x column: numbers, or dates and times (Table.Times).
+// format is auto (dates when the cells are not all numbers and look like
+// dates), number, time, or a date pattern such as DD.MM.YYYY. Every row
+// needs an x.
 func readX(t *Table, col, format string) (*xColumn, []render.Note, error) {
+	pattern := ""
 	switch format {
 	case "", "auto", "number", "time":
 	default:
-		return nil, nil, usagef("--x-format %q: use auto, number or time", format)
+		if !strings.Contains(format, "YYYY") {
+			return nil, nil, usagef("--x-format %q: use auto, number, time or a date pattern such as DD.MM.YYYY or MMM YYYY", format)
+		}
+		pattern = format
 	}
 	x := &xColumn{name: col}
-	if format != "time" {
+	if format != "time" && pattern == "" {
 		vals, missing, err := t.Numbers(col)
 		if err == nil && len(missing) > 0 {
 			return nil, nil, &DataError{File: t.File, Line: t.Line(missing[0]), Column: col, Err: ErrBadNumber,
@@ -80,29 +86,18 @@ func readX(t *Table, col, format string) (*xColumn, []render.Note, error) {
 			x.values = vals
 			return x, nil, nil
 		}
-		if format == "number" {
-			return nil, nil, err
-		}
-		if !looksLikeTime(t.Strings(col)) {
+		if format == "number" || !t.LooksLikeDates(col) {
 			return nil, nil, err
 		}
 	}
-	cells := t.Strings(col)
-	if cells == nil {
-		return nil, nil, t.missingColumn(col, 1)
+	vals, tn, err := t.Times(col, pattern)
+	if err != nil {
+		return nil, nil, err
 	}
 	x.time = true
-	x.values = make([]float64, len(cells))
-	for i, s := range cells {
-		tm, _, err := scale.ParseTime(s)
-		if err != nil {
-			return nil, nil, &DataError{File: t.File, Line: t.Line(i), Column: col, Text: s, Err: &badTime{text: s, cause: err},
-				Hint: "write dates as 2024, 2024-03, 2024-03-17 or 2024-03-17T08:30:00Z (ISO 8601), or give --x-format number for plain numbers"}
-		}
-		x.values[i] = float64(tm.Unix()) + float64(tm.Nanosecond())/1e9
-	}
-	var notes []render.Note
-	if format != "time" {
+	x.values = vals
+	notes := renderNotes(tn)
+	if format != "time" && pattern == "" && len(notes) == 0 {
 		notes = append(notes, render.Note{Code: "dates", Text: fmt.Sprintf("read column %q as dates and times (--x-format number to treat it as numbers)", col)})
 	}
 	return x, notes, nil
@@ -166,7 +161,7 @@ type xFlags struct {
 func (x *xFlags) register(fs *flag.FlagSet) {
 	x.shared.register(fs)
 	fs.StringVar(&x.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
-	fs.StringVar(&x.xFormat, "x-format", "auto", "read x as auto, number or time")
+	fs.StringVar(&x.xFormat, "x-format", "auto", "read x as auto, number, time, or dates in a `PATTERN` of YYYY, MM, DD, MMM, Q, HH, mm, ss such as DD.MM.YYYY")
 	fs.StringVar(&x.unit, "unit", "", "unit of the values, such as % or t")
 	fs.StringVar(&x.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
 }
@@ -214,11 +209,6 @@ func runLines(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 // loadLines reads the table and builds the series, wide or long.
 func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, render.LinesOptions, []render.Note, error) {
 	var opt render.LinesOptions
-	r, format, done, notes, err := openData(path, f.format, stdin)
-	if err != nil {
-		return nil, opt, nil, err
-	}
-	defer done()
 	var want []string
 	if f.x != "" && len(f.y) > 0 {
 		want = append([]string{f.x}, f.y...)
@@ -226,7 +216,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 			want = append(want, f.series)
 		}
 	}
-	t, err := ReadTable(r, path, format, want)
+	t, notes, err := readData(path, f.readOptions(), want, stdin)
 	if err != nil {
 		return nil, opt, nil, err
 	}
@@ -237,7 +227,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 	if xcol == "" {
 		xcol = t.Header[0]
 	}
-	if t.Strings(xcol) == nil {
+	if !t.Has(xcol) {
 		return nil, opt, nil, t.missingColumn(xcol, 1)
 	}
 	if t.Len() == 0 {
@@ -245,21 +235,12 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 	}
 	ycols := []string(f.y)
 	if len(ycols) == 0 {
-		var first error
-		for _, h := range t.Header {
-			if h == xcol || h == f.series || slices.Index(t.Header, h) < slices.Index(t.Header, xcol) {
-				continue
-			}
-			_, _, err := t.Numbers(h)
-			if err == nil {
-				ycols = append(ycols, h)
-				if f.series != "" {
-					break
-				}
-			} else if first == nil {
-				first = err
-			}
+		n := 0
+		if f.series != "" {
+			n = 1
 		}
+		var first error
+		ycols, first = t.NumericColumns(xcol, []string{f.series}, n, true)
 		if len(ycols) == 0 && first != nil {
 			// The first candidate's bad cell is the likeliest mistake.
 			return nil, opt, nil, first
@@ -277,7 +258,11 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 		return nil, opt, nil, err
 	}
 	notes = append(notes, xn...)
+	notes = append(notes, t.numberNotes(ycols...)...)
 	opt = render.LinesOptions{Time: x.time, Aspect: f.aspect, Together: f.together, Unit: f.unit, XName: f.xName, YName: f.yName}
+	if opt.Unit == "" {
+		opt.Unit = t.unitOf(ycols...)
+	}
 	if opt.XName == "" && !x.time {
 		opt.XName = xcol
 	}
@@ -329,6 +314,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 	if names == nil {
 		return nil, opt, nil, t.missingColumn(f.series, 1)
 	}
+	notes = append(notes, shortenNote(table.ShortenLabels(names, 0), "series name")...)
 	ys, _, err := t.Numbers(ycols[0])
 	if err != nil {
 		return nil, opt, nil, err

@@ -1,13 +1,11 @@
 package main
 
 import (
-	"bufio"
-	"bytes"
 	"fmt"
 	"io"
-	"os"
 	"strings"
 
+	"plumb/internal/table"
 	"plumb/render"
 )
 
@@ -16,7 +14,9 @@ type labelled struct {
 	labels             []string
 	values             []float64
 	labelCol, valueCol string
-	notes              []render.Note
+	// unit is the unit the value cells carry ("%", "$"), "" for none.
+	unit  string
+	notes []render.Note
 	// repeated lists the labels that occurred on more than one row, with
 	// their row counts, in order of first appearance: values that were
 	// combined, which decides whether they may be summed further into Other.
@@ -29,126 +29,150 @@ type labelCount struct {
 	n     int
 }
 
-// countRepeats returns the labels that occur more than once, with their
-// counts, in order of first appearance.
-func countRepeats(labels []string) []labelCount {
-	n := make(map[string]int, min(len(labels), 1024))
-	for _, l := range labels {
-		n[l]++
-	}
-	var out []labelCount
-	for _, l := range labels {
-		if c := n[l]; c > 1 {
-			out = append(out, labelCount{l, c})
-			n[l] = 0
-		}
-	}
-	return out
-}
-
-// openData opens a data file, or standard input for "-". For standard input
-// without --format it looks at the first bytes to tell JSON, TSV and CSV
-// apart, and says so in a note.
-func openData(path, format string, stdin io.Reader) (io.Reader, string, func(), []render.Note, error) {
-	if path != "-" {
-		fh, err := os.Open(path)
-		if err != nil {
-			return nil, "", nil, nil, fmt.Errorf("cannot read the data: %w", err)
-		}
-		return fh, format, func() { fh.Close() }, nil, nil
-	}
-	br := bufio.NewReaderSize(stdin, 64<<10)
-	if format != "" {
-		return br, format, func() {}, nil, nil
-	}
-	head, _ := br.Peek(4096)
-	format = sniffFormat(head)
-	return br, format, func() {}, []render.Note{{Code: "format", Text: fmt.Sprintf("read standard input as %s (say --format csv|tsv|json to choose)", strings.ToUpper(format))}}, nil
-}
-
-// sniffFormat guesses the format of data from its first bytes.
-func sniffFormat(head []byte) string {
-	trimmed := bytes.TrimLeft(bytes.TrimPrefix(head, []byte("\xef\xbb\xbf")), " \t\r\n")
-	if len(trimmed) > 0 && trimmed[0] == '[' {
-		return "json"
-	}
-	line, _, _ := bytes.Cut(trimmed, []byte("\n"))
-	if bytes.Count(line, []byte("\t")) > 0 && bytes.Count(line, []byte(",")) == 0 {
-		return "tsv"
-	}
-	return "csv"
-}
+// countRows is the value name of a chart that counts rows.
+const countRows = "count of rows"
 
 // loadLabelled reads a label column and a value column, skips rows with a
-// missing value (with a note), and combines repeated labels with agg.
-func loadLabelled(path, format, labelCol, valueCol, agg string, stdin io.Reader) (*labelled, error) {
-	switch agg {
-	case "sum", "mean", "median", "count", "min", "max":
-	default:
+// missing value (with a note), and combines repeated labels with agg. With
+// agg "count" and no value column it counts the rows of each label, and
+// no value column is needed.
+func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, stdin io.Reader) (*labelled, error) {
+	if !containsString(table.Aggregations, agg) {
 		return nil, usagef("--agg %q: use sum, mean, median, count, min or max", agg)
 	}
-	r, format, done, notes, err := openData(path, format, stdin)
-	if err != nil {
-		return nil, err
-	}
-	defer done()
+	counting := agg == "count" && valueCol == ""
 	var want []string
-	if labelCol != "" && valueCol != "" {
+	switch {
+	case labelCol != "" && valueCol != "":
 		want = []string{labelCol, valueCol}
+	case labelCol != "" && counting:
+		want = []string{labelCol}
 	}
-	t, err := ReadTable(r, path, format, want)
+	t, notes, err := readData(path, o, want, stdin)
 	if err != nil {
 		return nil, err
 	}
-	if labelCol == "" || valueCol == "" {
-		labelCol, valueCol, err = guessColumns(t, labelCol, valueCol)
+	if labelCol == "" && len(t.Header) > 0 {
+		labelCol = t.Header[0]
+		if labelCol == valueCol && len(t.Header) > 1 {
+			labelCol = t.Header[1]
+		}
+	}
+	if !counting && (len(t.Header) < 2 || labelCol == valueCol) {
+		return nil, tooFewColumns(t, "a chart needs a label column and a value column")
+	}
+	if valueCol == "" && !counting {
+		cols, err := t.NumericColumns(labelCol, nil, 1, false)
 		if err != nil {
 			return nil, err
 		}
+		if len(cols) == 0 {
+			return nil, tooFewColumns(t, "a chart needs a label column and a value column")
+		}
+		valueCol = cols[0]
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for labels and %q for values (choose with --label and --value)", labelCol, valueCol)})
 	}
-	labels := t.Strings(labelCol)
-	if labels == nil {
+	dict, codes := t.Codes(labelCol)
+	if dict == nil {
 		return nil, t.missingColumn(labelCol, 1)
 	}
-	values, missing, err := t.Numbers(valueCol)
+	d := &labelled{labelCol: labelCol, valueCol: valueCol}
+	var values []float64
+	if counting {
+		d.valueCol = countRows
+		notes = append(notes, render.Note{Code: "count", Text: fmt.Sprintf("counting the rows of each %q", labelCol)})
+	} else {
+		n, err := t.ReadNumbers(valueCol)
+		if err != nil {
+			return nil, err
+		}
+		values, d.unit = n.Values, n.Unit
+		notes = append(notes, renderNotes(n.Notes)...)
+		if len(n.Missing) > 0 {
+			notes = append(notes, skippedNote(t, n.Missing, valueCol))
+		}
+		if len(n.Missing) == len(values) {
+			return nil, &DataError{File: path, Column: valueCol, Err: ErrEmpty, Hint: "every row lacks a value; check the column name and the file"}
+		}
+		if agg == "count" {
+			d.valueCol = countRows + " with a " + valueCol
+		}
+	}
+	g, err := table.AggregateCodes(dict, codes, values, agg)
 	if err != nil {
 		return nil, err
 	}
-	if len(missing) > 0 {
-		skip := make(map[int]bool, len(missing))
-		lines := make([]string, 0, 8)
-		for i, m := range missing {
-			skip[m] = true
-			if i < 8 {
-				lines = append(lines, fmt.Sprint(t.Line(m)))
-			}
+	notes = append(notes, shortenNote(table.ShortenLabels(g.Labels, 0), "label")...)
+	rows := 0
+	for i, n := range g.Rows {
+		rows += n
+		if n > 1 {
+			d.repeated = append(d.repeated, labelCount{g.Labels[i], n})
 		}
-		if len(missing) > 8 {
-			lines = append(lines, "…")
+	}
+	if len(d.repeated) > 0 && !counting {
+		notes = append(notes, combinedNote(d.repeated, agg, len(g.Labels)))
+	}
+	d.labels, d.values, d.notes = g.Labels, g.Values, notes
+	return d, nil
+}
+
+// shortenNote says how many labels table.ShortenLabels shortened.
+func shortenNote(k int, what string) []render.Note {
+	if k == 0 {
+		return nil
+	}
+	return []render.Note{{Code: "labels-shortened", Changed: true,
+		Text: fmt.Sprintf("shortened %d %s longer than %d characters", k, pluralS(k, what), table.DefaultMaxLabel)}}
+}
+
+// skippedNote says which rows were left out for lack of a value.
+func skippedNote(t *Table, missing []int, col string) render.Note {
+	lines := make([]string, 0, 9)
+	for _, m := range missing[:min(len(missing), 8)] {
+		lines = append(lines, fmt.Sprint(t.Line(m)))
+	}
+	if len(missing) > 8 {
+		lines = append(lines, "…")
+	}
+	return render.Note{Code: "rows-skipped", Changed: true, Text: fmt.Sprintf("skipped %d %s with no value in column %q (%s %s)",
+		len(missing), pluralS(len(missing), "row"), col, pluralS(len(lines), "line"), strings.Join(lines, ", "))}
+}
+
+// maxNamed is how many repeated labels the combined note names before
+// "and k more".
+const maxNamed = 5
+
+// combinedNote names the labels that were combined and how many rows each
+// had: two different places that share a name are summed into one bar,
+// and the reader should see which.
+func combinedNote(rep []labelCount, agg string, remain int) render.Note {
+	rows := 0
+	for _, r := range rep {
+		rows += r.n
+	}
+	var b strings.Builder
+	fmt.Fprintf(&b, "combined %d rows into %d %s by %s (--agg %s): ", rows, len(rep), pluralS(len(rep), "label"), aggWord(agg), agg)
+	for i, r := range rep[:min(len(rep), maxNamed)] {
+		if i > 0 {
+			b.WriteString(", ")
 		}
-		kl, kv := labels[:0:0], values[:0:0]
-		for i := range labels {
-			if !skip[i] {
-				kl, kv = append(kl, labels[i]), append(kv, values[i])
-			}
+		fmt.Fprintf(&b, "%q (%d rows)", r.label, r.n)
+	}
+	if len(rep) > maxNamed {
+		fmt.Fprintf(&b, " and %d more", len(rep)-maxNamed)
+	}
+	fmt.Fprintf(&b, "; %d %s remain", remain, pluralS(remain, "category"))
+	return render.Note{Code: "combined", Changed: true, Text: b.String()}
+}
+
+func containsString(list []string, s string) bool {
+	for _, l := range list {
+		if l == s {
+			return true
 		}
-		labels, values = kl, kv
-		notes = append(notes, render.Note{Code: "rows-skipped", Changed: true, Text: fmt.Sprintf("skipped %d %s with no value in column %q (%s %s)",
-			len(missing), pluralS(len(missing), "row"), valueCol, pluralS(len(lines), "line"), strings.Join(lines, ", "))})
 	}
-	if len(values) == 0 {
-		return nil, &DataError{File: path, Column: valueCol, Err: ErrEmpty, Hint: "every row lacks a value; check the column name and the file"}
-	}
-	repeated := countRepeats(labels)
-	labels, values, repeats, err := Aggregate(labels, values, agg)
-	if err != nil {
-		return nil, err
-	}
-	if repeats > 0 {
-		notes = append(notes, render.Note{Code: "combined", Changed: true, Text: fmt.Sprintf("combined %d repeated %s by %s (--agg %s); %d categories remain", repeats, pluralS(repeats, "label"), aggWord(agg), agg, len(labels))})
-	}
-	return &labelled{labels: labels, values: values, labelCol: labelCol, valueCol: valueCol, notes: notes, repeated: repeated}, nil
+	return false
 }
 
 func aggWord(agg string) string {
@@ -171,49 +195,15 @@ func pluralS(n int, word string) string {
 	if n == 1 {
 		return word
 	}
+	if strings.HasSuffix(word, "y") {
+		return word[:len(word)-1] + "ies"
+	}
 	return word + "s"
-}
-
-// guessColumns picks the first column as labels and the first column after
-// it whose cells read as numbers as values, filling whichever is not given.
-func guessColumns(t *Table, labelCol, valueCol string) (string, string, error) {
-	if len(t.Header) < 2 {
-		return "", "", tooFewColumns(t, "a chart needs a label column and a value column")
-	}
-	if labelCol == "" {
-		labelCol = t.Header[0]
-		if labelCol == valueCol {
-			labelCol = t.Header[1]
-		}
-	}
-	if valueCol == "" {
-		// The first column after the labels that reads as numbers; when
-		// none does, the first candidate's own error says why (a bad cell
-		// in the column the user most likely meant).
-		var first error
-		for _, h := range t.Header {
-			if h == labelCol {
-				continue
-			}
-			_, _, err := t.Numbers(h)
-			if err == nil {
-				valueCol = h
-				break
-			}
-			if first == nil {
-				first = err
-			}
-		}
-		if valueCol == "" {
-			return "", "", first
-		}
-	}
-	return labelCol, valueCol, nil
 }
 
 // tooFewColumns says that the data lacks the columns a chart needs, listing
 // the ones it has.
 func tooFewColumns(t *Table, need string) error {
 	return fmt.Errorf("%s: line 1: the data has %d %s (%s); %s",
-		displayName(t.File), len(t.Header), pluralS(len(t.Header), "column"), strings.Join(t.Header, ", "), need)
+		table.DisplayName(t.File), len(t.Header), pluralS(len(t.Header), "column"), strings.Join(t.Header, ", "), need)
 }

@@ -131,12 +131,12 @@ func TestNotesNameTheirFigureAndFilter(t *testing.T) {
 	// Default: only what changed the data (combined labels), named by -o.
 	code, _, stderr := plumb(t, "", "bars", data, "-o", out)
 	require.Equal(t, exitOK, code, stderr)
-	assert.Equal(t, "plumb: "+out+": note: combined 1 repeated label by adding them up (--agg sum); 2 categories remain\n", stderr)
+	assert.Equal(t, "plumb: "+out+": note: combined 2 rows into 1 label by adding them up (--agg sum): \"Tea\" (2 rows); 2 categories remain\n", stderr)
 
 	// --explain adds the routine ones (the columns guessed).
 	_, _, stderr = plumb(t, "", "bars", data, "-o", out, "--explain")
 	assert.Contains(t, stderr, "plumb: "+out+`: note: using column "product" for labels`)
-	assert.Contains(t, stderr, "combined 1 repeated label")
+	assert.Contains(t, stderr, "combined 2 rows into 1 label")
 
 	// The SVG's metadata has the decisions whatever stderr shows.
 	svg, err := os.ReadFile(out)

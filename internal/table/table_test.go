@@ -1,8 +1,9 @@
-package main
+package table
 
 import (
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
@@ -30,6 +31,11 @@ func sameFloats(a, b []float64) bool {
 }
 
 var nan = math.NaN()
+
+// ReadTable reads with the zero Reader but for the format and columns.
+func ReadTable(r io.Reader, file, format string, want []string) (*Table, error) {
+	return (&Reader{Format: format, Columns: want}).Read(r, file)
+}
 
 func TestReadTableGood(t *testing.T) {
 	tests := []struct {
@@ -141,9 +147,7 @@ func TestReadTableErrors(t *testing.T) {
 		hint    string
 	}{
 		{name: "bad number", file: "bad_number.csv", want: []string{"region", "revenue"}, numbers: "revenue",
-			err: ErrBadNumber, line: 7, column: "revenue", text: "12,3x", hint: `write digits with "." for decimals`},
-		{name: "thousands separators", file: "bad_thousands.csv", numbers: "revenue",
-			err: ErrBadNumber, line: 2, column: "revenue", text: "1,234,567", hint: "remove the thousands separators"},
+			err: ErrBadNumber, line: 7, column: "revenue", text: "12,3x", hint: `write digits`},
 		{name: "infinite", file: "bad_inf.csv", numbers: "revenue",
 			err: ErrNotFinite, line: 3, column: "revenue", text: "Inf", hint: "write a finite number"},
 		{name: "overflow to infinity", file: "big.csv", input: "a\n1\n1e999\n", numbers: "a",
@@ -174,7 +178,7 @@ func TestReadTableErrors(t *testing.T) {
 		{name: "json syntax", file: "bad_syntax.json",
 			err: ErrSyntax, line: 3, text: `{"region": "South" "revenue": 2}`, hint: "fix the JSON"},
 		{name: "json number with a unit, on the value's own line", file: "bad_number.json", numbers: "revenue",
-			err: ErrBadNumber, line: 4, column: "revenue", text: "12%", hint: `write only the number (12) and say "%"`},
+			err: ErrBadNumber, line: 4, column: "revenue", text: "12%", hint: `the cells above have no unit and this one "%"`},
 		{name: "json nested value", file: "nested.json", want: []string{"revenue"},
 			err: ErrSyntax, line: 2, column: "revenue", hint: "not an object or array"},
 		{name: "json repeated key", file: "duplicate_key.json",
@@ -192,9 +196,20 @@ func TestReadTableErrors(t *testing.T) {
 			err: ErrEncoding, line: 2, text: "{\"a\": \"\xfe\"}]", hint: "UTF-8"},
 		{name: "json missing column", file: "m.json", input: `[{"region": 1}]`, want: []string{"regoin"},
 			err: ErrMissingColumn, column: "regoin", hint: `did you mean "region"?`},
-		{name: "standard input needs a format", file: "-", input: "a\n1\n",
-			err: ErrFormat, hint: "--format csv"},
-		{name: "unknown extension", file: "data.xlsx", input: "a\n1\n",
+		{name: "standard input sniffed as CSV, then a ragged row", file: "-", input: "a;b\n1;2\n3\n",
+			err: ErrFieldCount, line: 3, hint: "separated by semicolons"},
+		{name: "a semicolon file read as commas is told so, not to quote", file: "s.csv", input: "a;b\n1,5;2\n3;4\n", format: "csv",
+			err: ErrFieldCount, line: 2, hint: "looks separated by semicolons: say --format semicolon"},
+		{name: "NUL bytes", file: "z.csv", input: "a,b\n\x00\x00\x00",
+			err: ErrBinary, hint: "give a text file"},
+		{name: "mixed units", file: "u.csv", input: "a\n12%\n$5\n",
+			numbers: "a", err: ErrMixedNumbers, line: 3, column: "a", text: "$5", hint: `the cells above are in "%"`},
+		{name: "mixed decimal marks", file: "d.csv", input: "a\n12.5\n\"3,25\"\n",
+			numbers: "a", err: ErrMixedNumbers, line: 3, column: "a", text: "3,25", hint: "decimal point"},
+		{name: "ambiguous 1,234 in a tab file", file: "t.tsv", input: "a\tb\nx\t1,234\ny\t2,500\n",
+			numbers: "b", err: ErrMixedNumbers, line: 2, column: "b", text: "1,234", hint: "--decimal"},
+		{name: "a date among numbers", file: "n.csv", input: "a\n1\n2024-03-17\n",
+			numbers: "a", err: ErrBadNumber, line: 3, column: "a", text: "2024-03-17", hint: "looks like a date"}, {name: "unknown extension", file: "data.xlsx", input: "a\n1\n",
 			err: ErrFormat, hint: "name the file .csv, .tsv or .json"},
 		{name: "unknown format", file: "data.csv", input: "a\n1\n", format: "xml",
 			err: ErrFormat, text: "xml", hint: "use --format"},
@@ -226,7 +241,7 @@ func TestReadTableErrors(t *testing.T) {
 					de.Line, de.Column, de.Text, tc.line, tc.column, tc.text)
 			}
 			msg := err.Error()
-			want := []string{displayName(tc.file) + ": ", tc.hint}
+			want := []string{DisplayName(tc.file) + ": ", tc.hint}
 			if tc.line > 0 {
 				want = append(want, fmt.Sprintf("line %d", tc.line))
 			}
@@ -243,6 +258,9 @@ func TestReadTableErrors(t *testing.T) {
 			}
 			if strings.ContainsAny(msg, "\n\r") {
 				t.Errorf("message %q is not one line", msg)
+			}
+			if tc.err != ErrFieldCount && strings.Contains(msg, "quote any cell") {
+				t.Errorf("message %q gives the quoting advice for another cause", msg)
 			}
 		})
 	}
@@ -283,59 +301,87 @@ func TestDataErrorMessage(t *testing.T) {
 	}
 }
 
-func TestParseNumber(t *testing.T) {
+// TestNumberCells reads one column of cells at a time, as every form of
+// number the reader accepts, and the cells it must refuse.
+func TestNumberCells(t *testing.T) {
 	tests := []struct {
-		cell string
-		want float64
-		kind numberKind
-		hint string // for numberBad
+		name  string
+		comma string // separator of the file
+		cells []string
+		want  []float64
+		unit  string
+		err   error
+		notes []string // codes
 	}{
-		{cell: "1", want: 1},
-		{cell: "-2.5", want: -2.5},
-		{cell: "+3", want: 3},
-		{cell: " 4 ", want: 4},
-		{cell: "\t4.25", want: 4.25},
-		{cell: "1e3", want: 1000},
-		{cell: "-1.5E-2", want: -0.015},
-		{cell: ".5", want: 0.5},
-		{cell: "5.", want: 5},
-		{cell: "1e-400", want: 0}, // underflows to zero, which is finite
-		{cell: "", kind: numberMissing},
-		{cell: "  ", kind: numberMissing},
-		{cell: "NA", kind: numberMissing},
-		{cell: "na", kind: numberMissing},
-		{cell: "N/A", kind: numberMissing},
-		{cell: "NaN", kind: numberMissing},
-		{cell: "nan", kind: numberMissing},
-		{cell: "NULL", kind: numberMissing},
-		{cell: " null ", kind: numberMissing},
-		{cell: "Inf", kind: numberInfinite},
-		{cell: "-infinity", kind: numberInfinite},
-		{cell: "1e999", kind: numberInfinite},
-		{cell: "-1e999", kind: numberInfinite},
-		{cell: "0x10", kind: numberBad, hint: "write digits"},
-		{cell: "1_000", kind: numberBad, hint: "thousands separators"},
-		{cell: "1,000", kind: numberBad, hint: "thousands separators"},
-		{cell: "-12,345,678.5", kind: numberBad, hint: "thousands separators"},
-		{cell: "1 000", kind: numberBad, hint: "thousands separators"},
-		{cell: "12,5", kind: numberBad, hint: `decimal point as "."`},
-		{cell: "12%", kind: numberBad, hint: `write only the number (12) and say "%"`},
-		{cell: "$5", kind: numberBad, hint: `write only the number (5) and say "$"`},
-		{cell: "3 kg", kind: numberBad, hint: `say "kg"`},
-		{cell: "1.2.3", kind: numberBad, hint: "write digits"},
-		{cell: "--1", kind: numberBad, hint: "write digits"},
-		{cell: "e", kind: numberBad, hint: "write digits"},
-		{cell: "abc", kind: numberBad, hint: "write digits"},
-		{cell: "12,3x", kind: numberBad, hint: "write digits"},
+		{name: "plain", cells: []string{"1", "-2.5", "+3", " 4 ", "1e3", ".5", "5.", "1e-400"}, want: []float64{1, -2.5, 3, 4, 1000, 0.5, 5, 0}},
+		{name: "missing markers", cells: []string{"1", "", "NA", "n/a", "NaN", "null", "-", "–", ".", ".."},
+			want: []float64{1, nan, nan, nan, nan, nan, nan, nan, nan, nan}, notes: []string{"missing"}},
+		{name: "grouping with commas", cells: []string{"1,234,567", "12", "-1,000.5"}, want: []float64{1234567, 12, -1000.5}, notes: []string{"grouping"}},
+		{name: "decimal comma proven", comma: ";", cells: []string{"12,5", "0,25", "3"}, want: []float64{12.5, 0.25, 3}, notes: []string{"decimal-comma"}},
+		{name: "grouped points and a decimal comma", comma: ";", cells: []string{"1.234.567,5", "2,25"}, want: []float64{1234567.5, 2.25}, notes: []string{"decimal-comma", "grouping"}},
+		{name: "1,234 in a semicolon file is a decimal comma", comma: ";", cells: []string{"1,234", "2,5"}, want: []float64{1.234, 2.5}, notes: []string{"decimal-comma"}},
+		{name: "1,234 alone in a semicolon file", comma: ";", cells: []string{"1,234", "5,678"}, want: []float64{1.234, 5.678}, notes: []string{"decimal-comma"}},
+		{name: "1,234 alone in a comma file groups", cells: []string{"1,234", "5,678"}, want: []float64{1234, 5678}, notes: []string{"grouping"}},
+		{name: "1.234 alone keeps the point", comma: ";", cells: []string{"1.234", "5.678"}, want: []float64{1.234, 5.678}},
+		{name: "spaces and apostrophes group", cells: []string{"1 234", "1 234 567", "1 000", "12"}, want: []float64{1234, 1234567, 1000, 12}, notes: []string{"grouping"}},
+		{name: "apostrophe", cells: []string{"1'234", "5'000.5"}, want: []float64{1234, 5000.5}, notes: []string{"grouping"}},
+		{name: "percent", cells: []string{"12%", "-3.5 %", "0%"}, want: []float64{12, -3.5, 0}, unit: "%", notes: []string{"unit"}},
+		{name: "currency before", cells: []string{"$5", "-$1,200.50", "$-3"}, want: []float64{5, -1200.5, -3}, unit: "$", notes: []string{"grouping", "unit"}},
+		{name: "currency after", comma: ";", cells: []string{"5 €", "7,63 €"}, want: []float64{5, 7.63}, unit: "€", notes: []string{"decimal-comma", "unit"}},
+		{name: "pound", cells: []string{"£7.63", "£12"}, want: []float64{7.63, 12}, unit: "£", notes: []string{"unit"}},
+		{name: "minus sign and accounting negatives", cells: []string{"−5", "(5)", "($1,000)", "7"}, want: []float64{-5, -5, -1000, 7}, unit: "", err: ErrMixedNumbers},
+		{name: "accounting negatives", cells: []string{"(5)", "12", "(0.5)"}, want: []float64{-5, 12, -0.5}, notes: []string{"accounting"}},
+		{name: "U+2212", cells: []string{"−5", "3"}, want: []float64{-5, 3}},
+		{name: "a leading 0 group is a decimal", comma: "	", cells: []string{"0,123", "1,5"}, want: []float64{0.123, 1.5}, notes: []string{"decimal-comma"}},
+		{name: "infinity", cells: []string{"1", "Inf"}, err: ErrNotFinite},
+		{name: "overflow", cells: []string{"1", "1e999"}, err: ErrNotFinite},
+		{name: "hex", cells: []string{"0x10"}, err: ErrBadNumber},
+		{name: "underscores", cells: []string{"1_000"}, err: ErrBadNumber},
+		{name: "two points", cells: []string{"1.2.3"}, err: ErrBadNumber},
+		{name: "two signs", cells: []string{"--1"}, err: ErrBadNumber},
+		{name: "a word", cells: []string{"abc"}, err: ErrBadNumber},
+		{name: "kg", cells: []string{"3 kg"}, err: ErrBadNumber},
+		{name: "bad grouping", cells: []string{"1,23,456"}, err: ErrBadNumber},
 	}
 	for _, tc := range tests {
-		got, kind := parseNumber(tc.cell)
-		if kind != tc.kind || kind == numberOK && got != tc.want {
-			t.Errorf("parseNumber(%q) = %v, %v; want %v, %v", tc.cell, got, kind, tc.want, tc.kind)
-		}
-		if tc.kind == numberBad && !strings.Contains(numberHint(tc.cell), tc.hint) {
-			t.Errorf("numberHint(%q) = %q, want it to contain %q", tc.cell, numberHint(tc.cell), tc.hint)
-		}
+		t.Run(tc.name, func(t *testing.T) {
+			comma := tc.comma
+			if comma == "" {
+				comma = ","
+			}
+			var b strings.Builder
+			b.WriteString("k" + comma + "v\n")
+			for i, c := range tc.cells {
+				if strings.Contains(c, comma) || strings.Contains(c, "\"") {
+					c = strconv.Quote(c)
+				}
+				fmt.Fprintf(&b, "r%d%s%s\n", i, comma, c)
+			}
+			tab, err := (&Reader{Comma: rune(comma[0])}).Read(strings.NewReader(b.String()), "n.csv")
+			if err != nil {
+				t.Fatal(err)
+			}
+			n, err := tab.ReadNumbers("v")
+			if tc.err != nil {
+				if !errors.Is(err, tc.err) {
+					t.Fatalf("error = %v, want %v", err, tc.err)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !sameFloats(n.Values, tc.want) || n.Unit != tc.unit {
+				t.Errorf("values %v unit %q; want %v %q", n.Values, n.Unit, tc.want, tc.unit)
+			}
+			var codes []string
+			for _, note := range n.Notes {
+				codes = append(codes, note.Code)
+			}
+			if !slices.Equal(codes, tc.notes) {
+				t.Errorf("notes %q, want %q", codes, tc.notes)
+			}
+		})
 	}
 }
 
@@ -345,7 +391,7 @@ func TestParseNumber(t *testing.T) {
 func TestReadTableColumnForms(t *testing.T) {
 	var b strings.Builder
 	b.WriteString("label,value,id\n")
-	const n = 5000
+	const n = 20000
 	for i := range n {
 		fmt.Fprintf(&b, "L%d,%d.5,\"id\n%d\"\n", i%7, i, i)
 	}
@@ -353,11 +399,14 @@ func TestReadTableColumnForms(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if tab.cols[tab.index["label"]].dict == nil {
+	if c := tab.cols[tab.index["label"]]; c.numeric || !c.text.dictionary() {
 		t.Error("a column of 7 labels should stay a dictionary")
 	}
-	if tab.cols[tab.index["value"]].dict != nil {
-		t.Error("a column of distinct numbers should turn into plain text")
+	if c := tab.cols[tab.index["value"]]; !c.numeric {
+		t.Error("a column of plain numbers should be parsed while reading")
+	}
+	if c := tab.cols[tab.index["id"]]; c.numeric || c.text.dictionary() {
+		t.Error("a column of distinct texts should turn into plain text")
 	}
 	labels, ids := tab.Strings("label"), tab.Strings("id")
 	vals, missing, err := tab.Numbers("value")
@@ -422,9 +471,10 @@ func TestNilTable(t *testing.T) {
 	}
 }
 
-func ExampleReadTable() {
+func ExampleReader() {
 	data := "route,passengers\nNorth,120\nSouth,NA\nNorth,30\n"
-	t, err := ReadTable(strings.NewReader(data), "ferries.csv", "", []string{"route", "passengers"})
+	r := &Reader{Columns: []string{"route", "passengers"}}
+	t, err := r.Read(strings.NewReader(data), "ferries.csv")
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -442,5 +492,5 @@ func ExampleDataError() {
 	_, err := ReadTable(strings.NewReader(data), "ferries.csv", "", nil)
 	fmt.Println(err)
 	// Output:
-	// ferries.csv: line 3: the row has a different number of fields than the header; the header has 2 fields and this row 3, so quote any cell that holds the separator
+	// ferries.csv: line 3: the row has a different number of fields than the header; the header has 2 fields and this row 3, separated by commas; quote any cell that holds the separator, as "a,b"
 }

@@ -1,4 +1,4 @@
-package main
+package table
 
 import (
 	"errors"
@@ -90,8 +90,8 @@ func TestAggregateErrors(t *testing.T) {
 		{"infinite value", []string{"a"}, []float64{math.Inf(-1)}, "max"},
 	}
 	for _, tc := range tests {
-		if _, _, _, err := Aggregate(tc.labels, tc.values, tc.how); !errors.Is(err, errAggregate) {
-			t.Errorf("%s: error = %v, want errAggregate", tc.name, err)
+		if _, _, _, err := Aggregate(tc.labels, tc.values, tc.how); !errors.Is(err, ErrAggregate) {
+			t.Errorf("%s: error = %v, want ErrAggregate", tc.name, err)
 		}
 	}
 }
@@ -105,7 +105,7 @@ func TestAggregateDeterministic(t *testing.T) {
 		labels = append(labels, fmt.Sprint("L", (i*7919)%311))
 		values = append(values, float64(i%13)*0.1)
 	}
-	for _, how := range aggregations {
+	for _, how := range Aggregations {
 		l0, v0, _, _ := Aggregate(labels, values, how)
 		for range 5 {
 			l, v, _, _ := Aggregate(labels, values, how)
