@@ -21,14 +21,14 @@ type BarsOptions struct {
 	Top       int       // most bars to draw; 0 chooses (see Other), negative draws all
 	Other     OtherMode // what becomes of the categories beyond Top; OtherAuto by default
 	Additive  bool      // the values are parts of a whole (counts, sums), so Other may sum them
-	Vertical  bool     // stand the bars up; labels then sit under narrow columns
-	Percent   bool     // show each value as a share of the total
-	Highlight []string // labels drawn in the accent colour
-	From, To  *float64 // widen the value domain; bars always include zero
-	Unit      string   // appended to values: "%", "kg"
-	ValueName string   // what the values measure, for the axis and the description
-	LabelName string   // what the categories are, for the description
-	Averages  bool     // values are means, medians or extremes: Other averages them instead of summing
+	Vertical  bool      // stand the bars up; labels then sit under narrow columns
+	Percent   bool      // show each value as a share of the total
+	Highlight []string  // labels drawn in the accent colour
+	From, To  *float64  // widen the value domain; bars always include zero
+	Unit      string    // appended to values: "%", "kg"
+	ValueName string    // what the values measure, for the axis and the description
+	LabelName string    // what the categories are, for the description
+	Averages  bool      // values are means, medians or extremes: Other averages them instead of summing
 }
 
 // DotsOptions configures a dot plot: like bars, but values are positions, so

@@ -12,10 +12,10 @@ import (
 type rowFlags struct {
 	shared
 	label, value, order, agg, unit, valueName, other string
-	top                                       int
-	vertical, percent                         bool
-	highlight                                 listFlag
-	from, to                                  floatFlag
+	top                                              int
+	vertical, percent                                bool
+	highlight                                        listFlag
+	from, to                                         floatFlag
 }
 
 func (r *rowFlags) register(fs *flag.FlagSet, dots bool) {
