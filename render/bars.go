@@ -145,11 +145,7 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	if err := c.domain(); err != nil {
 		return nil, err
 	}
-	vals := make([]float64, len(c.rows))
-	for i, r := range c.rows {
-		vals[i] = r.value
-	}
-	c.vfmt = scale.ValueFormat(vals, c.unit)
+	c.vfmt = scale.ValueFormat(c.values(), c.unit)
 	var bottom float64
 	if c.vertical {
 		bottom, err = c.layoutColumns()
@@ -347,11 +343,7 @@ func (c *rowChart) fitTicks(length float64, horizontal bool) {
 // current domain.
 func (c *rowChart) ticksFor(m, floor int) scale.Ticks {
 	lo, hi := c.d0, c.d1
-	vals := make([]float64, len(c.rows))
-	for i, r := range c.rows {
-		vals[i] = r.value
-	}
-	o := scale.TickOptions{Min: floor, Zero: true, Integer: !c.percent && scale.IsInteger(vals)}
+	o := scale.TickOptions{Min: floor, Zero: true, Integer: !c.percent && scale.IsInteger(c.values())}
 	if c.from != nil || c.to != nil {
 		// An end set by the user is kept and ticks fall inside it; the other
 		// end extends to its outer tick as usual.
@@ -677,10 +669,32 @@ func (c *rowChart) axisTitle() string {
 		return "Share of total " + name + " (%)"
 	}
 	// A currency sign is on every tick already (see tickLabels).
-	if c.unit != "" && name != "" && !scale.IsCurrency(c.unit) && !strings.Contains(name, "("+c.unit+")") {
+	if c.unit != "" && name != "" && !scale.IsCurrency(c.unit) && !namesUnit(name, c.unit) {
 		return name + " (" + c.unit + ")"
 	}
 	return name
+}
+
+// namesUnit reports whether a value name already says its unit, as
+// "Weight (g)" or a column called "rainfall_mm" does, so the axis title
+// does not say it twice.
+func namesUnit(name, unit string) bool {
+	n, u := strings.ToLower(name), strings.ToLower(unit)
+	for _, form := range []string{"(" + u + ")", "_" + u, " " + u, "[" + u + "]"} {
+		if strings.Contains(n, form+" ") || strings.HasSuffix(n, form) {
+			return true
+		}
+	}
+	return false
+}
+
+// values returns the plotted values of the rows.
+func (c *rowChart) values() []float64 {
+	v := make([]float64, len(c.rows))
+	for i, r := range c.rows {
+		v[i] = r.value
+	}
+	return v
 }
 
 // tickLabels prints the ticks of the value axis. A unit is said once per
@@ -778,7 +792,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	if slices.IndexFunc(vw, tooWide) >= 0 {
 		// Shorter numbers before no numbers: three significant digits,
 		// each value abbreviated on its own ($3.23M, $119k).
-		c.vfmt = scale.ShortValueFormat(c.unit)
+		c.vfmt = scale.ShortValueFormat(c.values(), c.unit)
 		vtext, vw = c.valueTexts()
 	}
 	showValues := slices.IndexFunc(vw, tooWide) < 0

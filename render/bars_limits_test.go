@@ -138,3 +138,17 @@ func TestCalendarShort(t *testing.T) {
 	_, ok := calendarShort("Marchmont")
 	assert.False(t, ok)
 }
+
+func TestAxisTitleSaysUnitOnce(t *testing.T) {
+	for _, tc := range []struct{ name, unit, want string }{
+		{"rainfall_mm", "mm", "rainfall_mm"},
+		{"Weight (g)", "g", "Weight (g)"},
+		{"points", "pts", "points (pts)"},
+		{"fare", "£", "fare"}, // the currency sign is on every tick
+		{"gain", " pts", "gain (pts)"},
+	} {
+		c := rowChart{valueName: tc.name, unit: tc.unit}
+		c.unit = strings.TrimSpace(c.unit)
+		assert.Equal(t, tc.want, c.axisTitle())
+	}
+}

@@ -19,8 +19,9 @@ type Format struct {
 	// value has five or more, so years such as 2024 stay "2024" unless the
 	// same axis also shows "12,500", and then all of them are grouped alike.
 	Group bool
-	// Short ignores Decimals, Divisor, Suffix and Group and prints each
-	// value with three significant digits and its own abbreviation (see
+	// Short ignores Divisor, Suffix and Group and prints each value with
+	// three significant digits and its own abbreviation, Decimals bounding
+	// the digits after the point of values below 1,000 (see
 	// ShortValueFormat).
 	Short bool
 }
@@ -56,7 +57,7 @@ func (f Format) Format(v float64) string {
 		}
 		b.WriteString("0")
 	case f.Short:
-		s := short(math.Abs(v))
+		s := short(math.Abs(v), f.Decimals)
 		if v < 0 && s != "0" {
 			b.WriteString(minusSign)
 		}
@@ -211,15 +212,21 @@ func ValueFormat(values []float64, unit string) Format {
 
 // ShortValueFormat is a Format for labels that must be narrow, such as
 // values above thin columns: each value is rounded to three significant
-// digits and abbreviated on its own from 1,000 on, trailing zeros dropped
-// ("$3.23M", "$119k", "17.4", "17"). Values that differ at three significant
-// digits still print differently; the abbreviation may differ from label to
-// label, which suits labels read one at a time but not an axis.
-func ShortValueFormat(unit string) Format { return Format{Unit: unit, Short: true} }
+// digits and abbreviated on its own from 1,000 on ("$3.23M", "$119k",
+// "$95.0k"). Values below 1,000 show no more decimals than the data itself
+// does (17.4 and 17.0, but 12 and 7). Values that differ at three
+// significant digits still print differently; the abbreviation may differ
+// from label to label, which suits labels read one at a time but not an
+// axis. NaN and infinite values are ignored.
+func ShortValueFormat(values []float64, unit string) Format {
+	own, _ := exactDecimals(values, 1, maxTickDecimals)
+	return Format{Unit: unit, Short: true, Decimals: max(own, distinctDecimals(values, 1))}
+}
 
 // short prints |v| rounded to three significant digits with its own
-// abbreviation, without sign or unit.
-func short(a float64) string {
+// abbreviation, without sign or unit, and at most own decimals when not
+// abbreviated.
+func short(a float64, own int) string {
 	x := round3(a)
 	if x == 0 {
 		return "0"
@@ -230,11 +237,10 @@ func short(a float64) string {
 	}
 	y := x / div
 	d := max(0, 2-floorLog10(y))
-	s := strconv.FormatFloat(y, 'f', d, 64)
-	if strings.IndexByte(s, '.') >= 0 {
-		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
+	if div == 1 {
+		d = min(d, max(own, 0))
 	}
-	return s + suffix
+	return strconv.FormatFloat(y, 'f', d, 64) + suffix
 }
 
 // valueFormatAt chooses the decimals for values divided by div and reports

@@ -248,7 +248,7 @@ func TestValueFormatKeepsDistinctValuesApart(t *testing.T) {
 		for _, short := range []bool{false, true} {
 			f := ValueFormat(vs, unit)
 			if short {
-				f = ShortValueFormat(unit)
+				f = ShortValueFormat(vs, unit)
 			}
 			seen := map[string]float64{}
 			for _, v := range vs {
@@ -278,10 +278,12 @@ func TestShortValueFormat(t *testing.T) {
 		unit   string
 		want   []string
 	}{
-		{[]float64{3234567, 118750, -999999}, "$", []string{"$3.23M", "$119k", "\u2212$1M"}},
-		{[]float64{9800, 1250, 17.4, 17, 0.01234, 0}, "", []string{"9.8k", "1.25k", "17.4", "17", "0.0123", "0"}},
+		{[]float64{3234567, 118750, 95000, -999999}, "$", []string{"$3.23M", "$119k", "$95.0k", "\u2212$1.00M"}},
+		{[]float64{9800, 1250, 17.4, 17, 0.01234, 0}, "", []string{"9.80k", "1.25k", "17.4", "17.0", "0.0123", "0"}},
+		{[]float64{101.7, 55, 12}, "", []string{"102", "55.0", "12.0"}},
+		{[]float64{12, 7}, "", []string{"12", "7"}},
 		{[]float64{45.26}, "%", []string{"45.3%"}},
 	} {
-		assert.Equal(t, tc.want, formatAll(ShortValueFormat(tc.unit), tc.values))
+		assert.Equal(t, tc.want, formatAll(ShortValueFormat(tc.values, tc.unit), tc.values))
 	}
 }
