@@ -28,7 +28,7 @@ type BarsOptions struct {
 	Unit      string    // appended to values: "%", "kg"
 	ValueName string    // what the values measure, for the axis and the description
 	LabelName string    // what the categories are, for the description
-	Averages  bool      // values are means, medians or extremes: Other averages them instead of summing
+	Averages  bool      // values are means, medians or extremes: never Additive, and an automatic Other averages them
 }
 
 // DotsOptions configures a dot plot: like bars, but values are positions, so
@@ -43,7 +43,7 @@ type DotsOptions struct {
 	Unit      string
 	ValueName string
 	LabelName string
-	Averages  bool // as for bars; dots default to averaging in the CLI
+	Averages  bool // as for bars: an Other dot (OtherMean) is always a mean
 }
 
 // Bars draws a bar chart of values by label and writes it as SVG to w. It
@@ -60,7 +60,7 @@ func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]No
 func BarsScene(labels []string, values []float64, opt BarsOptions) (*Scene, error) {
 	c := rowChart{
 		Common: opt.Common, dots: false, vertical: opt.Vertical, order: opt.Order, top: opt.Top,
-		other: opt.Other, additive: opt.Additive || opt.Percent, percent: opt.Percent, highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
+		other: opt.Other, additive: (opt.Additive && !opt.Averages) || opt.Percent, percent: opt.Percent, highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
 		valueName: opt.ValueName, labelName: opt.LabelName, averages: opt.Averages,
 	}
 	return c.build(labels, values)
@@ -182,6 +182,7 @@ func (c *rowChart) limitRows() error {
 		return fmt.Errorf("--top %d: show at least 2 categories", top)
 	}
 	fold := c.other == OtherSum || c.other == OtherMean || (c.other == OtherAuto && c.additive && !c.dots)
+	canvas := false // the fixed canvas, not the caller, limited the rows
 	if top == 0 {
 		switch {
 		case c.dots:
@@ -191,13 +192,18 @@ func (c *rowChart) limitRows() error {
 		default:
 			top = c.rowsThatFit()
 		}
+		// A fixed canvas holds only so many rows: the rest go as above
+		// rather than refusing the chart.
+		if fit := c.rowsThatFit(); fit > 0 && top > fit {
+			top, canvas = fit, true
+		}
 	}
 	if top < 0 || len(c.rows) <= top {
 		return nil
 	}
 	if fold {
 		var note string
-		c.rows, note = combineTail(c.rows, top, c.other != OtherMean)
+		c.rows, note = combineTail(c.rows, top, c.other == OtherSum || (c.other == OtherAuto && !c.averages))
 		if note != "" {
 			f.scene.Note("other", true, note)
 		}
@@ -213,8 +219,12 @@ func (c *rowChart) limitRows() error {
 	if c.dots {
 		why = "a dot is a position, so a sum would mean nothing"
 	}
-	f.scene.Note("left-out", true, fmt.Sprintf("drew the %d largest of %d categories and left out %d (%s; %s): %s; show them all with --top -1, or combine them with --other sum or mean",
-		len(c.rows), n, len(gone), "not combined into Other", why, listNames(gone, 6)))
+	more := "show them all with --top -1, or combine them with --other sum or mean"
+	if canvas {
+		more = "only these fit the canvas; give a taller --size, or combine the rest with --other mean"
+	}
+	f.scene.Note("left-out", true, fmt.Sprintf("drew the %d largest of %d categories and left out %d (not combined into Other; %s): %s; %s",
+		len(c.rows), n, len(gone), why, listNames(gone, 6), more))
 	f.addNote(fmt.Sprintf("%d of %d categories shown: the %d smallest are left out.", len(c.rows), n, len(gone)))
 	return nil
 }

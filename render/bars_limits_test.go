@@ -152,3 +152,17 @@ func TestAxisTitleSaysUnitOnce(t *testing.T) {
 		assert.Equal(t, tc.want, c.axisTitle())
 	}
 }
+
+func TestDotsOnSlideLeaveOutWhatDoesNotFit(t *testing.T) {
+	labels, values := medians(60)
+	s, err := DotsScene(labels, values, DotsOptions{Common: Common{Medium: Slide}})
+	require.NoError(t, err)
+	drawn := countClass(s, Circle, "plumb-mark")
+	assert.Less(t, drawn, DefaultDotsTop)
+	assert.Greater(t, drawn, 5)
+	var noted bool
+	for _, n := range s.Notes {
+		noted = noted || n.Code == "left-out"
+	}
+	assert.True(t, noted)
+}
