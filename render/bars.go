@@ -495,6 +495,14 @@ func (c *rowChart) wrapLabels(width float64, maxLines int) ([][]string, float64,
 	return wrapped, widest, most
 }
 
+// wrapLabelsQuiet is wrapLabels without its notes, for estimates.
+func (c *rowChart) wrapLabelsQuiet(width float64, maxLines int) ([][]string, float64, int) {
+	notes := len(c.f.scene.Notes)
+	w, widest, most := c.wrapLabels(width, maxLines)
+	c.f.scene.Notes = c.f.scene.Notes[:notes]
+	return w, widest, most
+}
+
 // valueTexts formats every row's value label and measures it.
 func (c *rowChart) valueTexts() ([]string, []float64) {
 	text := make([]string, len(c.rows))
@@ -748,7 +756,20 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	}
 	// Width first: the tick labels' width depends on the ticks, which depend
 	// on the height; the height is fixed by the medium or chosen here.
-	labelsH := 2*lh + sp.gap
+	// The category labels' height depends on the column width, which
+	// depends on the tick labels: estimate the width from the widest value
+	// text (ticks are rounder and not wider), and keep to the lines
+	// reserved here when the labels are wrapped for good below.
+	guess := 0.0
+	for _, v := range c.values() {
+		guess = math.Max(guess, f.measure(c.vfmt.Format(v), sp.text, false))
+	}
+	maxLines := 3
+	if band := (f.width - 2*sp.pad - guess - sp.gap) / float64(n); band > sp.gap {
+		c.abbreviateCalendar(band - sp.gap)
+		_, _, maxLines = c.wrapLabelsQuiet(band-sp.gap, 3)
+	}
+	labelsH := float64(maxLines)*lh + sp.gap
 	plotH := math.Min(f.width*0.5, 420*sp.text/13)
 	if fb := f.fixedPlotBottom(); fb > 0 {
 		plotH = fb - top - labelsH
@@ -811,7 +832,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	}
 	c.abbreviateCalendar(band - sp.gap)
 	// Words wrap at their boundaries, up to three lines, before any is shortened.
-	wrapped, _, lines := c.wrapLabels(band-sp.gap, 3)
+	wrapped, _, lines := c.wrapLabels(band-sp.gap, maxLines)
 	for i, r := range c.rows {
 		cx := plotL + (float64(i)+0.5)*band
 		yv := round2(ys.Map(r.value))
@@ -861,11 +882,15 @@ func (c *rowChart) abbreviateCalendar(width float64) {
 	for i, r := range c.rows {
 		initials = initials || !fits(short[i], r.highlight)
 	}
+	again := c.rows[0].short != ""
 	for i := range c.rows {
 		if initials {
 			short[i] = short[i][:1]
 		}
 		c.rows[i].short = short[i]
+	}
+	if again {
+		return
 	}
 	f.scene.Note("calendar-abbreviated", false, "wrote the month or weekday names in their standard short forms to fit the columns")
 }

@@ -166,3 +166,34 @@ func TestDotsOnSlideLeaveOutWhatDoesNotFit(t *testing.T) {
 	}
 	assert.True(t, noted)
 }
+
+// TestColumnsKeepTheirValues: value labels too wide for their columns
+// take three significant digits before they are dropped (issue 7, item 15).
+func TestColumnsKeepTheirValues(t *testing.T) {
+	labels := []string{"January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"}
+	values := make([]float64, len(labels))
+	for i := range values {
+		values[i] = 118750 + float64(i)*12345.5
+	}
+	// A small value beside six-digit ones: in full ("$118,750") the labels
+	// are wider than the columns, and a shared k would print it "$1k".
+	values[11] = 950
+	s, err := BarsScene(labels, values, BarsOptions{Vertical: true, Order: ByData, Unit: "$"})
+	require.NoError(t, err)
+	var texts []string
+	for _, m := range s.Marks {
+		if m.Class == "plumb-value" {
+			texts = append(texts, m.Text)
+		}
+		if m.Class == "plumb-label" {
+			assert.NotContains(t, m.Text, "…", "calendar words are abbreviated, never cut")
+			assert.LessOrEqual(t, len(m.Text), 3, m.Text)
+		}
+	}
+	require.Len(t, texts, 12, "every column keeps its value")
+	assert.Equal(t, "$119k", texts[0])
+	assert.Equal(t, "$950", texts[11])
+	for _, n := range s.Notes {
+		assert.NotEqual(t, "value-labels-dropped", n.Code)
+	}
+}
