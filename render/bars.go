@@ -25,7 +25,7 @@ type BarsOptions struct {
 	Percent   bool      // show each value as a share of the total
 	Highlight []string  // labels drawn in the accent colour
 	From, To  *float64  // widen the value domain; bars always include zero
-	Unit      string    // appended to values: "%", "kg"
+	Unit      string    // "%", "kg": said once, in the axis title and on the first value label; a currency sign leads every value ("$5")
 	ValueName string    // what the values measure, for the axis and the description
 	LabelName string    // what the categories are, for the description
 	Averages  bool      // values are means, medians or extremes: never Additive, and an automatic Other averages them

@@ -109,3 +109,10 @@ func ExampleNiceTicks() {
 	fmt.Println(t.Values)
 	// Output: [0 1 2 3 4 5 6 7]
 }
+
+func BenchmarkNiceTicks(b *testing.B) {
+	o := TickOptions{Min: 3, Integer: true, Zero: true}
+	for b.Loop() {
+		NiceTicks(-517, 2043, 9, o)
+	}
+}
