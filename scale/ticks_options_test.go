@@ -116,3 +116,28 @@ func BenchmarkNiceTicks(b *testing.B) {
 		NiceTicks(-517, 2043, 9, o)
 	}
 }
+
+func FuzzNiceTicks(f *testing.F) {
+	f.Add(-500.0, 2000.0, 3, 3, true, true)
+	f.Add(0.0, 1.0, 2, 3, true, false)
+	f.Add(1e-300, 1e300, 5, 3, false, true)
+	f.Fuzz(func(t *testing.T, lo, hi float64, m, floor int, integer, zero bool) {
+		if !isFinite(lo) || !isFinite(hi) {
+			return
+		}
+		floor = min(max(floor, 0), 12)
+		tk := NiceTicks(lo, hi, m%50, TickOptions{Min: floor, Integer: integer, Zero: zero})
+		if len(tk.Values) < max(floor, 2) {
+			t.Fatalf("NiceTicks(%g, %g, %d, min %d) = %v: fewer than the floor", lo, hi, m, floor, tk.Values)
+		}
+		a, b := min(lo, hi), max(lo, hi)
+		if tk.Values[0] > a || tk.Values[len(tk.Values)-1] < b {
+			t.Fatalf("NiceTicks(%g, %g) = %v does not cover", lo, hi, tk.Values)
+		}
+		if zero && a < 0 && b > 0 {
+			if !hasZero(tk.Values) {
+				t.Fatalf("NiceTicks(%g, %g) = %v: no zero", lo, hi, tk.Values)
+			}
+		}
+	})
+}
