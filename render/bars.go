@@ -13,19 +13,22 @@ import (
 
 // BarsOptions configures a bar chart. The zero value draws the honest
 // default: horizontal bars from zero, largest first, one neutral colour,
-// values at the bar ends, at most DefaultTop bars.
+// values at the bar ends, every category unless the values are parts of a
+// whole (then at most DefaultTop bars, the rest summed into Other).
 type BarsOptions struct {
 	Common
-	Order     Order    // ByValue (default), ByLabel or ByData
-	Top       int      // most bars before the rest become Other; 0 means DefaultTop, negative never combines
-	Vertical  bool     // stand the bars up; labels then sit under narrow columns
-	Percent   bool     // show each value as a share of the total
-	Highlight []string // labels drawn in the accent colour
-	From, To  *float64 // widen the value domain; bars always include zero
-	Unit      string   // appended to values: "%", "kg"
-	ValueName string   // what the values measure, for the axis and the description
-	LabelName string   // what the categories are, for the description
-	Averages  bool     // values are means, medians or extremes: Other averages them instead of summing
+	Order     Order     // ByValue (default), ByLabel or ByData
+	Top       int       // most bars to draw; 0 chooses (see Other), negative draws all
+	Other     OtherMode // what becomes of the categories beyond Top; OtherAuto by default
+	Additive  bool      // the values are parts of a whole (counts, sums), so Other may sum them
+	Vertical  bool      // stand the bars up; labels then sit under narrow columns
+	Percent   bool      // show each value as a share of the total
+	Highlight []string  // labels drawn in the accent colour
+	From, To  *float64  // widen the value domain; bars always include zero
+	Unit      string    // "%", "kg": said once, in the axis title and on the first value label; a currency sign leads every value ("$5")
+	ValueName string    // what the values measure, for the axis and the description
+	LabelName string    // what the categories are, for the description
+	Averages  bool      // values are means, medians or extremes: never Additive, and an automatic Other averages them
 }
 
 // DotsOptions configures a dot plot: like bars, but values are positions, so
@@ -33,13 +36,14 @@ type BarsOptions struct {
 type DotsOptions struct {
 	Common
 	Order     Order
-	Top       int // as for bars, but 0 means DefaultDotsTop
+	Top       int       // most dots to draw; 0 means DefaultDotsTop, negative draws all
+	Other     OtherMode // OtherAuto and OtherNone leave the rest out with a note; OtherMean folds them; OtherSum is refused: a dot is a position, not an amount
 	Highlight []string
 	From, To  *float64 // set the domain; they may not hide any value
 	Unit      string
 	ValueName string
 	LabelName string
-	Averages  bool // as for bars; dots default to averaging in the CLI
+	Averages  bool // as for bars: an Other dot (OtherMean) is always a mean
 }
 
 // Bars draws a bar chart of values by label and writes it as SVG to w. It
@@ -56,7 +60,7 @@ func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]No
 func BarsScene(labels []string, values []float64, opt BarsOptions) (*Scene, error) {
 	c := rowChart{
 		Common: opt.Common, dots: false, vertical: opt.Vertical, order: opt.Order, top: opt.Top,
-		percent: opt.Percent, highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
+		other: opt.Other, additive: (opt.Additive && !opt.Averages) || opt.Percent, percent: opt.Percent, highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
 		valueName: opt.ValueName, labelName: opt.LabelName, averages: opt.Averages,
 	}
 	return c.build(labels, values)
@@ -74,7 +78,7 @@ func Dots(w io.Writer, labels []string, values []float64, opt DotsOptions) ([]No
 // DotsScene builds the dot plot's scene without writing it.
 func DotsScene(labels []string, values []float64, opt DotsOptions) (*Scene, error) {
 	c := rowChart{
-		Common: opt.Common, dots: true, order: opt.Order, top: opt.Top,
+		Common: opt.Common, dots: true, order: opt.Order, top: opt.Top, other: opt.Other,
 		highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
 		valueName: opt.ValueName, labelName: opt.LabelName, averages: opt.Averages,
 	}
@@ -88,6 +92,8 @@ type rowChart struct {
 	dots, vertical       bool
 	order                Order
 	top                  int
+	other                OtherMode
+	additive             bool
 	percent              bool
 	highlight            []string
 	from, to             *float64
@@ -104,6 +110,8 @@ type rowChart struct {
 }
 
 func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
+	// " pts" from a shell quote would print "( pts)" in the axis title.
+	c.unit = strings.TrimSpace(c.unit)
 	if err := checkRows(labels, values); err != nil {
 		return nil, err
 	}
@@ -131,28 +139,13 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	if err := arrange(c.rows, c.order); err != nil {
 		return nil, err
 	}
-	top := c.top
-	if top == 0 && c.dots {
-		top = DefaultDotsTop
-	} else if top == 0 {
-		top = DefaultTop
-	}
-	if top > 0 && top < 2 {
-		return nil, fmt.Errorf("--top %d: show at least 2 categories", top)
-	}
-	var note string
-	c.rows, note = combineTail(c.rows, top, !c.averages)
-	if note != "" {
-		f.scene.Note("other", true, note)
+	if err := c.limitRows(); err != nil {
+		return nil, err
 	}
 	if err := c.domain(); err != nil {
 		return nil, err
 	}
-	vals := make([]float64, len(c.rows))
-	for i, r := range c.rows {
-		vals[i] = r.value
-	}
-	c.vfmt = scale.ValueFormat(vals, c.unit)
+	c.vfmt = scale.ValueFormat(c.values(), c.unit)
 	var bottom float64
 	if c.vertical {
 		bottom, err = c.layoutColumns()
@@ -168,6 +161,96 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 		f.scene.Title = c.accessibleTitle()
 	}
 	return f.finish(bottom), nil
+}
+
+// limitRows applies Top and Other: it folds the rows beyond Top into one
+// Other row when that is honest, or leaves them out and says so in a note
+// and under the chart, never silently.
+func (c *rowChart) limitRows() error {
+	f := c.f
+	switch c.other {
+	case OtherAuto, OtherNone, OtherMean:
+	case OtherSum:
+		if c.dots {
+			return fmt.Errorf("--other sum: a dot marks a position, not an amount, so dots are never summed; use --other mean or none, or draw bars")
+		}
+	default:
+		return fmt.Errorf("unknown --other %q: use sum, mean or none", string(c.other))
+	}
+	top := c.top
+	if top > 0 && top < 2 {
+		return fmt.Errorf("--top %d: show at least 2 categories", top)
+	}
+	fold := c.other == OtherSum || c.other == OtherMean || (c.other == OtherAuto && c.additive && !c.dots)
+	canvas := false // the fixed canvas, not the caller, limited the rows
+	if top == 0 {
+		switch {
+		case c.dots:
+			top = DefaultDotsTop
+		case fold:
+			top = DefaultTop
+		default:
+			top = c.rowsThatFit()
+		}
+		// A fixed canvas holds only so many rows: the rest go as above
+		// rather than refusing the chart.
+		if fit := c.rowsThatFit(); fit > 0 && top > fit {
+			top, canvas = fit, true
+		}
+	}
+	if top < 0 || len(c.rows) <= top {
+		return nil
+	}
+	if fold {
+		var note string
+		c.rows, note = combineTail(c.rows, top, c.other == OtherSum || (c.other == OtherAuto && !c.averages))
+		if note != "" {
+			f.scene.Note("other", true, note)
+		}
+		return nil
+	}
+	n := len(c.rows)
+	var gone []string
+	c.rows, gone = leaveOut(c.rows, top)
+	if len(gone) == 0 {
+		return nil
+	}
+	why := "they are not parts of a whole, so a sum would mean nothing"
+	if c.dots {
+		why = "a dot is a position, so a sum would mean nothing"
+	}
+	more := "show them all with --top -1, or combine them with --other sum or mean"
+	if canvas {
+		more = "only these fit the canvas; give a taller --size, or combine the rest with --other mean"
+	}
+	f.scene.Note("left-out", true, fmt.Sprintf("drew the %d largest of %d categories and left out %d (not combined into Other; %s): %s; %s",
+		len(c.rows), n, len(gone), why, listNames(gone, 6), more))
+	f.addNote(fmt.Sprintf("%d of %d categories shown: the %d smallest are left out.", len(c.rows), n, len(gone)))
+	return nil
+}
+
+// rowsThatFit is how many horizontal rows fit on a canvas of fixed height
+// (the frame's note line for the rest included), or -1 when the chart
+// grows with its rows. Vertical bars need no limit here: they refuse when
+// their columns get too narrow.
+func (c *rowChart) rowsThatFit() int {
+	f := c.f
+	if c.vertical || f.fixedPlotBottom() == 0 {
+		return -1
+	}
+	sp := f.spec
+	lh := lineHeight(sp.text)
+	axisH := sp.gap + lh
+	if c.axisTitle() != "" {
+		axisH += lh
+	}
+	// The note line under the chart takes one small line when rows are left out.
+	room := f.fixedPlotBottom() - lineHeight(sp.small) - axisH - f.plotTop()
+	n := int(room / (lh + sp.gap/2))
+	if n >= len(c.rows) {
+		return -1
+	}
+	return max(n, 2)
 }
 
 // toShares turns values into percentages of their total.
@@ -239,24 +322,24 @@ func (c *rowChart) numText(v float64) string {
 	return scale.ValueFormat([]float64{v}, c.unit).Format(v)
 }
 
-// fitTicks chooses the ticks for an axis of the given length: as many nice
-// ticks as fit with their labels apart. It also settles the domain: bars and
-// dots without --from/--to end on the outer ticks.
+// fitTicks chooses the ticks for an axis of the given length: about one
+// per 75 px at screen size (scale.TickTarget), fewer when their labels
+// would touch, but never fewer than scale.MinTicks (three beyond 150 px),
+// zero labelled when inside, whole numbers for whole-number data. It also
+// settles the domain: bars and dots without --from/--to end on the outer
+// ticks.
 func (c *rowChart) fitTicks(length float64, horizontal bool) {
 	sp := c.f.spec
-	per := sp.text * 5 // about one tick per five text heights along the axis
+	target := scale.TickTarget(length, sp.text)
 	if !horizontal {
-		per = sp.text * 3.5
+		// Labels stacked up a vertical axis need only a line apart.
+		target = scale.TickTarget(length*1.4, sp.text)
 	}
-	m := int(math.Max(2, math.Min(10, math.Floor(length/per))))
+	floor := scale.MinTicks(length)
 	c.d0, c.d1 = c.lo0, c.hi0
-	for ; m >= 2; m-- {
-		t := c.ticksFor(m)
-		if !horizontal || len(t.Values) < 2 || c.ticksFit(t, length) {
-			c.ticks = t
-			break
-		}
-		c.ticks = t
+	c.ticks = c.ticksFor(target, floor)
+	for m := target - 1; horizontal && m >= floor && len(c.ticks.Values) >= 2 && !c.ticksFit(c.ticks, length); m-- {
+		c.ticks = c.ticksFor(m, floor)
 	}
 	if c.from == nil && len(c.ticks.Values) > 0 {
 		c.d0 = math.Min(c.d0, c.ticks.Values[0])
@@ -266,42 +349,46 @@ func (c *rowChart) fitTicks(length float64, horizontal bool) {
 	}
 }
 
-// ticksFor computes ticks with about m values for the current domain.
-func (c *rowChart) ticksFor(m int) scale.Ticks {
+// ticksFor computes ticks with about m values (at least floor) for the
+// current domain.
+func (c *rowChart) ticksFor(m, floor int) scale.Ticks {
 	lo, hi := c.d0, c.d1
+	o := scale.TickOptions{Min: floor, Zero: true, Integer: !c.percent && scale.IsInteger(c.values())}
 	if c.from != nil || c.to != nil {
-		// A domain set by the user is kept; ticks fall inside it.
-		t := scale.Extended(lo, hi, m, false)
+		// An end set by the user is kept and ticks fall inside it; the other
+		// end extends to its outer tick as usual.
+		if !c.dots {
+			lo, hi = math.Min(lo, 0), math.Max(hi, 0)
+		}
+		t := scale.NiceTicks(lo, hi, m, o)
+		eps := 1e-9 * math.Abs(hi-lo)
 		var in []float64
 		for _, v := range t.Values {
-			if v >= lo-1e-9*math.Abs(hi-lo) && v <= hi+1e-9*math.Abs(hi-lo) {
+			if (c.from == nil || v >= lo-eps) && (c.to == nil || v <= hi+eps) {
 				in = append(in, v)
 			}
 		}
 		t.Values = in
-		if c.from == nil && len(in) > 0 && in[0] > lo {
-			return scale.NiceDomain(lo, hi, m)
-		}
 		return t
 	}
-	if c.dots {
-		return scale.NiceDomain(lo, hi, m)
+	if !c.dots {
+		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
 	}
-	return scale.BarDomain(lo, hi, m)
+	return scale.NiceTicks(lo, hi, m, o)
 }
 
 // ticksFit reports whether the tick labels of t, centred on their ticks,
 // keep at least one text height apart along an axis of this length.
 func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
-	tf := scale.TickFormat(t.Values, c.unit)
+	labels := c.tickLabels(t.Values)
 	span := t.Values[len(t.Values)-1] - t.Values[0]
 	if span <= 0 {
 		return true
 	}
 	step := length * (t.Values[1] - t.Values[0]) / span
 	widest := 0.0
-	for _, v := range t.Values {
-		widest = math.Max(widest, c.f.measure(tf.Format(v), c.f.spec.text, false))
+	for _, l := range labels {
+		widest = math.Max(widest, c.f.measure(l, c.f.spec.text, false))
 	}
 	return widest+c.f.spec.text <= step
 }
@@ -391,7 +478,11 @@ func (c *rowChart) wrapLabels(width float64, maxLines int) ([][]string, float64,
 	wrapped := make([][]string, len(c.rows))
 	widest, most := 0.0, 1
 	for i, r := range c.rows {
-		lines, cut := f.wrap(r.label, size, r.highlight, width, maxLines)
+		text := r.label
+		if r.short != "" {
+			text = r.short
+		}
+		lines, cut := f.wrap(text, size, r.highlight, width, maxLines)
 		wrapped[i] = lines
 		if cut {
 			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
@@ -404,12 +495,29 @@ func (c *rowChart) wrapLabels(width float64, maxLines int) ([][]string, float64,
 	return wrapped, widest, most
 }
 
+// wrapLabelsQuiet is wrapLabels without its notes, for estimates.
+func (c *rowChart) wrapLabelsQuiet(width float64, maxLines int) ([][]string, float64, int) {
+	notes := len(c.f.scene.Notes)
+	w, widest, most := c.wrapLabels(width, maxLines)
+	c.f.scene.Notes = c.f.scene.Notes[:notes]
+	return w, widest, most
+}
+
 // valueTexts formats every row's value label and measures it.
 func (c *rowChart) valueTexts() ([]string, []float64) {
 	text := make([]string, len(c.rows))
 	width := make([]float64, len(c.rows))
+	bare := c.vfmt
+	if !scale.IsCurrency(bare.Unit) {
+		bare.Unit = ""
+	}
 	for i, r := range c.rows {
-		text[i] = c.vfmt.Format(r.value)
+		// The unit is said once, on the first label, where the reader starts
+		// (on columns, whose labels must be narrow, the axis title says it).
+		text[i] = bare.Format(r.value)
+		if i == 0 && (!c.vertical || c.axisTitle() == "") {
+			text[i] = c.vfmt.Format(r.value)
+		}
 		width[i] = c.f.measure(text[i], c.f.spec.text, false)
 	}
 	return text, width
@@ -448,9 +556,9 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 			g.x0, g.x1 = g.plotL+rl, right-rr
 			c.fitTicks(g.x1-g.x0, true)
 			// The end tick labels are centred on their ticks: keep them on the canvas.
-			tf := scale.TickFormat(c.ticks.Values, c.unit)
-			if k := len(c.ticks.Values); k > 0 {
-				lastHalf := f.measure(tf.Format(c.ticks.Values[k-1]), sp.text, false) / 2
+			labels := c.tickLabels(c.ticks.Values)
+			if k := len(labels); k > 0 {
+				lastHalf := f.measure(labels[k-1], sp.text, false) / 2
 				if g.x1+lastHalf > right {
 					rr = math.Max(rr, lastHalf)
 					continue
@@ -483,14 +591,14 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	f, sp := c.f, c.f.spec
 	lh := lineHeight(sp.text)
 	asc := f.fonts.Face(false).Ascent(sp.text)
-	tf := scale.TickFormat(c.ticks.Values, c.unit)
+	labels := c.tickLabels(c.ticks.Values)
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	for _, t := range c.ticks.Values {
+	for i, t := range c.ticks.Values {
 		x := round2(g.xs.Map(t))
 		if !(t == 0 && !c.dots) {
 			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1})
 		}
-		f.text(x, bottom+sp.gap+asc, tf.Format(t), sp.text, false, f.th.muted, "plumb-tick", Middle)
+		f.text(x, bottom+sp.gap+asc, labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
 	}
 	axisBottom := bottom + sp.gap + lh
 	if title := c.axisTitle(); title != "" {
@@ -578,10 +686,61 @@ func (c *rowChart) axisTitle() string {
 		}
 		return "Share of total " + name + " (%)"
 	}
-	if c.unit != "" && name != "" {
+	// A currency sign is on every tick already (see tickLabels).
+	if c.unit != "" && name != "" && !scale.IsCurrency(c.unit) && !namesUnit(name, c.unit) {
 		return name + " (" + c.unit + ")"
 	}
 	return name
+}
+
+// namesUnit reports whether a value name already says its unit, as
+// "Weight (g)" or a column called "rainfall_mm" does, so the axis title
+// does not say it twice.
+func namesUnit(name, unit string) bool {
+	n, u := strings.ToLower(name), strings.ToLower(unit)
+	for _, form := range []string{"(" + u + ")", "_" + u, " " + u, "[" + u + "]"} {
+		if strings.Contains(n, form+" ") || strings.HasSuffix(n, form) {
+			return true
+		}
+	}
+	return false
+}
+
+// values returns the plotted values of the rows.
+func (c *rowChart) values() []float64 {
+	v := make([]float64, len(c.rows))
+	for i, r := range c.rows {
+		v[i] = r.value
+	}
+	return v
+}
+
+// tickLabels prints the ticks of the value axis. A unit is said once per
+// axis: in the axis title when there is one, else on the outermost tick,
+// never on every tick ("3700 g ... 5100 g" makes the reader skip the same
+// word at every tick). A currency sign stays on every tick: it is part of
+// how an amount is written ("$5"), one character wide, and a bare 5 beside
+// $10 would read as another quantity (common practice).
+func (c *rowChart) tickLabels(ticks []float64) []string {
+	tf := scale.TickFormat(ticks, c.unit)
+	if scale.IsCurrency(c.unit) {
+		return formatAll(tf, ticks)
+	}
+	bare := tf
+	bare.Unit = ""
+	out := formatAll(bare, ticks)
+	if c.unit != "" && c.axisTitle() == "" && len(ticks) > 0 {
+		out[len(out)-1] = tf.Format(ticks[len(ticks)-1])
+	}
+	return out
+}
+
+func formatAll(f scale.Format, vs []float64) []string {
+	out := make([]string, len(vs))
+	for i, v := range vs {
+		out[i] = f.Format(v)
+	}
+	return out
 }
 
 // layoutColumns draws vertical bars and returns the y under the labels.
@@ -597,7 +756,20 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	}
 	// Width first: the tick labels' width depends on the ticks, which depend
 	// on the height; the height is fixed by the medium or chosen here.
-	labelsH := 2*lh + sp.gap
+	// The category labels' height depends on the column width, which
+	// depends on the tick labels: estimate the width from the widest value
+	// text (ticks are rounder and not wider), and keep to the lines
+	// reserved here when the labels are wrapped for good below.
+	guess := 0.0
+	for _, v := range c.values() {
+		guess = math.Max(guess, f.measure(c.vfmt.Format(v), sp.text, false))
+	}
+	maxLines := 3
+	if band := (f.width - 2*sp.pad - guess - sp.gap) / float64(n); band > sp.gap {
+		c.abbreviateCalendar(band - sp.gap)
+		_, _, maxLines = c.wrapLabelsQuiet(band-sp.gap, 3)
+	}
+	labelsH := float64(maxLines)*lh + sp.gap
 	plotH := math.Min(f.width*0.5, 420*sp.text/13)
 	if fb := f.fixedPlotBottom(); fb > 0 {
 		plotH = fb - top - labelsH
@@ -618,10 +790,10 @@ func (c *rowChart) layoutColumns() (float64, error) {
 		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller --size or drop --vertical")
 	}
 	c.fitTicks(plotH-rt-rb, false)
-	tf := scale.TickFormat(c.ticks.Values, c.unit)
+	labels := c.tickLabels(c.ticks.Values)
 	tickW := 0.0
-	for _, t := range c.ticks.Values {
-		tickW = math.Max(tickW, f.measure(tf.Format(t), sp.text, false))
+	for _, l := range labels {
+		tickW = math.Max(tickW, f.measure(l, sp.text, false))
 	}
 	plotL := sp.pad + tickW + sp.gap
 	plotR := f.width - sp.pad
@@ -635,23 +807,32 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	bottom := top + plotH
 
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	for _, t := range c.ticks.Values {
+	for i, t := range c.ticks.Values {
 		y := round2(ys.Map(t))
 		if t != 0 {
 			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1})
 		}
-		f.text(plotL-sp.gap, y+(asc-desc)/2, tf.Format(t), sp.text, false, f.th.muted, "plumb-tick", End)
+		f.text(plotL-sp.gap, y+(asc-desc)/2, labels[i], sp.text, false, f.th.muted, "plumb-tick", End)
 	}
 	f.scene.Add(Mark{Kind: GroupEnd})
 	zero := round2(ys.Map(0))
 	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
 
 	vtext, vw := c.valueTexts()
-	showValues := slices.IndexFunc(vw, func(w float64) bool { return w > band-2 }) < 0
-	if !showValues {
-		f.scene.Note("value-labels-dropped", false, "left out the value labels: they are wider than the columns; the axis carries the values (or drop --vertical)")
+	tooWide := func(w float64) bool { return w > band-2 }
+	if slices.IndexFunc(vw, tooWide) >= 0 {
+		// Shorter numbers before no numbers: three significant digits,
+		// each value abbreviated on its own ($3.23M, $119k).
+		c.vfmt = scale.ShortValueFormat(c.values(), c.unit)
+		vtext, vw = c.valueTexts()
 	}
-	wrapped, _, lines := c.wrapLabels(band-sp.gap, 2)
+	showValues := slices.IndexFunc(vw, tooWide) < 0
+	if !showValues {
+		f.scene.Note("value-labels-dropped", false, "left out the value labels: even with three significant digits they are wider than the columns; the axis carries the values (or drop --vertical)")
+	}
+	c.abbreviateCalendar(band - sp.gap)
+	// Words wrap at their boundaries, up to three lines, before any is shortened.
+	wrapped, _, lines := c.wrapLabels(band-sp.gap, maxLines)
 	for i, r := range c.rows {
 		cx := plotL + (float64(i)+0.5)*band
 		yv := round2(ys.Map(r.value))
@@ -673,6 +854,66 @@ func (c *rowChart) layoutColumns() (float64, error) {
 		}
 	}
 	return bottom + sp.gap + float64(lines)*lh, nil
+}
+
+// abbreviateCalendar gives month and weekday names their standard short
+// forms (Jan, Feb; Mon, Tue) when any category label does not fit width, all
+// of them alike, so an axis never mixes "March" with "Jan…". When even the
+// three-letter forms do not fit, the one-letter initials are used (J F M;
+// M T W), as on printed calendars (common practice).
+func (c *rowChart) abbreviateCalendar(width float64) {
+	f, size := c.f, c.f.spec.text
+	fits := func(s string, bold bool) bool { return f.measure(s, size, bold) <= width }
+	short := make([]string, len(c.rows))
+	all, over := true, false
+	for i, r := range c.rows {
+		ab, ok := calendarShort(r.label)
+		if !ok {
+			all = false
+			break
+		}
+		short[i] = ab
+		over = over || !fits(r.label, r.highlight)
+	}
+	if !all || !over {
+		return
+	}
+	initials := false
+	for i, r := range c.rows {
+		initials = initials || !fits(short[i], r.highlight)
+	}
+	again := c.rows[0].short != ""
+	for i := range c.rows {
+		if initials {
+			short[i] = short[i][:1]
+		}
+		c.rows[i].short = short[i]
+	}
+	if again {
+		return
+	}
+	f.scene.Note("calendar-abbreviated", false, "wrote the month or weekday names in their standard short forms to fit the columns")
+}
+
+// calendarShort returns the standard three-letter form of an English month
+// or weekday name, full or already abbreviated ("September", "Sept", "sep").
+func calendarShort(label string) (string, bool) {
+	l := strings.ToLower(strings.TrimSuffix(strings.TrimSpace(label), "."))
+	switch l {
+	case "sept":
+		return "Sep", true
+	case "tues":
+		return "Tue", true
+	case "thur", "thurs":
+		return "Thu", true
+	}
+	for _, n := range []string{"January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December",
+		"Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday", "Sunday"} {
+		if ab := n[:3]; l == strings.ToLower(n) || l == strings.ToLower(ab) {
+			return ab, true
+		}
+	}
+	return "", false
 }
 
 // accessibleTitle names an untitled chart for assistive technology.

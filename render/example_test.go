@@ -48,13 +48,23 @@ func ExampleBars_other() {
 	labels := []string{"a", "b", "c", "d", "e", "f"}
 	values := []float64{60, 50, 40, 3, 2, 1}
 	var svg bytes.Buffer
-	notes, err := render.Bars(&svg, labels, values, render.BarsOptions{Top: 4})
+	// Counts are parts of a whole: the smallest may be summed into Other.
+	notes, err := render.Bars(&svg, labels, values, render.BarsOptions{Top: 4, Additive: true})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	fmt.Println(notes[0])
-	// Output: combined the 3 smallest of 6 categories into "Other (3)" (summed): "d", "e", "f"; show more with --top
+	// Medians are not: the smallest are left out, and the chart says so.
+	notes, err = render.Bars(&svg, labels, values, render.BarsOptions{Top: 4})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Println(notes[0].Code)
+	// Output:
+	// combined the 3 smallest of 6 categories into "Other (3)" (summed): "d", "e", "f"; show more with --top
+	// left-out
 }
 
 // A dot plot places values on a domain fitted to the data: here the axis

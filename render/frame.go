@@ -198,3 +198,15 @@ func (f *frame) measure(s string, size float64, bold bool) float64 {
 func (f *frame) wrap(text string, size float64, bold bool, width float64, maxLines int) ([]string, bool) {
 	return layout.Wrap(f.fonts.Face(bold), text, size, width/f.slack, maxLines)
 }
+
+// addNote adds a line under the chart, below the source and note, for what
+// the reader cannot see in the plot (categories left out). Call it before
+// laying out the plot: on a fixed canvas the plot's height depends on it.
+func (f *frame) addNote(text string) {
+	y := f.footH
+	if y > 0 {
+		y -= f.spec.gap
+	}
+	y = f.block(&f.foot, y, text, f.spec.small, false, f.th.muted, "plumb-note", f.width-2*f.spec.pad, 2)
+	f.footH = y + f.spec.gap
+}

@@ -24,10 +24,27 @@ const (
 	ByData  Order = "data"  // as given: time, ranks, ordinal scales
 )
 
-// DefaultTop is how many categories a chart shows before combining the
-// smallest into one Other bar. About a dozen labelled rows still read at a
-// glance on a page (common practice).
+// DefaultTop is how many categories a chart of parts of a whole shows
+// before combining the smallest into one Other bar. About a dozen labelled
+// rows still read at a glance on a page (common practice).
 const DefaultTop = 12
+
+// OtherMode says whether and how categories beyond Top are combined into
+// one "Other (k)" row.
+type OtherMode string
+
+// Other modes. The zero OtherMode is OtherAuto.
+const (
+	// OtherAuto sums the rest into Other only when the values are parts of
+	// a whole (Percent or Additive); otherwise it draws every category, or
+	// with an explicit Top the largest ones, saying how many were left out.
+	// A sum of medians or rates is no quantity at all, and one such Other
+	// bar squashes every real bar.
+	OtherAuto OtherMode = ""
+	OtherSum  OtherMode = "sum"  // combine the rest by their sum: counts, amounts
+	OtherMean OtherMode = "mean" // combine the rest by their mean
+	OtherNone OtherMode = "none" // never combine: draw all, or leave the rest out with a note
+)
 
 // DefaultDotsTop is the same limit for dot plots. A dot needs one line of
 // text, not a bar's thickness, and a dot plot stays readable with a few
@@ -40,7 +57,8 @@ type row struct {
 	value     float64 // the plotted value (a share when drawing percentages)
 	raw       float64 // the value as given
 	highlight bool
-	other     int // > 0: this row combines that many categories
+	other     int    // > 0: this row combines that many categories
+	short     string // the label as drawn when it takes a standard short form ("Jan")
 }
 
 // checkRows validates parallel label and value slices.
@@ -78,14 +96,9 @@ func arrange(rows []row, order Order) error {
 	return nil
 }
 
-// combineTail keeps the top-1 rows by value and folds the rest into one
-// Other row placed last. sum says whether values add up (sums, counts);
-// otherwise Other shows the mean of the combined values. Rows must already be
-// in display order; the kept rows keep that order.
-func combineTail(rows []row, top int, sum bool) ([]row, string) {
-	if top < 2 || len(rows) <= top {
-		return rows, ""
-	}
+// keepLargest returns which rows to keep when only top may be drawn: the
+// highlighted rows (what the reader was asked to find) and then the largest.
+func keepLargest(rows []row, top int) []bool {
 	idx := make([]int, len(rows))
 	for i := range idx {
 		idx[i] = i
@@ -96,8 +109,6 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 		}
 		return naturalCompare(rows[a].label, rows[b].label)
 	})
-	// Highlighted rows are what the reader was asked to find: they are never
-	// folded away, and take their place among the top-1 kept rows.
 	keep := make([]bool, len(rows))
 	kept := 0
 	for i, r := range rows {
@@ -107,7 +118,7 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 		}
 	}
 	for _, i := range idx {
-		if kept >= top-1 {
+		if kept >= top {
 			break
 		}
 		if !keep[i] {
@@ -115,6 +126,39 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 			kept++
 		}
 	}
+	return keep
+}
+
+// leaveOut keeps the top largest rows (and every highlighted one) in their
+// display order and returns them with the labels of the rows left out.
+func leaveOut(rows []row, top int) ([]row, []string) {
+	if top < 1 || len(rows) <= top {
+		return rows, nil
+	}
+	keep := keepLargest(rows, top)
+	var out []row
+	var gone []string
+	for i, r := range rows {
+		if keep[i] {
+			out = append(out, r)
+		} else {
+			gone = append(gone, r.label)
+		}
+	}
+	return out, gone
+}
+
+// combineTail keeps the top-1 rows by value and folds the rest into one
+// Other row placed last. sum says whether values add up (sums, counts);
+// otherwise Other shows the mean of the combined values. Rows must already be
+// in display order; the kept rows keep that order.
+func combineTail(rows []row, top int, sum bool) ([]row, string) {
+	if top < 2 || len(rows) <= top {
+		return rows, ""
+	}
+	// Highlighted rows are what the reader was asked to find: they are never
+	// folded away, and take their place among the top-1 kept rows.
+	keep := keepLargest(rows, top-1)
 	var out []row
 	other := row{}
 	var names []string

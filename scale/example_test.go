@@ -57,15 +57,21 @@ func ExampleTickFormat() {
 }
 
 func ExampleValueFormat() {
+	// Millions would print 12,000 as "−0.01M": one significant digit. The
+	// values are printed in full instead, grouped in thousands.
 	values := []float64{2461234, 980500, -12000}
 	f := scale.ValueFormat(values, "")
 	for _, v := range values {
 		fmt.Println(f.Format(v))
 	}
+	// Abbreviations that keep three digits of every value are used.
+	g := scale.ValueFormat([]float64{118750, 95000}, "$")
+	fmt.Println(g.Format(118750), g.Format(95000))
 	// Output:
-	// 2.46M
-	// 0.98M
-	// −0.01M
+	// 2,461,234
+	// 980,500
+	// −12,000
+	// $119k $95k
 }
 
 func ExampleLinear() {

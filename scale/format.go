@@ -19,6 +19,11 @@ type Format struct {
 	// value has five or more, so years such as 2024 stay "2024" unless the
 	// same axis also shows "12,500", and then all of them are grouped alike.
 	Group bool
+	// Short ignores Divisor, Suffix and Group and prints each value with
+	// three significant digits and its own abbreviation, Decimals bounding
+	// the digits after the point of values below 1,000 (see
+	// ShortValueFormat).
+	Short bool
 }
 
 // minusSign is U+2212: a hyphen is too short to read as a minus in most fonts (common practice).
@@ -51,6 +56,15 @@ func (f Format) Format(v float64) string {
 			b.WriteString(f.Unit)
 		}
 		b.WriteString("0")
+	case f.Short:
+		s := short(math.Abs(v), f.Decimals)
+		if v < 0 && s != "0" {
+			b.WriteString(minusSign)
+		}
+		if IsCurrency(f.Unit) {
+			b.WriteString(f.Unit)
+		}
+		b.WriteString(s)
 	default:
 		d := min(max(f.Decimals, 0), maxFormatDecimals)
 		s := strconv.FormatFloat(math.Abs(x), 'f', d, 64)
@@ -171,22 +185,103 @@ func TickFormat(ticks []float64, unit string) Format {
 }
 
 // ValueFormat picks one Format for data value labels such as those at bar
-// ends. It abbreviates by the rule of magnitude (see TickFormat), always,
-// since value labels are read one at a time. The decimals show the largest
-// magnitude with three significant digits (2.46M, 12.3, 0.0123), or fewer
-// when fewer print every value exactly: integers below 1e4 get none. NaN and
-// infinite values are ignored.
+// ends, where each label is read as a number on its own.
+//
+// The decimals are the fewest that give the largest value three
+// significant digits (2.46M, 12.3, 0.0123) and print any two values that
+// differ at three significant digits differently (17.4 and 17.0, not 17
+// and 17), but never more than the data itself shows: integers below 1e4
+// get none, and 17.4 beside 17 gives "17.4" and "17.0".
+//
+// Values are abbreviated by the rule of magnitude (see TickFormat) only when
+// the abbreviation keeps at least three significant digits of every nonzero
+// value, or prints it exactly, with at most two decimals: 118,750 among
+// millions prints "118,750", never "0.12M", and the whole set is then
+// printed in full with thousands separators. NaN and infinite values are
+// ignored.
 func ValueFormat(values []float64, unit string) Format {
-	a := maxAbs(values)
-	div, suffix := magnitude(a)
-	f := Format{Divisor: div, Suffix: suffix, Unit: unit}
-	if a > 0 && !math.IsInf(a, 0) {
-		sig := max(0, 2-floorLog10(a/div))
-		if d, exact := exactDecimals(values, div, sig); exact {
-			f.Decimals = d
-		} else {
-			f.Decimals = sig
+	div, suffix := magnitude(maxAbs(values))
+	if div != 1 {
+		if f, ok := valueFormatAt(values, unit, div, suffix); ok {
+			return f
 		}
+	}
+	f, _ := valueFormatAt(values, unit, 1, "")
+	return f
+}
+
+// ShortValueFormat is a Format for labels that must be narrow, such as
+// values above thin columns: each value is rounded to three significant
+// digits and abbreviated on its own from 1,000 on ("$3.23M", "$119k",
+// "$95.0k"). Values below 1,000 show no more decimals than the data itself
+// does (17.4 and 17.0, but 12 and 7). Values that differ at three
+// significant digits still print differently; the abbreviation may differ
+// from label to label, which suits labels read one at a time but not an
+// axis. NaN and infinite values are ignored.
+func ShortValueFormat(values []float64, unit string) Format {
+	own, _ := exactDecimals(values, 1, maxTickDecimals)
+	return Format{Unit: unit, Short: true, Decimals: max(own, distinctDecimals(values, 1))}
+}
+
+// short prints |v| rounded to three significant digits with its own
+// abbreviation, without sign or unit, and at most own decimals when not
+// abbreviated.
+func short(a float64, own int) string {
+	x := round3(a)
+	if x == 0 {
+		return "0"
+	}
+	div, suffix := magnitude(x)
+	if div == 1 && x >= 1e3 {
+		div, suffix = 1e3, "k"
+	}
+	y := x / div
+	d := max(0, 2-floorLog10(y))
+	if div == 1 {
+		d = min(d, max(own, 0))
+	}
+	return strconv.FormatFloat(y, 'f', d, 64) + suffix
+}
+
+// valueFormatAt chooses the decimals for values divided by div and reports
+// whether an abbreviation (div != 1) keeps three significant digits of
+// every value as ValueFormat requires.
+func valueFormatAt(values []float64, unit string, div float64, suffix string) (Format, bool) {
+	f := decimalsAt(values, unit, div, suffix)
+	if div == 1 || div < 1 || div >= 1e15 {
+		// ×10ⁿ notation has no plain alternative worth reading.
+		return f, true
+	}
+	if f.Decimals > 2 {
+		return f, false
+	}
+	for _, v := range values {
+		x := v / div
+		if !isFinite(x) || x == 0 {
+			continue
+		}
+		s := strconv.FormatFloat(math.Abs(x), 'f', f.Decimals, 64)
+		if y, _ := strconv.ParseFloat(s, 64); math.Abs(y-math.Abs(x)) <= 1e-9*math.Abs(x) {
+			continue // printed exactly: 95k is 95,000
+		}
+		if significantDigits(s) < 3 {
+			return f, false
+		}
+	}
+	return f, true
+}
+
+// decimalsAt is the Format of values divided by div with ValueFormat's
+// decimals: three significant digits for the largest, distinct text for
+// values that differ at three significant digits, at most the data's own.
+func decimalsAt(values []float64, unit string, div float64, suffix string) Format {
+	f := Format{Divisor: div, Suffix: suffix, Unit: unit}
+	a := maxAbs(values) / div
+	if a > 0 && isFinite(a) {
+		own, _ := exactDecimals(values, div, maxTickDecimals)
+		// Distinct text wins over the data's own decimals, whose tolerance
+		// calls 0.000002 beside 95,999 "exact" at none.
+		f.Decimals = max(min(own, max(0, 2-floorLog10(a))), distinctDecimals(values, div))
 	}
 	// Amounts of money with any fraction show whole cents (common practice).
 	if IsCurrency(unit) && f.Decimals == 1 && div == 1 {
@@ -194,6 +289,66 @@ func ValueFormat(values []float64, unit string) Format {
 	}
 	f.Group = needsGroup(values, f)
 	return f
+}
+
+// distinctDecimals is the fewest decimals that print any two finite values
+// (divided by div) differently when they differ at three significant
+// digits. Checking neighbours in sorted order suffices: rounding is
+// monotonic, so two values that print alike take every value between them
+// along.
+func distinctDecimals(values []float64, div float64) int {
+	xs := make([]float64, 0, len(values))
+	for _, v := range values {
+		if isFinite(v) && isFinite(v/div) {
+			xs = append(xs, v)
+		}
+	}
+	slices.Sort(xs)
+	// A coarser d may separate a pair that a finer one joins (0.47 and
+	// 0.52 are "0" and "1" but "0.5" and "0.5"), so each d checks all pairs.
+	for d := 0; d < maxTickDecimals; d++ {
+		ok := true
+		for i := 1; i < len(xs) && ok; i++ {
+			a, b := xs[i-1], xs[i]
+			ok = round3(a) == round3(b) || fixed(a/div, d) != fixed(b/div, d)
+		}
+		if ok {
+			return d
+		}
+	}
+	return maxTickDecimals
+}
+
+// fixed prints x with d decimals as Format does: no sign on a zero.
+func fixed(x float64, d int) string {
+	s := strconv.FormatFloat(x, 'f', d, 64)
+	if !strings.ContainsAny(s, "123456789") {
+		return strings.TrimPrefix(s, "-")
+	}
+	return s
+}
+
+// round3 rounds v to three significant digits (-0 equals 0).
+func round3(v float64) float64 {
+	x, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 3, 64), 64)
+	return x
+}
+
+// significantDigits counts the significant digits of an unsigned decimal:
+// its digits less the leading zeros ("0.12" has 2, "12.0" has 3).
+func significantDigits(s string) int {
+	n, lead := 0, true
+	for _, c := range s {
+		if c < '0' || c > '9' {
+			continue
+		}
+		if lead && c == '0' {
+			continue
+		}
+		lead = false
+		n++
+	}
+	return n
 }
 
 // IsCurrency reports whether a unit is a currency sign, written before the

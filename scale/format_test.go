@@ -2,6 +2,7 @@ package scale
 
 import (
 	"math"
+	"math/rand/v2"
 	"strconv"
 	"strings"
 	"testing"
@@ -128,7 +129,13 @@ func TestValueFormat(t *testing.T) {
 		{"three significant digits", []float64{12.34, 7.1}, "", []string{"12.3", "7.1"}},
 		{"small values", []float64{0.0123, 0.005}, "", []string{"0.0123", "0.0050"}},
 		{"exact with fewer digits", []float64{2.5e6, 1e6}, "", []string{"2.5M", "1.0M"}},
-		{"abbreviated to three digits", []float64{2461234, 10}, "", []string{"2.46M", "0.00M"}},
+		{"abbreviated to three digits", []float64{2461234, 1e6}, "", []string{"2.46M", "1.00M"}},
+		{"no abbreviation that loses digits", []float64{2461234, 10}, "", []string{"2,461,234", "10"}},
+		// The issue: a median of 118,750 among millions read "$0.12M".
+		{"small among millions", []float64{3234567, 118750}, "$", []string{"$3,234,567", "$118,750"}},
+		{"thousands abbreviated", []float64{118750, 95000, 102300}, "$", []string{"$119k", "$95k", "$102k"}},
+		{"decimals the data shows", []float64{17.4, 17}, "", []string{"17.4", "17.0"}},
+		{"differ at the third digit", []float64{0.5, 1200, 1201}, "", []string{"0", "1200", "1201"}},
 		{"thousands", []float64{12500, 9800}, "", []string{"12.5k", "9.8k"}},
 		{"percent", []float64{40, 12.5}, "%", []string{"40.0%", "12.5%"}},
 		{"unit", []float64{12}, "kg", []string{"12 kg"}},
@@ -211,5 +218,72 @@ func TestCurrencyLeads(t *testing.T) {
 	}
 	if got := ValueFormat([]float64{24.2, 7.55}, "£").Format(24.2); got != "£24.20" {
 		t.Errorf("money with a fraction shows whole cents: got %q", got)
+	}
+}
+
+// TestValueFormatKeepsDistinctValuesApart is the property the issue asks
+// for: no two values that differ at three significant digits print the same
+// label, whatever their magnitudes, signs and units; and no abbreviated
+// label keeps fewer than three significant digits unless it is exact.
+func TestValueFormatKeepsDistinctValuesApart(t *testing.T) {
+	r := rand.New(rand.NewPCG(11, 12))
+	units := []string{"", "%", "$", "kg"}
+	for range 3000 {
+		n := 2 + r.IntN(30)
+		vs := make([]float64, n)
+		mag := math.Pow10(r.IntN(14) - 4)
+		for i := range vs {
+			switch r.IntN(4) {
+			case 0: // medians: a few digits, some repeats of the leading ones
+				vs[i] = math.Round(r.Float64()*mag*100) / 100
+			case 1:
+				vs[i] = math.Round(r.NormFloat64() * mag)
+			case 2:
+				vs[i] = r.Float64() * mag * math.Pow10(r.IntN(5)-2)
+			default:
+				vs[i] = float64(r.IntN(100000))
+			}
+		}
+		unit := units[r.IntN(len(units))]
+		for _, short := range []bool{false, true} {
+			f := ValueFormat(vs, unit)
+			if short {
+				f = ShortValueFormat(vs, unit)
+			}
+			seen := map[string]float64{}
+			for _, v := range vs {
+				s := f.Format(v)
+				if w, ok := seen[s]; ok && round3(v) != round3(w) {
+					t.Fatalf("%v (short %v): %g and %g both print %q", vs, short, v, w, s)
+				}
+				seen[s] = v
+			}
+			if short || f.Suffix == "" || f.Divisor < 1 {
+				continue
+			}
+			for _, v := range vs {
+				x := math.Abs(v / f.Divisor)
+				s := strconv.FormatFloat(x, 'f', f.Decimals, 64)
+				if y, _ := strconv.ParseFloat(s, 64); v != 0 && math.Abs(y-x) > 1e-9*x && significantDigits(s) < 3 {
+					t.Fatalf("%v: %g prints %q, fewer than three significant digits", vs, v, f.Format(v))
+				}
+			}
+		}
+	}
+}
+
+func TestShortValueFormat(t *testing.T) {
+	for _, tc := range []struct {
+		values []float64
+		unit   string
+		want   []string
+	}{
+		{[]float64{3234567, 118750, 95000, -999999}, "$", []string{"$3.23M", "$119k", "$95.0k", "\u2212$1.00M"}},
+		{[]float64{9800, 1250, 17.4, 17, 0.01234, 0}, "", []string{"9.80k", "1.25k", "17.4", "17.0", "0.0123", "0"}},
+		{[]float64{101.7, 55, 12}, "", []string{"102", "55.0", "12.0"}},
+		{[]float64{12, 7}, "", []string{"12", "7"}},
+		{[]float64{45.26}, "%", []string{"45.3%"}},
+	} {
+		assert.Equal(t, tc.want, formatAll(ShortValueFormat(tc.values, tc.unit), tc.values))
 	}
 }

@@ -69,7 +69,7 @@ func Extended(dmin, dmax float64, m int, onlyLoose bool) Ticks {
 	if r := dmax - dmin; r < rangeEpsilon || r > sqrtMaxFloat {
 		return evenTicks(dmin, dmax, m)
 	}
-	l, ok := search(dmin, dmax, m, onlyLoose, 0)
+	l, ok := search(dmin, dmax, m, onlyLoose, 0, constraint{})
 	if !ok {
 		return Ticks{}
 	}
@@ -90,16 +90,21 @@ func (l labelling) ticks() Ticks {
 // fused and unfused scores differ in the last bit and change tie-breaks
 // against R (methods.md §1.6). A loose labelling may miss the data by slack
 // (0 in R); NiceDomain allows rounding noise there and then snaps the ends.
-func search(dmin, dmax float64, m int, onlyLoose bool, slack float64) (labelling, bool) {
+//
+// A constraint removes candidates without changing any score, so the bounds
+// that end the search early stay valid; the zero constraint leaves R's
+// results unchanged.
+func search(dmin, dmax float64, m int, onlyLoose bool, slack float64, con constraint) (labelling, bool) {
 	best := labelling{score: -2}
 	found := false
+	spansZero := con.zero && dmin < 0 && dmax > 0
 	for j := 1; ; j++ {
 		for qi, q := range niceQ {
 			sm := simplicityMax(qi, j)
 			if float64(wSimplicity*sm)+wCoverage+wDensity+wLegibility < best.score {
 				return best, found
 			}
-			for k := 2; ; k++ {
+			for k := max(2, con.minK); ; k++ {
 				dm := densityMax(k, m)
 				if float64(wSimplicity*sm)+wCoverage+float64(wDensity*dm)+wLegibility < best.score {
 					break
@@ -111,6 +116,10 @@ func search(dmin, dmax float64, m int, onlyLoose bool, slack float64) (labelling
 					if float64(wSimplicity*sm)+float64(wCoverage*cm)+float64(wDensity*dm)+wLegibility < best.score {
 						break
 					}
+					// Labels fall on multiples of q·10^z: whole numbers when it is one.
+					if u := float64(q * math.Pow10(z)); con.integer && (u < 1 || u != math.Floor(u)) {
+						continue
+					}
 					minStart := float64(math.Floor(dmax/step)*float64(j)) - float64(float64(k-1)*float64(j))
 					maxStart := float64(math.Ceil(dmin/step) * float64(j))
 					// R's minStart:maxStart; counting with an integer cannot stall
@@ -119,6 +128,9 @@ func search(dmin, dmax float64, m int, onlyLoose bool, slack float64) (labelling
 						start := minStart + float64(i)
 						lmin := start * (step / float64(j))
 						lmax := lmin + float64(step*float64(k-1))
+						if spansZero && !(math.Mod(start, float64(j)) == 0 && lmin <= 0 && lmax >= 0) {
+							continue
+						}
 						s := simplicity(qi, j, start, lmin, lmax)
 						c := coverage(dmin, dmax, lmin, lmax)
 						g := density(k, m, dmin, dmax, lmin, lmax)
@@ -314,7 +326,7 @@ type grid struct {
 // ticks are the bounds themselves. NaN or infinite bounds give an empty
 // Ticks; callers validate their data before this point.
 func NiceDomain(lo, hi float64, m int) Ticks {
-	t, _, _ := niceDomain(lo, hi, m)
+	t, _, _ := niceDomain(lo, hi, m, constraint{})
 	return t
 }
 
@@ -327,7 +339,7 @@ func BarDomain(lo, hi float64, m int) Ticks {
 		return Ticks{}
 	}
 	a, b := min(lo, hi, 0), max(lo, hi, 0)
-	t, g, ok := niceDomain(a, b, m)
+	t, g, ok := niceDomain(a, b, m, constraint{})
 	if hasZero(t.Values) {
 		return t
 	}
@@ -369,7 +381,7 @@ func hasZero(v []float64) bool {
 
 // niceDomain does the work of NiceDomain and also reports the label grid
 // (ok is false for the bounds-only fallback).
-func niceDomain(lo, hi float64, m int) (Ticks, grid, bool) {
+func niceDomain(lo, hi float64, m int, con constraint) (Ticks, grid, bool) {
 	if !isFinite(lo) || !isFinite(hi) {
 		return Ticks{}, grid{}, false
 	}
@@ -380,8 +392,20 @@ func niceDomain(lo, hi float64, m int) (Ticks, grid, bool) {
 	if hi-lo <= 1e-12*math.Max(math.Abs(lo), math.Abs(hi)) {
 		lo, hi = widen(lo/2 + hi/2)
 	}
-	if t, g, ok := niceTicks(lo, hi, m); ok {
+	if t, g, ok := niceTicks(lo, hi, m, con); ok {
 		return t, g, true
+	}
+	if con != (constraint{}) {
+		// The search found no labelling that meets the constraint and scores
+		// above its floor (three whole-number ticks for counts of 0 and 1
+		// cover the data poorly): step through the range instead, and else
+		// drop the constraint, since any ticks beat none.
+		if t, ok := steppedTicks(lo, hi, con); ok {
+			return t, grid{}, false
+		}
+		if t, g, ok := niceTicks(lo, hi, m, constraint{}); ok {
+			return t, g, true
+		}
 	}
 	step := hi - lo
 	if math.IsInf(step, 0) {
@@ -408,14 +432,14 @@ func widen(v float64) (lo, hi float64) {
 // niceTicks runs the loose search, in units of a power of ten when the range
 // is too small or too large for the search's absolute tolerances and
 // squared terms, and checks the result.
-func niceTicks(lo, hi float64, m int) (Ticks, grid, bool) {
+func niceTicks(lo, hi float64, m int, con constraint) (Ticks, grid, bool) {
 	r := hi - lo
 	var (
 		t Ticks
 		g grid
 	)
 	if r >= 1e-9 && r <= 1e100 {
-		l, ok := search(lo, hi, m, true, 1e-10*r)
+		l, ok := search(lo, hi, m, true, 1e-10*r, con)
 		if !ok {
 			return Ticks{}, grid{}, false
 		}
@@ -432,7 +456,10 @@ func niceTicks(lo, hi float64, m int) (Ticks, grid, bool) {
 		slo, shi := mulPow10(lo, -p), mulPow10(hi, -p)
 		// The scaled bounds carry rounding noise of a few ulps; the slack
 		// keeps it from rejecting the labelling that fits the true bounds.
-		l, ok := search(slo, shi, m, true, 1e-10*(shi-slo))
+		// Whole-number steps mean nothing in power-of-ten units.
+		sc := con
+		sc.integer = false
+		l, ok := search(slo, shi, m, true, 1e-10*(shi-slo), sc)
 		if !ok {
 			return Ticks{}, grid{}, false
 		}
@@ -512,4 +539,172 @@ func mulPow10(x float64, n int) float64 {
 		return x * math.Pow10(n)
 	}
 	return x / math.Pow10(-n)
+}
+
+// constraint narrows the tick search; its zero value is R's search.
+type constraint struct {
+	minK    int  // at least this many labels
+	integer bool // only whole-number steps of at least 1
+	zero    bool // a range that spans zero labels zero
+}
+
+// TickOptions constrain NiceTicks beyond its target count. The zero value
+// gives NiceDomain's ticks.
+type TickOptions struct {
+	// Min is the fewest ticks to return; MinTicks gives the floor for an
+	// axis length. A target below it is raised to it.
+	Min int
+	// Integer allows only whole-number steps of at least 1, for data that
+	// is counted or names whole units (counts, years): 2018.25 is not a
+	// year. IsInteger tells whether data qualifies.
+	Integer bool
+	// Zero labels zero whenever it lies inside the range, because zero is
+	// the value readers look for first on an axis that crosses it (common
+	// practice). IncludeZero does the same for ticks already chosen.
+	Zero bool
+}
+
+// Tick spacing at screen size: one labelled tick per about 75 px of axis
+// for 13 px text, the middle of the 50-100 px readers find neither sparse
+// nor crowded (common practice); the spacing grows with the text.
+const (
+	tickSpacing  = 75.0
+	tickTextSize = 13.0
+	// floorLength is the axis length beyond which an axis carries at least
+	// three labelled ticks: two labels give a range but no sense of the
+	// scale between them (common practice).
+	floorLength = 150.0
+)
+
+// TickTarget is the tick count to ask for on an axis length pixels long
+// whose labels are set in text px type: about one tick per 75 px at 13 px
+// text, scaled with the text size, and never below MinTicks(length). Give
+// it as m to NiceTicks, NiceDomain or Extended. Non-finite or non-positive
+// inputs give 2.
+func TickTarget(length, text float64) int {
+	if !(length > 0) || !(text > 0) || math.IsInf(length, 0) || math.IsInf(text, 0) {
+		return 2
+	}
+	per := tickSpacing * text / tickTextSize
+	n := math.Round(length/per) + 1
+	if n > MaxTicks {
+		return MaxTicks
+	}
+	return max(int(n), MinTicks(length))
+}
+
+// MinTicks is the fewest labelled ticks an axis of this length in pixels
+// may carry: 3 beyond 150 px, else 2.
+func MinTicks(length float64) int {
+	if length > floorLength {
+		return 3
+	}
+	return 2
+}
+
+// IsInteger reports whether every finite value is a whole number, so that
+// its axis should step by whole numbers (TickOptions.Integer). Empty input
+// or only non-finite values give false.
+func IsInteger(values []float64) bool {
+	any := false
+	for _, v := range values {
+		if !isFinite(v) {
+			continue
+		}
+		if v != math.Trunc(v) {
+			return false
+		}
+		any = true
+	}
+	return any
+}
+
+// NiceTicks is NiceDomain with constraints: loose ticks for [lo, hi], the
+// first <= lo and the last >= hi, about m of them (at least o.Min), with
+// whole-number steps when o.Integer and zero labelled when o.Zero and zero
+// lies inside. When no labelling meets Integer (a range under one, say) it
+// is dropped rather than returning no ticks; Zero and Min always hold when
+// the range permits. NaN or infinite bounds give an empty Ticks.
+func NiceTicks(lo, hi float64, m int, o TickOptions) Ticks {
+	if !isFinite(lo) || !isFinite(hi) {
+		return Ticks{}
+	}
+	m = max(m, o.Min)
+	con := constraint{minK: min(o.Min, MaxTicks), integer: o.Integer, zero: o.Zero}
+	t, _, _ := niceDomain(lo, hi, m, con)
+	if o.Zero {
+		t = IncludeZero(t)
+	}
+	return t
+}
+
+// IncludeZero returns t with zero among its values when zero lies strictly
+// between its first and last value. It keeps the step and takes every
+// multiple of it from the first to the last value, widened to whole steps
+// (so the ends may move out by less than a step); when that would take more
+// than 4·MaxTicks values, zero is inserted in place. Ticks that already
+// label zero, or do not straddle it, are returned unchanged.
+func IncludeZero(t Ticks) Ticks {
+	v := t.Values
+	if len(v) < 2 || !(v[0] < 0 && v[len(v)-1] > 0) || hasZero(v) {
+		return t
+	}
+	step := t.Step
+	if step > 0 && isFinite(step) {
+		i0, i1 := math.Floor(v[0]/step), math.Ceil(v[len(v)-1]/step)
+		if n := i1 - i0 + 1; n >= 2 && n <= 4*MaxTicks {
+			w := make([]float64, int(n))
+			for i := range w {
+				w[i] = (i0 + float64(i)) * step // i = -i0 gives exactly 0
+			}
+			if hasZero(w) {
+				d, _ := exactDecimals(w, 1, maxTickDecimals)
+				return Ticks{Values: w, Step: step, Decimals: max(t.Decimals, d)}
+			}
+		}
+	}
+	w := make([]float64, 0, len(v)+1)
+	for _, x := range v {
+		if len(w) > 0 && w[len(w)-1] < 0 && x > 0 {
+			w = append(w, 0)
+		}
+		w = append(w, x)
+	}
+	return Ticks{Values: w, Step: step, Decimals: t.Decimals}
+}
+
+// steppedTicks covers [lo, hi] with the largest step of 1, 2 or 5 times a
+// power of ten (whole when con.integer) that gives at least con.minK ticks,
+// adding ticks above hi when the range is too short for that many. The
+// ticks start at a multiple of the step, so zero is one of them whenever it
+// lies inside.
+func steppedTicks(lo, hi float64, con constraint) (Ticks, bool) {
+	k := max(con.minK, 2)
+	r := hi - lo
+	if !(r > 0) || math.IsInf(r, 0) {
+		return Ticks{}, false
+	}
+	want := r / float64(k-1)
+	e := floorLog10(want)
+	step := 0.0
+	for _, q := range [...]float64{5, 2, 1} {
+		if s := q * math.Pow10(e); s <= want {
+			step = s
+			break
+		}
+	}
+	if con.integer && step < 1 {
+		step = 1
+	}
+	i0, i1 := math.Floor(lo/step), math.Ceil(hi/step)
+	n := max(i1-i0+1, float64(k))
+	if !(n <= 4*MaxTicks) {
+		return Ticks{}, false
+	}
+	v := make([]float64, int(n))
+	for i := range v {
+		v[i] = (i0 + float64(i)) * step
+	}
+	d, _ := exactDecimals(v, 1, maxTickDecimals)
+	return Ticks{Values: v, Step: step, Decimals: d}, true
 }

@@ -84,7 +84,7 @@ func TestExtendedReferenceTable(t *testing.T) {
 		name := strconv.FormatFloat(r.dmin, 'g', -1, 64) + "_" + strconv.FormatFloat(r.dmax, 'g', -1, 64) + "_" + strconv.Itoa(r.m)
 		t.Run(name, func(t *testing.T) {
 			// Talbot, Lin & Hanrahan (2010); R labeling::extended, methods.md §1.5.
-			l, ok := search(r.dmin, r.dmax, r.m, false, 0)
+			l, ok := search(r.dmin, r.dmax, r.m, false, 0, constraint{})
 			require.True(t, ok)
 			assert.Equal(t, r.q, l.q, "q")
 			assert.Equal(t, r.j, l.j, "j")
@@ -113,7 +113,7 @@ func TestExtendedReferenceTable(t *testing.T) {
 func TestExtendedHandCheck(t *testing.T) {
 	// Hand check of (8.1, 14.1, 4), methods.md §1.5 [D]: S = 1 - 2/5 - 1, C = 1 - 0.5(0.1²+0.1²)/0.6²,
 	// D = 2 - 6.1/6, score = 0.25S + 0.2C + 0.5D + 0.05.
-	l, ok := search(8.1, 14.1, 4, false, 0)
+	l, ok := search(8.1, 14.1, 4, false, 0, constraint{})
 	require.True(t, ok)
 	s := 1 - 2.0/5 - 1
 	c := 1 - 0.5*(0.01+0.01)/0.36
@@ -154,7 +154,7 @@ func TestExtendedEdgeCases(t *testing.T) {
 
 func TestExtendedEmitsAllKTicks(t *testing.T) {
 	// R's seq drops the last label here though k = 5 (ratio 3.99999999345), methods.md §1.4 [V].
-	l, ok := search(3, 3.0000001, 5, false, 0)
+	l, ok := search(3, 3.0000001, 5, false, 0, constraint{})
 	require.True(t, ok)
 	assert.Equal(t, 5, l.k)
 	got := Extended(3, 3.0000001, 5, false)

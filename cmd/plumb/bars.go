@@ -2,6 +2,7 @@ package main
 
 import (
 	"flag"
+	"fmt"
 	"io"
 
 	"plumb/render"
@@ -10,11 +11,11 @@ import (
 // rowFlags are the flags bars and dots share.
 type rowFlags struct {
 	shared
-	label, value, order, agg, unit, valueName string
-	top                                       int
-	vertical, percent                         bool
-	highlight                                 listFlag
-	from, to                                  floatFlag
+	label, value, order, agg, unit, valueName, other string
+	top                                              int
+	vertical, percent                                bool
+	highlight                                        listFlag
+	from, to                                         floatFlag
 }
 
 func (r *rowFlags) register(fs *flag.FlagSet, dots bool) {
@@ -22,11 +23,13 @@ func (r *rowFlags) register(fs *flag.FlagSet, dots bool) {
 	fs.StringVar(&r.label, "label", "", "column with the category labels (default: the first column)")
 	fs.StringVar(&r.value, "value", "", "column with the values (default: the first numeric column after the labels)")
 	fs.StringVar(&r.order, "order", "value", "order of categories: value (largest first), label, or data (as in the file)")
-	top := render.DefaultTop
 	if dots {
-		top = render.DefaultDotsTop
+		fs.IntVar(&r.top, "top", 0, fmt.Sprintf("show at most `N` categories, the largest; the rest are left out with a note (default %d; -1 shows all)", render.DefaultDotsTop))
+		fs.StringVar(&r.other, "other", "", "what becomes of categories beyond --top: none (left out, the default) or mean (one Other dot)")
+	} else {
+		fs.IntVar(&r.top, "top", 0, fmt.Sprintf("show at most `N` categories (default: all, or %d with the rest summed into Other when the values are parts of a whole; -1 shows all)", render.DefaultTop))
+		fs.StringVar(&r.other, "other", "", "combine categories beyond --top into Other by sum or mean, or none (leave them out with a note); default: sum for parts of a whole, else none")
 	}
-	fs.IntVar(&r.top, "top", top, "show at most `N` categories: the top N-1 and one combined Other")
 	fs.Var(&r.highlight, "highlight", "draw these `LABELS` (comma-separated) in the accent colour")
 	fs.Var(&r.from, "from", "start of the value axis (may widen it, never hide data)")
 	fs.Var(&r.to, "to", "end of the value axis (may widen it, never hide data)")
@@ -56,6 +59,16 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 	default:
 		return exitCode(usagef("--order %q: use value, label or data", f.order), stderr)
 	}
+	switch f.other {
+	case "", "sum", "mean", "none":
+	default:
+		return exitCode(usagef("--other %q: use sum, mean or none", f.other), stderr)
+	}
+	if dots && f.other == "sum" {
+		return exitCode(usagef("--other sum: a dot marks a position, not an amount, so dots are never summed; use --other mean or none, or draw bars"), stderr)
+	}
+	aggGiven := false
+	fs.Visit(func(fl *flag.Flag) { aggGiven = aggGiven || fl.Name == "agg" })
 	d, err := loadLabelled(path, f.readOptions(), f.label, f.value, f.agg, stdin)
 	if err != nil {
 		return exitCode(err, stderr)
@@ -70,15 +83,20 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 	}
 	averages := f.agg != "sum" && f.agg != "count"
 	c.Notes = notes
+	// Values are parts of a whole when they are shares, when the user said
+	// they sum or count, or when repeated labels really were summed; a
+	// single value per label may be a median or a rate, which never adds.
+	additive := f.percent || (aggGiven && !averages) || (f.agg == "sum" && len(d.repeated) > 0)
 	return emit(chart, &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
 		if dots {
 			return render.Dots(w, d.labels, d.values, render.DotsOptions{
-				Common: c, Order: render.Order(f.order), Top: f.top, Highlight: f.highlight,
+				Common: c, Order: render.Order(f.order), Top: f.top, Other: render.OtherMode(f.other), Highlight: f.highlight,
 				From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name, LabelName: d.labelCol, Averages: averages,
 			})
 		}
 		return render.Bars(w, d.labels, d.values, render.BarsOptions{
-			Common: c, Order: render.Order(f.order), Top: f.top, Vertical: f.vertical, Percent: f.percent,
+			Common: c, Order: render.Order(f.order), Top: f.top, Other: render.OtherMode(f.other), Additive: additive,
+			Vertical: f.vertical, Percent: f.percent,
 			Highlight: f.highlight, From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name,
 			LabelName: d.labelCol, Averages: averages,
 		})

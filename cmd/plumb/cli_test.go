@@ -99,7 +99,8 @@ func TestOtherBar(t *testing.T) {
 	for i := 1; i <= 20; i++ {
 		fmt.Fprintf(&b, "Item %d,%d\n", i, 100+i*7)
 	}
-	code, out, stderr := plumb(t, b.String(), "bars", "-")
+	// An explicit --agg sum says the values are parts of a whole.
+	code, out, stderr := plumb(t, b.String(), "bars", "-", "--agg", "sum")
 	require.Equal(t, exitOK, code, stderr)
 	root := checkFigure(t, []byte(out))
 	checkBars(t, root)
@@ -114,6 +115,40 @@ func TestOtherBar(t *testing.T) {
 		sum += 100 + i*7
 	}
 	assert.Equal(t, fmt.Sprint(sum), last.Attr["data-value"])
+}
+
+// TestOtherNeverSumsMedians: one value per label may be a median or a rate,
+// which do not add up, so no Other bar is made of them (issue 7, item 1).
+func TestOtherNeverSumsMedians(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("area,median_income\n")
+	for i := 1; i <= 30; i++ {
+		fmt.Fprintf(&b, "Area %d,%d\n", i, 90000+i*1250)
+	}
+	code, out, stderr := plumb(t, b.String(), "bars", "-")
+	require.Equal(t, exitOK, code, stderr)
+	root := checkFigure(t, []byte(out))
+	checkBars(t, root)
+	assert.Len(t, root.all("rect", "plumb-mark"), 30, "every area drawn")
+	assert.NotContains(t, out, "Other (")
+
+	code, out, stderr = plumb(t, b.String(), "bars", "-", "--top", "5")
+	require.Equal(t, exitOK, code, stderr)
+	root = checkFigure(t, []byte(out))
+	assert.Len(t, root.all("rect", "plumb-mark"), 5)
+	assert.NotContains(t, out, "Other (")
+	assert.Contains(t, stderr, "left out 25")
+	var under bool
+	for _, n := range root.all("text", "plumb-note") {
+		under = under || strings.Contains(n.Text, "5 of 30 categories shown")
+	}
+	assert.True(t, under, "the chart itself says how many were left out")
+
+	code, out, stderr = plumb(t, b.String(), "bars", "-", "--top", "5", "--other", "mean")
+	require.Equal(t, exitOK, code, stderr)
+	assert.Contains(t, out, "Other (26)")
+	code, _, stderr = plumb(t, b.String(), "dots", "-", "--other", "sum")
+	assert.Equal(t, exitUsage, code, stderr)
 }
 
 func TestFromRefusedSuggestsDots(t *testing.T) {

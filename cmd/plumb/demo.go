@@ -26,7 +26,7 @@ var gallery = []figure{
 	{"bars-negative", "change.csv", []string{"bars", "--label", "route", "--value", "change_pct", "--unit", "%",
 		"--value-name", "change in passengers",
 		"--title", "Change in passengers from 2024 to 2025", "--subtitle", "Percent change per route; four routes lost riders"}},
-	{"bars-highlight", "routes.csv", []string{"bars", "--label", "route", "--value", "fare", "--top", "8", "--agg", "mean", "--unit", "£",
+	{"bars-highlight", "routes.csv", []string{"bars", "--label", "route", "--value", "fare", "--top", "8", "--other", "mean", "--agg", "mean", "--unit", "£",
 		"--highlight", "Brindle Holm to Oskmouth",
 		"--title", "Adult single fare", "--subtitle", "Seven dearest routes and the mean of the rest; Brindle Holm to Oskmouth highlighted"}},
 	{"bars-vertical", "loads.csv", []string{"bars", "--label", "weekday", "--value", "load_pct", "--agg", "mean", "--order", "data",

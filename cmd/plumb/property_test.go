@@ -53,7 +53,9 @@ func TestChartsProperty(t *testing.T) {
 		kind := rng.IntN(3)
 		switch kind {
 		case 0:
-			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Percent: !negative && rng.IntN(3) == 0})
+			other := []render.OtherMode{render.OtherAuto, render.OtherSum, render.OtherMean, render.OtherNone}[rng.IntN(4)]
+			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Percent: !negative && rng.IntN(3) == 0,
+				Top: []int{-1, 0, 0, 2, 3, 5, 8, 12}[rng.IntN(8)], Other: other, Additive: rng.IntN(2) == 0})
 		case 1:
 			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Vertical: true, Top: 6})
 		default:
@@ -71,6 +73,8 @@ func TestChartsProperty(t *testing.T) {
 			if kind < 2 {
 				checkBars(t, root)
 			}
+			checkValueLabels(t, root)
+			checkTickFloor(t, root, kind == 1)
 		})
 	}
 }

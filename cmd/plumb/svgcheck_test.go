@@ -11,6 +11,7 @@ import (
 	"testing"
 
 	"plumb/layout"
+	"plumb/scale"
 )
 
 // svgNode is a parsed SVG element, enough to measure a figure from outside,
@@ -235,4 +236,67 @@ func pathPoints(t *testing.T, d string) (xs, ys []float64) {
 		xs, ys = append(xs, x), append(ys, y)
 	}
 	return xs, ys
+}
+
+// checkValueLabels asserts that value labels tell values apart: two marks
+// whose values differ at three significant digits never carry the same
+// value label (issue 7, item 2). Each mark's value label follows it.
+func checkValueLabels(t *testing.T, root *svgNode) {
+	t.Helper()
+	var vals []float64
+	var labels []string
+	pending := math.NaN()
+	root.walk(func(n *svgNode) {
+		switch {
+		case n.Attr["class"] == "plumb-mark" && n.Attr["data-value"] != "":
+			pending = n.num(t, "data-value")
+		case n.Name == "text" && n.Attr["class"] == "plumb-value" && !math.IsNaN(pending):
+			vals = append(vals, pending)
+			labels = append(labels, n.Text)
+			pending = math.NaN()
+		}
+	})
+	r3 := func(v float64) string { return strconv.FormatFloat(v+0, 'g', 3, 64) }
+	for i := range labels {
+		for j := i + 1; j < len(labels); j++ {
+			if labels[i] == labels[j] && r3(vals[i]) != r3(vals[j]) && !(vals[i] == 0 && vals[j] == 0) {
+				t.Errorf("values %g and %g both labelled %q", vals[i], vals[j], labels[i])
+			}
+		}
+	}
+}
+
+// checkTickFloor asserts that the value axis carries at least
+// scale.MinTicks labelled ticks for its length (three beyond 150 px), and
+// zero when the axis crosses it (issue 7, item 3).
+func checkTickFloor(t *testing.T, root *svgNode, vertical bool) {
+	t.Helper()
+	ticks := root.all("text", "plumb-tick")
+	if len(ticks) == 0 {
+		t.Error("no labelled ticks")
+		return
+	}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	neg, pos, zero := false, false, false
+	for _, n := range ticks {
+		switch {
+		case !strings.ContainsAny(n.Text, "123456789"):
+			zero = true
+		case strings.HasPrefix(n.Text, "\u2212"):
+			neg = true
+		default:
+			pos = true
+		}
+		p := n.num(t, "x")
+		if vertical {
+			p = n.num(t, "y")
+		}
+		lo, hi = math.Min(lo, p), math.Max(hi, p)
+	}
+	if min := scale.MinTicks(hi - lo); len(ticks) < min {
+		t.Errorf("%d labelled ticks on a %g px axis, want at least %d", len(ticks), hi-lo, min)
+	}
+	if neg && pos && !zero {
+		t.Error("the axis crosses zero without labelling it")
+	}
 }
