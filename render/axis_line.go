@@ -124,6 +124,18 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) xAxis {
 			best, bestScore = a, score
 		}
 	}
+	// Too few ticks fit (calendar steps jump, from days to weeks): keep
+	// every s-th tick of a denser set, the smallest stride whose labels fit.
+	if best.ticks != nil && len(best.ticks) < floor {
+		for m := target + 1; m <= 4*target+8; m++ {
+			dense := xTicks(lo, hi, k, m)
+			for stride := 2; len(dense.ticks) >= floor*stride-stride+1; stride++ {
+				if a := thinXBy(dense, stride); f.xLabelsFit(a, length) {
+					return a
+				}
+			}
+		}
+	}
 	if best.ticks != nil {
 		return best
 	}
@@ -136,12 +148,15 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) xAxis {
 	return best
 }
 
-// thinX keeps every other tick of a, starting with the first. Time labels
-// of two or more kept ticks are written again, so that a kept tick whose
-// date was on a dropped one still says which day it is.
-func thinX(a xAxis) xAxis {
+// thinX keeps every other tick of a, starting with the first.
+func thinX(a xAxis) xAxis { return thinXBy(a, 2) }
+
+// thinXBy keeps every stride-th tick of a, starting with the first. Time
+// labels of two or more kept ticks are written again, so that a kept tick
+// whose date was on a dropped one still says which day it is.
+func thinXBy(a xAxis, stride int) xAxis {
 	out := xAxis{time: a.time, d0: a.d0, d1: a.d1}
-	for i := 0; i < len(a.ticks); i += 2 {
+	for i := 0; i < len(a.ticks); i += stride {
 		out.ticks, out.labels = append(out.ticks, a.ticks[i]), append(out.labels, a.labels[i])
 	}
 	// A lone tick keeps its label, which TimeTicks wrote with the full

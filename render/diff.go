@@ -194,9 +194,9 @@ func (c *diffChart) layout() (float64, error) {
 		// fill the canvas together.
 		k := room / (h + hc)
 		h, hc = math.Floor(h*k), math.Floor(hc*k)
-		// Two panels share a fixed canvas: each may be as short as a panel
-		// of small multiples.
-		if h < minPlotHeight(sp, true) || c.opt.Context && hc < minPlotHeight(sp, true) {
+		// Two panels share a fixed canvas: each may then be as short as a
+		// panel of small multiples.
+		if h < minPlotHeight(sp, c.opt.Context) || c.opt.Context && hc < minPlotHeight(sp, true) {
 			return 0, fmt.Errorf("the figure's fixed height leaves too short a plot for a difference chart to be read: give a taller --size, or a shorter title and notes, so that it can fit")
 		}
 		ay = f.fitY(dlo, dhi, h, dk)

@@ -303,7 +303,7 @@ func missingNote(missing, bridged int, drawn []drawnLine) string {
 		}
 	}
 	gaps := missing - bridged
-	text := fmt.Sprintf("%s missing %s leave gaps: drawn in %s %s, never joined across a gap", g.Format(float64(gaps)), plural(gaps, "value", "values"),
+	text := fmt.Sprintf("%s missing %s: drawn in %s %s, never joined across a gap", g.Format(float64(gaps)), plural(gaps, "value leaves a gap", "values leave gaps"),
 		g.Format(float64(pieces)), plural(pieces, "piece", "pieces"))
 	if dots > 0 {
 		text += fmt.Sprintf("; %s %s between two gaps drawn as %s as wide as the line", g.Format(float64(dots)), plural(dots, "value", "values"), plural(dots, "a dot", "dots"))
@@ -465,10 +465,12 @@ func (c *lineChart) seriesColors() []string {
 		out[0] = c.f.th.neutral
 		return out
 	}
-	p, err := palette.Categorical(min(n, palette.MaxCategorical))
+	p, err := palette.Categorical(n)
 	for i := range out {
-		if err != nil || i >= len(p) {
-			out[i] = c.f.th.neutral // beyond the palette: --together with many series
+		// More series than colours that stay apart (--together with many
+		// series): all in the neutral colour, for none is told apart.
+		if err != nil || n > palette.MaxCategorical || i >= len(p) {
+			out[i] = c.f.th.neutral
 			continue
 		}
 		out[i] = p[i].Hex()
@@ -706,7 +708,10 @@ func (c *lineChart) layoutSingle() (float64, error) {
 	colors := c.seriesColors()
 	var labels []endLabel
 	labelW := 0.0
-	if len(c.series) > 1 {
+	switch {
+	case len(c.series) > palette.MaxCategorical:
+		f.scene.Note("unnamed", false, fmt.Sprintf("%d series are more than colours or names can tell apart: drew them alike in one colour, without names; highlight a few, aggregate them, or draw small multiples of fewer", len(c.series)))
+	case len(c.series) > 1:
 		names := make([]string, len(c.series))
 		for i, s := range c.series {
 			names[i] = s.Name

@@ -3,6 +3,7 @@ package render
 import (
 	"fmt"
 	"math"
+	"strconv"
 
 	"plumb/scale"
 )
@@ -19,6 +20,18 @@ func minPlotHeight(sp mediumSpec, panel bool) float64 {
 		h /= 2
 	}
 	return math.Round(h)
+}
+
+// MinPlotHeight is the shortest plot, in pixels, a line or difference
+// chart draws on medium m (see minPlotHeight); a panel of small multiples
+// or one of the two panels of a difference chart may be half as tall. An
+// unknown medium gives 0.
+func MinPlotHeight(m Medium) float64 {
+	sp, err := m.spec()
+	if err != nil {
+		return 0
+	}
+	return minPlotHeight(sp, false)
 }
 
 // trendMinPoints is the length from which a series counts as long enough
@@ -222,7 +235,7 @@ func (b *banking) note(w, h float64) string {
 		how = "banked to 45° by length-weighted mean orientation (Cleveland 1993)"
 	}
 	if b.trend != "" {
-		how += fmt.Sprintf(" at the scale of the trend, cycles of %s and longer (multi-scale banking, Heer & Agrawala 2006; every segment alone would ask for a height/width of %.2f, a strip)", b.trend, b.rawAlpha)
+		how += fmt.Sprintf(" at the scale of the trend, cycles of %s and longer (multi-scale banking, Heer & Agrawala 2006; every segment alone would ask for a height/width of %s, a strip)", b.trend, strconv.FormatFloat(b.rawAlpha, 'g', 2, 64))
 	}
 	off := math.Abs(medianAngle(b.alpha, b.msAlpha)-45) >= 2
 	switch {
