@@ -83,7 +83,7 @@ func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
 	for _, n := range notes[:min(len(notes), 1)] {
 		f.scene.Notes = append(f.scene.Notes, n)
 	}
-	c := &diffChart{opt: opt, f: f, x: x, a: a, b: b, d: d, missing: countMissing([]Series{{Y: d}})}
+	c := &diffChart{opt: opt, f: f, x: x, a: a, b: b, d: d, missing: countMissing([]Series{{Y: d}}), xk: xKindOf([][]float64{x}, opt.Time)}
 	bottom, err := c.layout()
 	if err != nil {
 		return nil, err
@@ -101,6 +101,7 @@ type diffChart struct {
 	f          *frame
 	x, a, b, d []float64
 	missing    int // x values where a or b is missing
+	xk         xKind
 }
 
 // noteMissing records what the missing values did to the drawn difference.
@@ -129,7 +130,7 @@ func (c *diffChart) layout() (float64, error) {
 	dlo, dhi, _ := dataRange(c.d)
 	xlo, xhi, _ := dataRange(c.x)
 	lvLo, lvHi, _ := dataRange(c.a, c.b)
-	xk := xKindOf([][]float64{c.x}, c.opt.Time)
+	xk := c.xk
 	if xk.years {
 		f.scene.Note("years", false, yearsNote)
 	}
@@ -583,7 +584,7 @@ func (c *diffChart) describe() string {
 	over := overText(c.opt.XName, c.opt.Time)
 	xlo, xhi, _ := dataRange(c.x)
 	fmt.Fprintf(&b, "Difference chart of %s minus %s %s, from %s to %s, against a zero line.", c.opt.AName, c.opt.BName, over,
-		xValueText(xlo, c.opt.Time), xValueText(xhi, c.opt.Time))
+		xValueText(xlo, c.xk), xValueText(xhi, c.xk))
 	series := []Series{{Name: c.opt.AName, X: c.x, Y: c.a}, {Name: c.opt.BName, X: c.x, Y: c.b}, {X: c.x, Y: c.d}}
 	vf := scale.ValueFormat(shownValues(series), c.opt.Unit)
 	_, _, lo, hi := extremes(c.d)
@@ -596,9 +597,9 @@ func (c *diffChart) describe() string {
 		}
 	}
 	fmt.Fprintf(&b, " %s is above %s at %d of %d points and below at %d.", c.opt.AName, c.opt.BName, above, len(c.d), below)
-	fmt.Fprintf(&b, " Largest difference: %s at %s; smallest: %s at %s.", vf.Format(c.d[hi]), xValueText(c.x[hi], c.opt.Time), vf.Format(c.d[lo]), xValueText(c.x[lo], c.opt.Time))
+	fmt.Fprintf(&b, " Largest difference: %s at %s; smallest: %s at %s.", vf.Format(c.d[hi]), xValueText(c.x[hi], c.xk), vf.Format(c.d[lo]), xValueText(c.x[lo], c.xk))
 	for _, s := range series[:2] {
-		b.WriteString(" " + describeSeries(s, vf, c.opt.Time))
+		b.WriteString(" " + describeSeries(s, vf, c.xk))
 	}
 	return b.String()
 }

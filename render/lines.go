@@ -6,6 +6,7 @@ import (
 	"io"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 	"time"
 
@@ -97,6 +98,8 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	}
 	c.f = f
 	f.scene.Notes = append(f.scene.Notes, notes...)
+	c.series = series
+	c.xk = xKindOf(c.xs(), c.opt.Time)
 	if c.opt.Index || c.opt.IndexAt != nil {
 		if series, err = c.rebase(series); err != nil {
 			return nil, err
@@ -148,7 +151,6 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 // values get no fractional ticks either, and an index includes its base
 // of 100, which is always a tick.
 func (c *lineChart) kinds() {
-	c.xk = xKindOf(c.xs(), c.opt.Time)
 	if c.xk.years {
 		c.f.scene.Note("years", false, yearsNote)
 	}
@@ -438,10 +440,15 @@ func (c *lineChart) axisTitle() {
 }
 
 // xText formats an x value for notes and the description.
-func (c *lineChart) xText(x float64) string { return xValueText(x, c.opt.Time) }
+func (c *lineChart) xText(x float64) string { return xValueText(x, c.xk) }
 
-func xValueText(x float64, isTime bool) string {
-	if !isTime {
+// xValueText writes an x value for a note or a description: a date on a
+// time axis, a year as a year (2018, never 2,018), else a number.
+func xValueText(x float64, k xKind) string {
+	if k.years {
+		return strconv.FormatFloat(x, 'f', 0, 64)
+	}
+	if !k.time {
 		return scale.ValueFormat([]float64{x}, "").Format(x)
 	}
 	t := unixTime(x)
@@ -918,7 +925,7 @@ func (c *lineChart) describe(multiples bool) string {
 		plural(len(c.series), "series", "series"), c.xText(c.xlo), c.xText(c.xhi))
 	vf := scale.ValueFormat(shownValues(c.series), c.unitText())
 	for _, s := range c.series {
-		b.WriteString(" " + describeSeries(s, vf, c.opt.Time))
+		b.WriteString(" " + describeSeries(s, vf, c.xk))
 	}
 	return b.String()
 }
@@ -970,7 +977,7 @@ func extremes(y []float64) (first, last, lo, hi int) {
 
 // describeSeries says one series' first and last values, its change, and
 // its extremes.
-func describeSeries(s Series, vf scale.Format, isTime bool) string {
+func describeSeries(s Series, vf scale.Format, k xKind) string {
 	first, last, lo, hi := extremes(s.Y)
 	if first < 0 {
 		return fmt.Sprintf("%s: no values.", s.Name)
@@ -987,8 +994,8 @@ func describeSeries(s Series, vf scale.Format, isTime bool) string {
 		change += fmt.Sprintf(" (%+.0f%%)", 100*d/math.Abs(s.Y[first]))
 	}
 	return fmt.Sprintf("%s: %s at %s, %s at %s, %s; highest %s at %s, lowest %s at %s.", s.Name,
-		vf.Format(s.Y[first]), xValueText(s.X[first], isTime), vf.Format(s.Y[last]), xValueText(s.X[last], isTime), change,
-		vf.Format(s.Y[hi]), xValueText(s.X[hi], isTime), vf.Format(s.Y[lo]), xValueText(s.X[lo], isTime))
+		vf.Format(s.Y[first]), xValueText(s.X[first], k), vf.Format(s.Y[last]), xValueText(s.X[last], k), change,
+		vf.Format(s.Y[hi]), xValueText(s.X[hi], k), vf.Format(s.Y[lo]), xValueText(s.X[lo], k))
 }
 
 // overText says what the x axis is for a description: the x column's

@@ -427,3 +427,19 @@ func TestLinesDescriptionNamesX(t *testing.T) {
 	require.NoError(t, err)
 	assert.Contains(t, d.Desc, "over week")
 }
+
+func TestLinesZeroAndFloorTicks(t *testing.T) {
+	// A range from −500 to 2,000 once gave the ticks −500 and 2,000 alone:
+	// zero lies inside, so it is labelled, and a tall axis has at least three.
+	x := []float64{0, 1, 2, 3, 4, 5}
+	s, err := LinesScene([]Series{{Name: "balance", X: x, Y: []float64{-500, 300, 900, 1400, 2000, 1700}}}, LinesOptions{})
+	require.NoError(t, err)
+	var ys []string
+	for _, m := range marksOf(s, "plumb-tick") {
+		if m.Anchor == End {
+			ys = append(ys, m.Text)
+		}
+	}
+	assert.Contains(t, ys, "0")
+	assert.GreaterOrEqual(t, len(ys), 3)
+}
