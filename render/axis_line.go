@@ -103,8 +103,7 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) xAxis {
 	target := max(2, int(math.Round(length/(tickSpacingTarget*scaleK))))
 	var best xAxis
 	bestScore := math.Inf(-1)
-	for m := 2; m <= max(12, target+2); m++ {
-		a := xTicks(lo, hi, k, m)
+	for _, a := range xCandidates(lo, hi, k, target) {
 		if len(a.ticks) == 0 || !f.xLabelsFit(a, length) {
 			continue
 		}
@@ -173,6 +172,48 @@ func thinXBy(a xAxis, stride int) xAxis {
 	return out
 }
 
+// xCandidates are the labellings fitX chooses from: calendar ticks for
+// about 2 to target+2 ticks on a time axis; on a number axis the nice
+// steps of stepCandidates, each with its ticks inside the data's range (a
+// whole-number axis takes whole steps only).
+func xCandidates(lo, hi float64, k xKind, target int) []xAxis {
+	var out []xAxis
+	if k.time {
+		for m := 2; m <= max(12, target+2); m++ {
+			out = append(out, xTicks(lo, hi, k, m))
+		}
+		return out
+	}
+	eps := (hi - lo) * 1e-9
+	for _, c := range stepCandidates(lo, hi) {
+		if k.integer && c.step != math.Trunc(c.step) {
+			continue
+		}
+		var vals []float64
+		for _, v := range c.values {
+			if v >= lo-eps && v <= hi+eps {
+				vals = append(vals, v)
+			}
+		}
+		out = append(out, numberAxis(lo, hi, vals, k))
+	}
+	return out
+}
+
+// numberAxis labels the ticks vals of a number axis over [lo, hi].
+func numberAxis(lo, hi float64, vals []float64, k xKind) xAxis {
+	a := xAxis{d0: lo, d1: hi}
+	tf := scale.TickFormat(vals, "")
+	if k.years {
+		tf = scale.Format{} // 2018, never 2,018
+	}
+	for _, v := range vals {
+		a.ticks = append(a.ticks, v)
+		a.labels = append(a.labels, tf.Format(v))
+	}
+	return a
+}
+
 // xTicks computes about m ticks inside [lo, hi] and their labels.
 func xTicks(lo, hi float64, k xKind, m int) xAxis {
 	if k.time {
@@ -184,17 +225,7 @@ func xTicks(lo, hi float64, k xKind, m int) xAxis {
 		}
 		return a
 	}
-	a := xAxis{d0: lo, d1: hi}
-	vals := innerTicks(lo, hi, m, k.integer)
-	tf := scale.TickFormat(vals, "")
-	if k.years {
-		tf = scale.Format{} // 2018, never 2,018
-	}
-	for _, v := range vals {
-		a.ticks = append(a.ticks, v)
-		a.labels = append(a.labels, tf.Format(v))
-	}
-	return a
+	return numberAxis(lo, hi, innerTicks(lo, hi, m, k.integer), k)
 }
 
 // innerTicks are about m nice values inside [lo, hi]: the loose ticks of
