@@ -93,3 +93,41 @@ func BenchmarkM4ColumnsAlternatingGaps(b *testing.B) {
 		dst, _ = M4Columns(dst[:0], xs, ys, 0, n, w)
 	}
 }
+
+// FuzzM4Columns: the kept indices increase, at most four values per pixel
+// column are kept, and no more missing values are bridged than there are.
+func FuzzM4Columns(f *testing.F) {
+	f.Add([]byte{1, 0, 3, 255, 4, 9}, 3)
+	f.Add([]byte{255, 255, 7}, 1)
+	f.Fuzz(func(t *testing.T, data []byte, w int) {
+		w = w % 64
+		xs, ys := make([]float64, len(data)), make([]float64, len(data))
+		missing := 0
+		for i, b := range data {
+			xs[i] = float64(i)
+			ys[i] = float64(b)
+			if b == 255 {
+				ys[i] = math.NaN()
+				missing++
+			}
+		}
+		got, bridged := M4Columns(nil, xs, ys, 0, float64(len(data)), w)
+		if bridged > missing {
+			t.Fatalf("bridged %d of %d missing", bridged, missing)
+		}
+		perCol := map[int]int{}
+		for i, k := range got {
+			if i > 0 && k <= got[i-1] {
+				t.Fatalf("indices not increasing: %v", got)
+			}
+			if !math.IsNaN(ys[k]) {
+				perCol[PixelColumn(xs[k], 0, float64(len(data)), w)]++
+			}
+		}
+		for c, n := range perCol {
+			if n > 4 {
+				t.Fatalf("column %d keeps %d values", c, n)
+			}
+		}
+	})
+}

@@ -97,3 +97,34 @@ func BenchmarkLowPassTrend(b *testing.B) {
 		LowPassTrend(xs, ys, 2*k)
 	}
 }
+
+// FuzzLowPassTrend: any series analyses without panicking, and a trend,
+// when there is one, is finite and spans the data's x range.
+func FuzzLowPassTrend(f *testing.F) {
+	f.Add([]byte{1, 5, 2, 8, 3, 9, 4, 7, 1, 5, 2, 8, 3, 9, 4, 7, 0, 255, 3}, 1.5)
+	f.Fuzz(func(t *testing.T, data []byte, step float64) {
+		if !(step > 0) || math.IsInf(step, 0) || step > 1e12 {
+			return
+		}
+		xs, ys := make([]float64, len(data)), make([]float64, len(data))
+		for i, b := range data {
+			xs[i], ys[i] = float64(i)*step, float64(b)
+			if b == 255 {
+				ys[i] = math.NaN()
+			}
+		}
+		k, ok := DominantCycles(xs, ys)
+		if !ok {
+			return
+		}
+		p, ok := LowPassTrend(xs, ys, k)
+		if !ok {
+			t.Fatal("DominantCycles found a cycle but LowPassTrend no trend")
+		}
+		for i := range p.X {
+			if math.IsNaN(p.Y[i]) || math.IsInf(p.Y[i], 0) {
+				t.Fatalf("trend value %d is %v", i, p.Y[i])
+			}
+		}
+	})
+}
