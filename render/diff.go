@@ -184,7 +184,7 @@ func (c *diffChart) layout() (float64, error) {
 	diffTitle := f.axisTitle("difference, "+c.opt.AName+" − "+c.opt.BName+c.unitSuffix(), inner)
 	panelTop := diffTitle.height(lh) + sp.gap + half
 	if fb := f.fixedPlotBottom(); fb > 0 {
-		room := fb - y - panelTop - (f.xLabelTop(0) + lh) - lh - sp.gap // the key under the axis
+		room := fb - y - panelTop - (f.xLabelTop(0) + lh) - 2*lh - sp.gap // a key of up to two rows under the axis
 		if c.opt.XName != "" {
 			room -= lh
 		}

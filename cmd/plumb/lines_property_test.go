@@ -129,6 +129,13 @@ func TestLinesHonestProperty(t *testing.T) {
 		name := fmt.Sprintf("trial %d (%s, size %gx%g, diff %v)", trial, c.Medium, c.Width, c.Height, diff)
 		fixed := c.Medium == render.Slide || c.Height > 0
 		if fixed {
+			want := c.Height
+			if want == 0 {
+				want = 1080 // the slide's canvas
+			}
+			if h != want {
+				t.Errorf("%s: a fixed %g px canvas came out %g px high", name, want, h)
+			}
 			e := extent(t, root)
 			pad := mediumPad[c.Medium]
 			if blank := 1 - e.W*e.H/((w-2*pad)*(h-2*pad)); blank > 0.25 {
