@@ -443,3 +443,24 @@ func TestLinesZeroAndFloorTicks(t *testing.T) {
 	assert.Contains(t, ys, "0")
 	assert.GreaterOrEqual(t, len(ys), 3)
 }
+
+func TestDiffIsolatedValuesDrawn(t *testing.T) {
+	nan := math.NaN()
+	x := []float64{1, 2, 3, 4, 5, 6, 7}
+	a := []float64{5, nan, 7, nan, 3, 4, 6}
+	b := []float64{4, 4, 4, 4, nan, 2, 2}
+	s, err := DiffScene(x, a, b, DiffOptions{})
+	require.NoError(t, err)
+	var dots []Mark
+	for _, m := range marksOf(s, "plumb-mark") {
+		if m.Kind == Circle {
+			dots = append(dots, m)
+		}
+	}
+	// Differences at x = 1 and 3 stand alone between missing ones.
+	require.Len(t, dots, 2)
+	assert.Equal(t, "1", dataAttr(dots[0], "x"))
+	assert.Equal(t, "1", dataAttr(dots[0], "value"))
+	assert.Equal(t, "3", dataAttr(dots[1], "value"))
+	assert.Contains(t, fmt.Sprint(s.Notes), "drawn as dots")
+}
