@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"strings"
 
 	"plumb/layout"
@@ -412,38 +413,49 @@ func (c *diffChart) regionLabel(ar areaInfo, a, b string, xs, ys scale.Linear, s
 	zero := ys.Map(0)
 	full := a + " above " + b
 	x0, x1 := xs.Map(ar.pts[0].X), xs.Map(ar.pts[len(ar.pts)-1].X)
-	text, ok := f.regionText(a, b, x1-x0-2*margin)
-	if !ok {
-		return false
+	// One line, shortened to the region's width if need be, then the full
+	// names on two lines ("a above" over "b"), which fit a region that is
+	// deep rather than long.
+	var layouts [][]string
+	if text, ok := f.regionText(a, b, x1-x0-2*margin); ok {
+		layouts = append(layouts, []string{text})
 	}
-	tw := f.measure(text, sp.text, false)
-	th := asc + desc
-	bestCX, bestD := 0.0, -1.0
-	for cx := x0 + tw/2 + margin; cx <= x1-tw/2-margin; cx += 2 {
-		if d := minDepth(ar.pts, xs, ys, cx-tw/2-margin, cx+tw/2+margin); d > bestD {
-			bestCX, bestD = cx, d
+	layouts = append(layouts, []string{a + " above", b})
+	lh := lineHeight(sp.text)
+	for _, lines := range layouts {
+		tw := 0.0
+		for _, l := range lines {
+			tw = math.Max(tw, f.measure(l, sp.text, false))
 		}
-	}
-	if bestD < th+2*margin {
-		return false
-	}
-	// Centred in the clear space between the baseline and the line.
-	mid := zero - bestD/2
-	if !above {
-		mid = zero + bestD/2
-	}
-	box := layout.Box{X: bestCX - tw/2, Y: mid - th/2, W: tw, H: th}
-	for _, s := range segs {
-		if segmentHitsBox(s[0], s[1], box) {
-			return false
+		th := asc + desc + float64(len(lines)-1)*lh
+		bestCX, bestD := 0.0, -1.0
+		for cx := x0 + tw/2 + margin; cx <= x1-tw/2-margin; cx += 2 {
+			if d := minDepth(ar.pts, xs, ys, cx-tw/2-margin, cx+tw/2+margin); d > bestD {
+				bestCX, bestD = cx, d
+			}
 		}
+		if bestD < th+2*margin {
+			continue
+		}
+		// Centred in the clear space between the baseline and the line.
+		mid := zero - bestD/2
+		if !above {
+			mid = zero + bestD/2
+		}
+		box := layout.Box{X: bestCX - tw/2, Y: mid - th/2, W: tw, H: th}
+		if slices.ContainsFunc(segs, func(s [2]Point) bool { return segmentHitsBox(s[0], s[1], box) }) {
+			continue
+		}
+		tip := ""
+		if strings.Join(lines, " ") != full {
+			tip = full
+		}
+		for i, l := range lines {
+			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(bestCX), Y: round2(mid - th/2 + asc + float64(i)*lh), Text: l, Size: sp.text, Fill: f.th.text, Anchor: Middle, Tooltip: tip})
+		}
+		return true
 	}
-	tip := ""
-	if text != full {
-		tip = full
-	}
-	f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(bestCX), Y: round2(mid - th/2 + asc), Text: text, Size: sp.text, Fill: f.th.text, Anchor: Middle, Tooltip: tip})
-	return true
+	return false
 }
 
 // segmentHitsBox reports whether the segment pq meets the box (Liang-Barsky
