@@ -13,8 +13,9 @@ import (
 // banked ratio below 0.15 draws a strip too thin to read a value from; above
 // 1.5 a tall column where a long series' detail is lost in the width
 // (common practice: Cleveland 1993 banks within roughly these proportions).
-// The limits are applied after banking, and the note says at what angle the
-// median segment is then drawn.
+// The limits are applied after banking, then the medium's minimum plot
+// height (minPlotHeight), and the note says at what angle the median
+// segment is then drawn.
 const (
 	MinAspect = 0.15
 	MaxAspect = 1.5
