@@ -72,12 +72,14 @@ func dataRange(vs ...[]float64) (lo, hi float64, ok bool) {
 
 // Tick spacing on line axes, in pixels at screen text size (13 px) and
 // scaled with the medium's text: roughly one tick per 50-100 px reads
-// without crowding, and an axis longer than 150 px always carries at least
+// without crowding (a y axis goes beyond 120 px between ticks only when
+// nothing denser fits the data well), and an axis longer than 150 px always carries at least
 // three labelled ticks, so that the reader can tell the scale's step as
 // well as its level (common practice).
 const (
 	tickSpacingMin    = 50.0
 	tickSpacingTarget = 75.0
+	tickSpacingMax    = 120.0
 	minTicksLength    = 150.0
 	minLabelledTicks  = 3
 )
@@ -327,6 +329,11 @@ func (f *frame) fitY(lo, hi float64, h float64, k yKind) yAxis {
 		}
 		if spacing < minSp {
 			score -= 3
+		}
+		// Sparser than one tick per tickSpacingMax px leaves the reader
+		// guessing between labels.
+		if spacing > tickSpacingMax*scaleK {
+			score -= 1.5
 		}
 		if k.include != nil && !slices.Contains(c.values, *k.include) {
 			score -= 2
