@@ -659,6 +659,11 @@ const MaxDrawnPoints = 4_000_000
 // each reduced per pixel column when it has more than four points per
 // column, and notes the reduction. It declines a chart past MaxDrawnPoints.
 func (c *lineChart) reduceAll(g lineGeom) ([]scale.Polyline, int, error) {
+	return c.reduceWithin(g, MaxDrawnPoints)
+}
+
+// reduceWithin is reduceAll with the bound on drawn points as a parameter.
+func (c *lineChart) reduceWithin(g lineGeom, limit int) ([]scale.Polyline, int, error) {
 	polys := make([]scale.Polyline, len(c.series))
 	before, after, bridged := 0, 0, 0
 	for i, s := range c.series {
@@ -667,9 +672,9 @@ func (c *lineChart) reduceAll(g lineGeom) ([]scale.Polyline, int, error) {
 		polys[i], b = g.polyline(s.X, s.Y)
 		before, after, bridged = before+len(s.X), after+len(polys[i].X), bridged+b
 	}
-	if after > MaxDrawnPoints {
+	if after > limit {
 		return nil, 0, &refusal{reason: fmt.Sprintf("%s series draw %s points even after reduction to the pixel columns, more than the %s one figure draws",
-			scale.Format{Group: true}.Format(float64(len(c.series))), scale.Format{Group: true}.Format(float64(after)), scale.Format{Group: true}.Format(MaxDrawnPoints)),
+			scale.Format{Group: true}.Format(float64(len(c.series))), scale.Format{Group: true}.Format(float64(after)), scale.Format{Group: true}.Format(float64(limit))),
 			instead: "aggregate the series (a mean or median per x), filter to the few that matter, or draw groups of them in separate figures"}
 	}
 	if after < before {

@@ -464,3 +464,22 @@ func TestDiffIsolatedValuesDrawn(t *testing.T) {
 	assert.Equal(t, "3", dataAttr(dots[1], "value"))
 	assert.Contains(t, fmt.Sprint(s.Notes), "drawn as dots")
 }
+
+func TestLinesDrawnPointsBound(t *testing.T) {
+	// Past the bound on drawn points the chart is declined, before any
+	// path is built, with the alternatives.
+	f, err := newFrame(Common{})
+	require.NoError(t, err)
+	var series []Series
+	for i := range 20 {
+		series = append(series, Series{Name: fmt.Sprint(i), X: []float64{0, 1, 2}, Y: []float64{1, 2, float64(i)}})
+	}
+	c := &lineChart{f: f, series: series}
+	g := lineGeom{w: 300, ax: xAxis{d0: 0, d1: 2}}
+	_, _, err = c.reduceWithin(g, 59)
+	require.Error(t, err)
+	assert.True(t, errors.Is(err, ErrRefused))
+	assert.Contains(t, err.Error(), "aggregate")
+	_, _, err = c.reduceWithin(g, 60)
+	assert.NoError(t, err)
+}
