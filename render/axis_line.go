@@ -3,6 +3,7 @@ package render
 import (
 	"fmt"
 	"math"
+	"slices"
 	"time"
 
 	"plumb/scale"
@@ -12,8 +13,9 @@ import (
 // banked ratio below 0.15 draws a strip too thin to read a value from; above
 // 1.5 a tall column where a long series' detail is lost in the width
 // (common practice: Cleveland 1993 banks within roughly these proportions).
-// The limits are applied after banking, and the note says at what angle the
-// median segment is then drawn.
+// The limits are applied after banking, then the medium's minimum plot
+// height (minPlotHeight), and the note says at what angle the median
+// segment is then drawn.
 const (
 	MinAspect = 0.15
 	MaxAspect = 1.5
@@ -28,11 +30,29 @@ type xAxis struct {
 	labels []string
 }
 
+// xKind says what the x values are, which decides their ticks.
+type xKind struct {
+	time bool // instants as Unix seconds: calendar ticks
+	// integer: every x is a whole number (years, counts, ranks), so no
+	// tick falls between two of them.
+	integer bool
+	// years: whole numbers that all look like calendar years (1800..2100),
+	// printed as years: no thousands separator.
+	years bool
+}
+
 // yAxis is the value axis of a line panel.
 type yAxis struct {
 	d0, d1 float64
 	ticks  []float64
 	format scale.Format
+}
+
+// yKind says what a value axis must show besides the data.
+type yKind struct {
+	unit    string   // on the tick labels ("%" only)
+	include *float64 // a value forced into the domain: the zero of a difference, the base of an index
+	integer bool     // every value is a whole number: no fractional ticks
 }
 
 // dataRange returns the smallest and largest finite values of vs, and
@@ -50,40 +70,95 @@ func dataRange(vs ...[]float64) (lo, hi float64, ok bool) {
 	return lo, hi, lo <= hi
 }
 
-// fitX chooses the x ticks for an axis of length px: as many as fit with
-// their labels (centred on the ticks) at least one text height apart. For
-// numbers the domain widens to the outer nice ticks; a time axis keeps the
-// data's range, and its calendar ticks fall inside it.
-func (f *frame) fitX(lo, hi float64, isTime bool, length float64) xAxis {
+// Tick spacing on line axes, in pixels at screen text size (13 px) and
+// scaled with the medium's text: roughly one tick per 50-100 px reads
+// without crowding (a y axis goes beyond 120 px between ticks only when
+// nothing denser fits the data well), and an axis longer than 150 px always carries at least
+// three labelled ticks, so that the reader can tell the scale's step as
+// well as its level (common practice).
+const (
+	tickSpacingMin    = 50.0
+	tickSpacingTarget = 75.0
+	tickSpacingMax    = 120.0
+	minTicksLength    = 150.0
+	minLabelledTicks  = 3
+)
+
+// fitX chooses the x ticks for an axis of length px: the count closest to
+// one per tickSpacingTarget px whose labels (centred on their ticks) keep
+// one text height apart, never fewer than three on a long axis when three
+// fit at all. The domain is the data's range, numbers as well as times:
+// the line ends where the data ends, and the ticks fall inside it.
+func (f *frame) fitX(lo, hi float64, k xKind, length float64) xAxis {
 	sp := f.spec
 	if hi == lo {
-		if isTime {
+		if k.time {
 			lo, hi = lo-43200, hi+43200 // a single instant: show the day around it
+		} else {
+			lo, hi = lo-1, hi+1
 		}
 	}
+	scaleK := sp.text / 13
+	floor := 0
+	if length > minTicksLength*scaleK {
+		floor = minLabelledTicks
+	}
+	target := max(2, int(math.Round(length/(tickSpacingTarget*scaleK))))
 	var best xAxis
-	start := int(math.Max(2, math.Min(12, math.Floor(length/(sp.text*5)))))
-	for m := start; m >= 2; m-- {
-		a := xTicks(lo, hi, isTime, m)
-		best = a
-		if f.xLabelsFit(a, length) {
-			return a
+	bestScore := math.Inf(-1)
+	for _, a := range xCandidates(lo, hi, k, target) {
+		if len(a.ticks) == 0 || !f.xLabelsFit(a, length) {
+			continue
 		}
+		n := len(a.ticks)
+		spacing := length
+		if n > 1 {
+			spacing = length * (a.ticks[n-1] - a.ticks[0]) / (a.d1 - a.d0) / float64(n-1)
+		}
+		score := -math.Abs(float64(n - target))
+		if n < floor {
+			score -= 100
+		}
+		if n > 1 && spacing < tickSpacingMin*scaleK {
+			score -= 10
+		}
+		if score > bestScore {
+			best, bestScore = a, score
+		}
+	}
+	// Too few ticks fit (calendar steps jump, from days to weeks): keep
+	// every s-th tick of a denser set, the smallest stride whose labels fit.
+	if best.ticks != nil && len(best.ticks) < floor {
+		for m := target + 1; m <= 4*target+8; m++ {
+			dense := xTicks(lo, hi, k, m)
+			for stride := 2; len(dense.ticks) >= floor*stride-stride+1; stride++ {
+				if a := thinXBy(dense, stride); f.xLabelsFit(a, length) {
+					return a
+				}
+			}
+		}
+	}
+	if best.ticks != nil {
+		return best
 	}
 	// Even the fewest ticks collide (very long labels on a narrow axis):
 	// keep every other tick, the first always, until the labels fit.
+	best = xTicks(lo, hi, k, 2)
 	for len(best.ticks) > 1 && !f.xLabelsFit(best, length) {
 		best = thinX(best)
 	}
 	return best
 }
 
-// thinX keeps every other tick of a, starting with the first. Time labels
-// of two or more kept ticks are written again, so that a kept tick whose
-// date was on a dropped one still says which day it is.
-func thinX(a xAxis) xAxis {
+// thinX keeps every other tick of a, starting with the first.
+func thinX(a xAxis) xAxis { return thinXBy(a, 2) }
+
+// thinXBy keeps every stride-th tick of a, starting with the first. Time
+// labels of two or more kept ticks are written again, so that a kept tick
+// whose date was on a dropped one still says which day it is.
+func thinXBy(a xAxis, stride int) xAxis {
 	out := xAxis{time: a.time, d0: a.d0, d1: a.d1}
-	for i := 0; i < len(a.ticks); i += 2 {
+	for i := 0; i < len(a.ticks); i += stride {
 		out.ticks, out.labels = append(out.ticks, a.ticks[i]), append(out.labels, a.labels[i])
 	}
 	// A lone tick keeps its label, which TimeTicks wrote with the full
@@ -100,9 +175,51 @@ func thinX(a xAxis) xAxis {
 	return out
 }
 
-// xTicks computes about m ticks and their labels.
-func xTicks(lo, hi float64, isTime bool, m int) xAxis {
-	if isTime {
+// xCandidates are the labellings fitX chooses from: calendar ticks for
+// about 2 to target+2 ticks on a time axis; on a number axis the nice
+// steps of stepCandidates, each with its ticks inside the data's range (a
+// whole-number axis takes whole steps only).
+func xCandidates(lo, hi float64, k xKind, target int) []xAxis {
+	var out []xAxis
+	if k.time {
+		for m := 2; m <= max(12, target+2); m++ {
+			out = append(out, xTicks(lo, hi, k, m))
+		}
+		return out
+	}
+	eps := (hi - lo) * 1e-9
+	for _, c := range stepCandidates(lo, hi) {
+		if k.integer && c.step != math.Trunc(c.step) {
+			continue
+		}
+		var vals []float64
+		for _, v := range c.values {
+			if v >= lo-eps && v <= hi+eps {
+				vals = append(vals, v)
+			}
+		}
+		out = append(out, numberAxis(lo, hi, vals, k))
+	}
+	return out
+}
+
+// numberAxis labels the ticks vals of a number axis over [lo, hi].
+func numberAxis(lo, hi float64, vals []float64, k xKind) xAxis {
+	a := xAxis{d0: lo, d1: hi}
+	tf := scale.TickFormat(vals, "")
+	if k.years {
+		tf = scale.Format{} // 2018, never 2,018
+	}
+	for _, v := range vals {
+		a.ticks = append(a.ticks, v)
+		a.labels = append(a.labels, tf.Format(v))
+	}
+	return a
+}
+
+// xTicks computes about m ticks inside [lo, hi] and their labels.
+func xTicks(lo, hi float64, k xKind, m int) xAxis {
+	if k.time {
 		tt := scale.TimeTicks(unixTime(lo), unixTime(hi), m, time.UTC)
 		a := xAxis{time: true, d0: lo, d1: hi}
 		for _, t := range tt {
@@ -111,17 +228,25 @@ func xTicks(lo, hi float64, isTime bool, m int) xAxis {
 		}
 		return a
 	}
+	return numberAxis(lo, hi, innerTicks(lo, hi, m, k.integer), k)
+}
+
+// innerTicks are about m nice values inside [lo, hi]: the loose ticks of
+// NiceDomain with those outside the range dropped. For integer data a
+// fractional step gives no ticks, so that callers try another count.
+func innerTicks(lo, hi float64, m int, integer bool) []float64 {
 	t := scale.NiceDomain(lo, hi, m)
-	a := xAxis{d0: lo, d1: hi}
-	if len(t.Values) > 0 {
-		a.d0, a.d1 = math.Min(lo, t.Values[0]), math.Max(hi, t.Values[len(t.Values)-1])
+	if integer && t.Step != math.Trunc(t.Step) {
+		return nil
 	}
-	tf := scale.TickFormat(t.Values, "")
+	eps := (hi - lo) * 1e-9
+	var out []float64
 	for _, v := range t.Values {
-		a.ticks = append(a.ticks, v)
-		a.labels = append(a.labels, tf.Format(v))
+		if v >= lo-eps && v <= hi+eps {
+			out = append(out, v)
+		}
 	}
-	return a
+	return out
 }
 
 // unixTime turns seconds since 1970 UTC into a time.
@@ -162,67 +287,143 @@ func (f *frame) xOverhang(a xAxis, length float64) (left, right float64) {
 	return left, right
 }
 
-// fitY chooses nice value ticks for a panel of height h: as many as keep
-// their labels apart, the domain ending on the outer ticks. Lines need not
-// include zero (their position, not a length, carries the value); include
-// forces a value (the zero of a difference) into the domain.
-func (f *frame) fitY(lo, hi float64, h float64, unit string, include *float64) yAxis {
-	if include != nil {
-		lo, hi = math.Min(lo, *include), math.Max(hi, *include)
+// fitY chooses nice value ticks for a panel of height h, the domain ending
+// on the outer ticks: among tick counts whose labels keep at least
+// tickSpacingMin px apart (scaled with the text), the one whose domain fits
+// the data most tightly, then the one closest to a tick every
+// tickSpacingTarget px, never fewer than three on a tall axis when three
+// fit. Lines need not include zero (their position, not a length, carries
+// the value); k.include forces a value (the zero of a difference, the base
+// of an index) into the domain, and zero is a tick whenever it lies inside
+// (nice ticks are multiples of their step).
+func (f *frame) fitY(lo, hi float64, h float64, k yKind) yAxis {
+	if k.include != nil {
+		lo, hi = math.Min(lo, *k.include), math.Max(hi, *k.include)
 	}
+	scaleK := f.spec.text / 13
+	minSp := math.Max(lineHeight(f.spec.text)*1.5, tickSpacingMin*scaleK*0.8)
+	target := max(2, int(math.Round(h/(tickSpacingTarget*scaleK)))+1)
+	floor := 0
+	if h > minTicksLength*scaleK {
+		floor = minLabelledTicks
+	}
+	var best yAxis
+	bestScore := math.Inf(-1)
 	lh := lineHeight(f.spec.text)
-	start := int(math.Max(2, math.Min(10, math.Floor(h/(lh*1.3)))))
-	var a yAxis
-	for m := start; m >= 2; m-- {
-		t := scale.NiceDomain(lo, hi, m)
-		if len(t.Values) < 2 {
+	for _, c := range stepCandidates(lo, hi) {
+		n := len(c.values)
+		if k.integer && c.step != math.Trunc(c.step) {
 			continue
 		}
-		a = yAxis{d0: t.Values[0], d1: t.Values[len(t.Values)-1], ticks: t.Values, format: scale.TickFormat(t.Values, unit)}
-		step := h / float64(len(t.Values)-1)
-		if step >= lh*1.2 {
-			break
+		spacing := h / float64(n-1)
+		if spacing < lh*1.2 {
+			continue // the labels would touch
+		}
+		fit := 1.0
+		if hi > lo {
+			fit = (hi - lo) / (c.values[n-1] - c.values[0])
+		}
+		score := 4*fit - 0.25*math.Abs(float64(n-target)) - c.penalty
+		if n < floor {
+			score -= 100
+		}
+		if spacing < minSp {
+			score -= 3
+		}
+		// Sparser than one tick per tickSpacingMax px leaves the reader
+		// guessing between labels.
+		if spacing > tickSpacingMax*scaleK {
+			score -= 1.5
+		}
+		if k.include != nil && !slices.Contains(c.values, *k.include) {
+			score -= 2
+		}
+		if score > bestScore {
+			best = yAxis{d0: c.values[0], d1: c.values[n-1], ticks: c.values, format: scale.TickFormat(c.values, k.unit)}
+			bestScore = score
 		}
 	}
-	if a.ticks == nil {
-		a = yAxis{d0: lo - 1, d1: hi + 1, ticks: []float64{lo - 1, hi + 1}, format: scale.TickFormat([]float64{lo - 1, hi + 1}, unit)}
+	if best.ticks == nil {
+		t := scale.NiceDomain(lo, hi, 2)
+		best = yAxis{d0: t.Values[0], d1: t.Values[len(t.Values)-1], ticks: t.Values, format: scale.TickFormat(t.Values, k.unit)}
 	}
-	return a
+	// A forced value (the base of an index) is read against, so it is a
+	// tick; the zero of a difference already is one (a multiple of the step).
+	if v := k.include; v != nil && !slices.Contains(best.ticks, *v) {
+		i, _ := slices.BinarySearch(best.ticks, *v)
+		best.ticks = slices.Insert(slices.Clone(best.ticks), i, *v)
+		best.format = scale.TickFormat(best.ticks, k.unit)
+	}
+	return best
 }
 
-// yLabelWidth is the widest tick label any tick count up to 10 gives, so
+// tickCandidate is one loose labelling of a value axis.
+type tickCandidate struct {
+	values  []float64
+	step    float64
+	penalty float64 // 2.5 steps read a little less easily than 1, 2 and 5
+}
+
+// stepCandidates are the loose labellings of [lo, hi] by the nice steps
+// 1, 2, 2.5 and 5 times a power of ten, from 2 to 13 ticks, the first tick
+// at or below lo and the last at or above hi (the "nice numbers" of
+// Heckbert 1990, enumerated rather than searched, so that every count an
+// axis could carry is scored). Each tick is computed from its integer
+// multiple of the step, so no rounding noise accumulates.
+func stepCandidates(lo, hi float64) []tickCandidate {
+	if hi == lo {
+		d := math.Max(math.Abs(lo)*0.1, 1)
+		lo, hi = lo-d, hi+d
+	}
+	span := hi - lo
+	e0 := int(math.Floor(math.Log10(span)))
+	var out []tickCandidate
+	for e := e0 - 2; e <= e0+1; e++ {
+		for _, q := range []float64{1, 2, 2.5, 5} {
+			// step = q·10^e, held as an integer multiple m of 10^e or of 10^-e.
+			unit := math.Pow(10, float64(e))
+			step := q * unit
+			k0, k1 := math.Floor(lo/step+1e-9), math.Ceil(hi/step-1e-9)
+			n := int(k1-k0) + 1
+			if n < 2 || n > 13 {
+				continue
+			}
+			c := tickCandidate{step: step}
+			if q == 2.5 {
+				c.penalty = 0.3
+			}
+			for i := 0; i < n; i++ {
+				m := (k0 + float64(i)) * q
+				v := m * unit
+				if e < 0 {
+					v = m / math.Pow(10, float64(-e))
+				}
+				if v == 0 {
+					v = 0 // no negative zero
+				}
+				c.values = append(c.values, v)
+			}
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+// yLabelWidth is the widest tick label any candidate labelling gives, so
 // that the plot's left edge is known before its height (which banking
 // chooses) fixes the ticks.
-func (f *frame) yLabelWidth(lo, hi float64, unit string, include *float64) float64 {
-	if include != nil {
-		lo, hi = math.Min(lo, *include), math.Max(hi, *include)
+func (f *frame) yLabelWidth(lo, hi float64, k yKind) float64 {
+	if k.include != nil {
+		lo, hi = math.Min(lo, *k.include), math.Max(hi, *k.include)
 	}
 	w := 0.0
-	for m := 2; m <= 10; m++ {
-		t := scale.NiceDomain(lo, hi, m)
-		tf := scale.TickFormat(t.Values, unit)
-		for _, v := range t.Values {
+	for _, c := range stepCandidates(lo, hi) {
+		tf := scale.TickFormat(c.values, k.unit)
+		for _, v := range c.values {
 			w = math.Max(w, f.measure(tf.Format(v), f.spec.text, false))
 		}
 	}
 	return w
-}
-
-// banking is how a panel's height was chosen.
-type banking struct {
-	method  string  // "" (median absolute slope), "orientation", or "W:H"
-	forced  float64 // alpha from "W:H", else 0
-	alpha   float64 // the final plot H/W
-	banked  float64 // what banking asked for, before clamping
-	msAlpha float64 // the median-slope alpha, for the angle in notes
-	ok      bool    // banking was defined for the data
-	clamped bool
-	fixed   bool // the canvas height, fixed by the medium or --size, limited the plot
-}
-
-// limit records that a fixed canvas height cut the plot to h for width w.
-func (b *banking) limit(w, h float64) {
-	b.alpha, b.fixed = h/w, true
 }
 
 // parseAspect reads an Aspect option.
@@ -243,83 +444,6 @@ func parseAspect(s string) (method string, forced float64, err error) {
 	return "", 0, fmt.Errorf("aspect %q: the ratio is out of range; use width:height such as 16:9", s)
 }
 
-// bankAlpha banks the drawn polylines for the y axis a (Cleveland, McGill &
-// McGill 1988: median absolute slope; Cleveland 1993: length-weighted
-// orientation), clamped to [MinAspect, MaxAspect].
-func (b *banking) bankAlpha(lines []scale.Polyline, rx float64, a yAxis) float64 {
-	ry := a.d1 - a.d0
-	b.msAlpha, _ = scale.BankMedianSlope(lines, rx, ry)
-	if b.forced > 0 {
-		b.ok = true
-		b.alpha, b.banked = b.forced, b.forced
-		return b.alpha
-	}
-	var alpha float64
-	var ok bool
-	if b.method == "orientation" {
-		alpha, ok = scale.BankWeightedOrientation(lines, rx, ry)
-	} else {
-		alpha, ok = b.msAlpha, b.msAlpha > 0
-	}
-	b.ok, b.banked = ok, alpha
-	if !ok {
-		alpha = 0.5 // no segment rises or falls: a calm default
-	}
-	b.clamped = ok && (alpha < MinAspect || alpha > MaxAspect)
-	b.alpha = math.Min(MaxAspect, math.Max(MinAspect, alpha))
-	return b.alpha
-}
-
-// bank chooses a panel's plot height for plot width w: banking needs the
-// y domain, whose nice ticks depend on the height, so it iterates until the
-// two agree, and always returns the alpha computed for the axis it returns.
-func (f *frame) bank(b *banking, lines []scale.Polyline, rx, w, lo, hi float64, unit string, include *float64) (float64, yAxis) {
-	h := w * 0.5
-	var a yAxis
-	for i := 0; i < 6; i++ {
-		a = f.fitY(lo, hi, h, unit, include)
-		nh := b.bankAlpha(lines, rx, a) * w
-		if math.Abs(nh-h) < 0.5 {
-			h = nh
-			break
-		}
-		h = nh
-	}
-	return h, a
-}
-
-// bankNote says how the height was chosen.
-func (b *banking) note(w, h float64) string {
-	switch {
-	case b.forced > 0:
-		angle := ""
-		if b.msAlpha > 0 {
-			angle = fmt.Sprintf("; the median segment is drawn at %.0f°", medianAngle(b.alpha, b.msAlpha))
-		}
-		return fmt.Sprintf("aspect ratio forced by --aspect: plot %.0f × %.0f px%s", w, h, angle)
-	case !b.ok:
-		return fmt.Sprintf("the lines neither rise nor fall: no banking; plot %.0f × %.0f px", w, h)
-	case b.fixed:
-		return fmt.Sprintf("banking to 45° asks for a plot height/width of %.2f; the figure's fixed height allows %.2f (plot %.0f × %.0f px), so the median segment is drawn at %.0f°",
-			b.banked, b.alpha, w, h, medianAngle(b.alpha, b.msAlpha))
-	case b.clamped:
-		return fmt.Sprintf("banking to 45° asks for a plot height/width of %.2f; kept within %.2f–%.2f (plot %.0f × %.0f px), so the median segment is drawn at %.0f°",
-			b.banked, MinAspect, MaxAspect, w, h, medianAngle(b.alpha, b.msAlpha))
-	case b.method == "orientation":
-		return fmt.Sprintf("banked to 45° by length-weighted mean orientation (Cleveland 1993): plot %.0f × %.0f px", w, h)
-	}
-	return fmt.Sprintf("banked to 45° by median absolute slope (Cleveland, McGill & McGill 1988): plot %.0f × %.0f px", w, h)
-}
-
-// medianAngle is the drawn angle, in degrees, of the median segment at
-// aspect alpha, given the alpha that would draw it at 45°.
-func medianAngle(alpha, ms float64) float64 {
-	if !(ms > 0) {
-		return 45
-	}
-	return math.Atan(alpha/ms) * 180 / math.Pi
-}
-
 // lineGeom maps data to the screen of one panel, with M4 reduction when a
 // panel has more than four points per pixel column.
 type lineGeom struct {
@@ -330,41 +454,60 @@ type lineGeom struct {
 }
 
 // keep returns the indices of the points of (x, y) to draw: all of them, or
-// the M4 selection (Jugel et al. 2014) over the panel's pixel columns.
-func (g lineGeom) keep(x, y []float64) []int {
+// the per-column M4 selection (Jugel et al. 2014) over the panel's pixel
+// columns, which also reports how many missing values it drew through.
+func (g lineGeom) keep(x, y []float64) ([]int, int) {
 	if !g.reduce {
 		idx := make([]int, len(x))
 		for i := range idx {
 			idx[i] = i
 		}
-		return idx
+		return idx, 0
 	}
-	return scale.M4(make([]int, 0, 4*g.w+8), x, y, g.ax.d0, g.ax.d1, g.w)
+	return scale.M4Columns(make([]int, 0, 4*g.w+8), x, y, g.ax.d0, g.ax.d1, g.w)
 }
 
 // polyline is the kept points in data units, NaN where the line breaks, for
-// banking and drawing alike.
-func (g lineGeom) polyline(x, y []float64) scale.Polyline {
-	idx := g.keep(x, y)
+// banking and drawing alike, and the count of missing values drawn through.
+func (g lineGeom) polyline(x, y []float64) (scale.Polyline, int) {
+	idx, bridged := g.keep(x, y)
 	p := scale.Polyline{X: make([]float64, len(idx)), Y: make([]float64, len(idx))}
 	for i, j := range idx {
 		p.X[i], p.Y[i] = x[j], y[j]
 	}
-	return p
+	return p, bridged
+}
+
+// drawnLine is a polyline on screen: its pieces between gaps, and for each
+// piece the index in the polyline of its first point, so that a piece of
+// one point (a value between two missing ones) can be drawn as a dot that
+// carries its data.
+type drawnLine struct {
+	pieces [][]Point
+	first  []int
+}
+
+// last is the line's rightmost drawn point.
+func (d drawnLine) last() (Point, bool) {
+	if len(d.pieces) == 0 {
+		return Point{}, false
+	}
+	p := d.pieces[len(d.pieces)-1]
+	return p[len(p)-1], true
 }
 
 // screen maps a polyline to pixel polylines, broken at missing values. When
 // reduced, every vertex stays inside the pixel column M4 grouped it in (the
 // linear position moved by under 0.01 px at most), so that rounding to two
 // decimals never carries a vertex into the next column.
-func (g lineGeom) screen(p scale.Polyline, ys scale.Linear) [][]Point {
+func (g lineGeom) screen(p scale.Polyline, ys scale.Linear) drawnLine {
 	xs := scale.Linear{D0: g.ax.d0, D1: g.ax.d1, R0: g.left, R1: g.left + float64(g.w)}
-	var out [][]Point
+	var out drawnLine
 	var cur []Point
 	for i := range p.X {
 		if math.IsNaN(p.Y[i]) || math.IsNaN(p.X[i]) {
 			if len(cur) > 0 {
-				out = append(out, cur)
+				out.pieces = append(out.pieces, cur)
 				cur = nil
 			}
 			continue
@@ -374,10 +517,13 @@ func (g lineGeom) screen(p scale.Polyline, ys scale.Linear) [][]Point {
 			c := float64(scale.PixelColumn(p.X[i], g.ax.d0, g.ax.d1, g.w))
 			x = math.Min(math.Max(x, g.left+c), g.left+c+0.99)
 		}
+		if len(cur) == 0 {
+			out.first = append(out.first, i)
+		}
 		cur = append(cur, Point{round2(x), round2(ys.Map(p.Y[i]))})
 	}
 	if len(cur) > 0 {
-		out = append(out, cur)
+		out.pieces = append(out.pieces, cur)
 	}
 	return out
 }
@@ -431,14 +577,14 @@ func (f *frame) drawXAxis(a xAxis, left float64, w int, bottom float64, labels b
 // gutter between plots (at least gap0) as they need. It returns the first
 // plot's left edge, the plot width, the gutter and the axis; the width may
 // come out too small to draw, which callers check.
-func (f *frame) fitPanelsX(left0, labelW float64, cols int, gap0, xlo, xhi float64, isTime bool) (left, w, gap float64, ax xAxis) {
+func (f *frame) fitPanelsX(left0, labelW float64, cols int, gap0, xlo, xhi float64, k xKind) (left, w, gap float64, ax xAxis) {
 	sp := f.spec
 	cols = max(cols, 1)
 	n := float64(cols)
 	right := f.width - sp.pad
 	w = math.Floor((right - labelW - left0 - (n-1)*gap0) / n)
 	for {
-		ax = f.fitX(xlo, xhi, isTime, w)
+		ax = f.fitX(xlo, xhi, k, w)
 		lo, ro := f.xOverhang(ax, w)
 		left, gap = math.Max(left0, math.Ceil(sp.pad+lo)), gap0
 		if cols > 1 {

@@ -84,10 +84,7 @@ func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
 	for _, n := range notes[:min(len(notes), 1)] {
 		f.scene.Notes = append(f.scene.Notes, n)
 	}
-	if n := missingNote([]Series{{Name: "difference", X: x, Y: d}}); n != "" {
-		f.scene.Note("missing", false, strings.Replace(n, "the lines are drawn", "the difference is drawn", 1))
-	}
-	c := &diffChart{opt: opt, f: f, x: x, a: a, b: b, d: d}
+	c := &diffChart{opt: opt, f: f, x: x, a: a, b: b, d: d, missing: countMissing([]Series{{Y: d}}), xk: xKindOf([][]float64{x}, opt.Time)}
 	bottom, err := c.layout()
 	if err != nil {
 		return nil, err
@@ -104,7 +101,15 @@ type diffChart struct {
 	opt        DiffOptions
 	f          *frame
 	x, a, b, d []float64
-	crossings  int
+	missing    int // x values where a or b is missing
+	xk         xKind
+}
+
+// noteMissing records what the missing values did to the drawn difference.
+func (c *diffChart) noteMissing(bridged int, drawn []drawnLine) {
+	if n := missingNote(c.missing, bridged, drawn); n != "" {
+		c.f.scene.Note("missing", true, n)
+	}
 }
 
 func (c *diffChart) unitSuffix() string {
@@ -126,15 +131,21 @@ func (c *diffChart) layout() (float64, error) {
 	dlo, dhi, _ := dataRange(c.d)
 	xlo, xhi, _ := dataRange(c.x)
 	lvLo, lvHi, _ := dataRange(c.a, c.b)
+	xk := c.xk
+	if xk.years {
+		f.scene.Note("years", false, yearsNote)
+	}
+	dk := yKind{include: &zero, integer: wholeNumbers(c.d)}
+	lk := yKind{integer: wholeNumbers(c.a) && wholeNumbers(c.b)}
 
-	yw := f.yLabelWidth(dlo, dhi, "", &zero)
+	yw := f.yLabelWidth(dlo, dhi, dk)
 	var labels []endLabel
 	labelW := 0.0
 	if c.opt.Context {
-		yw = math.Max(yw, f.yLabelWidth(lvLo, lvHi, "", nil))
+		yw = math.Max(yw, f.yLabelWidth(lvLo, lvHi, lk))
 		labels, labelW = f.directLabels([]string{c.opt.AName, c.opt.BName}, []string{lineA, lineB}, (f.width-2*sp.pad)*0.3)
 	}
-	left, w, _, ax := f.fitPanelsX(math.Ceil(sp.pad+yw+sp.gap), labelW, 1, 0, xlo, xhi, c.opt.Time)
+	left, w, _, ax := f.fitPanelsX(math.Ceil(sp.pad+yw+sp.gap), labelW, 1, 0, xlo, xhi, xk)
 	if w < sp.text*8 {
 		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size")
 	}
@@ -142,24 +153,31 @@ func (c *diffChart) layout() (float64, error) {
 	y := f.plotTop()
 	half := math.Ceil((asc + desc) / 2)
 
-	// Bank both panels first: a medium of fixed height may have to shrink them.
+	// Bank both panels first: a medium of fixed height shares its room
+	// between them.
 	series := []Series{{Name: c.opt.AName, X: c.x, Y: c.a}, {Name: c.opt.BName, X: c.x, Y: c.b}}
+	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
 	var pa, pb scale.Polyline
 	var hc float64
 	var ayc yAxis
 	var bkc banking
+	var err error
 	if c.opt.Context {
-		g.reduce = shouldReduce(series, g.w)
-		pa, pb = g.polyline(c.x, c.a), g.polyline(c.x, c.b)
-		hc, ayc = f.bank(&bkc, []scale.Polyline{pa, pb}, ax.d1-ax.d0, w, lvLo, lvHi, "", nil)
+		pa, _ = g.polyline(c.x, c.a)
+		pb, _ = g.polyline(c.x, c.b)
+		if hc, ayc, err = f.plotHeight(&bkc, []scale.Polyline{pa, pb}, c.opt.Time, ax.d1-ax.d0, w, lvLo, lvHi, lk, 0, true); err != nil {
+			return 0, err
+		}
 	}
-	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
-	pd := g.polyline(c.x, c.d)
+	pd, bridged := g.polyline(c.x, c.d)
 	if g.reduce && len(pd.X) < len(c.x) {
 		f.scene.Note("reduced", false, reduceNote(len(c.x), len(pd.X)))
 	}
 	var bk banking
-	h, ay := f.bank(&bk, []scale.Polyline{pd}, ax.d1-ax.d0, w, dlo, dhi, "", &zero)
+	h, ay, err := f.plotHeight(&bk, []scale.Polyline{pd}, c.opt.Time, ax.d1-ax.d0, w, dlo, dhi, dk, 0, false)
+	if err != nil {
+		return 0, err
+	}
 	// Panel titles name both series, which may be long: up to two lines
 	// across the figure, then shortened with the full text in a tooltip.
 	inner := f.width - 2*sp.pad
@@ -167,29 +185,31 @@ func (c *diffChart) layout() (float64, error) {
 	diffTitle := f.axisTitle("difference, "+c.opt.AName+" − "+c.opt.BName+c.unitSuffix(), inner)
 	panelTop := diffTitle.height(lh) + sp.gap + half
 	if fb := f.fixedPlotBottom(); fb > 0 {
-		room := fb - y - panelTop - (f.xLabelTop(0) + lh)
+		room := fb - y - panelTop - (f.xLabelTop(0) + lh) - 2*lh - sp.gap // a key of up to two rows under the axis
 		if c.opt.XName != "" {
 			room -= lh
 		}
 		if c.opt.Context {
 			room -= ctxTitle.height(lh) + sp.gap + 2*half + sp.gap*2
 		}
-		if room < sp.text*6 {
-			return 0, fmt.Errorf("the figure is too short for a difference chart: give a taller --size")
+		// The room is shared in the banked proportion, so that both panels
+		// fill the canvas together.
+		k := room / (h + hc)
+		h, hc = math.Floor(h*k), math.Floor(hc*k)
+		// Two panels share a fixed canvas: each may then be as short as a
+		// panel of small multiples.
+		if h < minPlotHeight(sp, c.opt.Context) || c.opt.Context && hc < minPlotHeight(sp, true) {
+			return 0, fmt.Errorf("the figure's fixed height leaves too short a plot for a difference chart to be read: give a taller --size, or a shorter title and notes, so that it can fit")
 		}
-		if k := room / (h + hc); k < 1 {
-			h, hc = h*k, hc*k
-			ay = f.fitY(dlo, dhi, h, "", &zero)
-			bk.limit(w, h)
-			if c.opt.Context {
-				ayc = f.fitY(lvLo, lvHi, hc, "", nil)
-				bkc.limit(w, hc)
-			}
+		ay = f.fitY(dlo, dhi, h, dk)
+		bk.fill, bk.raised, bk.alpha = true, false, h/w
+		if c.opt.Context {
+			ayc = f.fitY(lvLo, lvHi, hc, lk)
+			bkc.fill, bkc.raised, bkc.alpha = true, false, hc/w
 		}
 	}
 	lw := strokeWidth(sp)
 	if c.opt.Context {
-		g.reduce = shouldReduce(series, g.w)
 		h, ay := hc, ayc
 		f.scene.Note("aspect", false, "levels panel: "+bkc.note(w, h))
 		f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "levels"}}})
@@ -200,11 +220,10 @@ func (c *diffChart) layout() (float64, error) {
 		f.drawYAxis(ay, ys, 0, w, true)
 		f.scene.Add(Mark{Kind: GroupEnd})
 		for i, p := range []scale.Polyline{pa, pb} {
-			lines := g.screen(p, ys)
-			f.scene.Add(seriesPath(series[i].Name, lines, []string{lineA, lineB}[i], lw))
-			if len(lines) > 0 {
-				last := lines[len(lines)-1]
-				labels[i].ex, labels[i].ey = last[len(last)-1].X, last[len(last)-1].Y
+			d := g.screen(p, ys)
+			f.addSeries("plumb-mark", series[i].Name, p, d, []string{lineA, lineB}[i], lw, c.opt.Time)
+			if pt, ok := d.last(); ok {
+				labels[i].ex, labels[i].ey = pt.X, pt.Y
 			}
 		}
 		if !f.placeLabels(labels, w, top, top+h) {
@@ -214,7 +233,6 @@ func (c *diffChart) layout() (float64, error) {
 		y += top + h + half + sp.gap*2
 	}
 
-	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
 	f.scene.Note("aspect", false, bk.note(w, h))
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: left, DY: round2(y), Attrs: []Attr{{"panel", "difference"}}})
 	f.drawAxisTitle(diffTitle, -left+sp.pad, 0)
@@ -284,12 +302,94 @@ func (c *diffChart) layout() (float64, error) {
 		}
 		dl = append(dl, l)
 	}
-	f.scene.Add(seriesPath("difference", dl, f.th.text, lw*0.75))
-	var placed []layout.Box
-	placed = c.regionLabel(placed, largest[0], c.opt.AName, c.opt.BName, xs, ys, w, top, top+h, true)
-	c.regionLabel(placed, largest[1], c.opt.BName, c.opt.AName, xs, ys, w, top, top+h, false)
+	f.addSeries("plumb-mark", "difference", crossingsPolyline(pts), drawnLine{pieces: dl, first: runStarts(pts)}, f.th.text, lw*0.75, c.opt.Time)
+	c.noteMissing(bridged, []drawnLine{{pieces: dl}})
+	// Every segment a label must keep clear of: the difference line and the
+	// outlines of the areas.
+	var segs [][2]Point
+	for _, group := range [][][]Point{dl, pos, neg} {
+		for _, l := range group {
+			for i := 1; i < len(l); i++ {
+				segs = append(segs, [2]Point{l[i-1], l[i]})
+			}
+		}
+	}
+	placed := [2]bool{
+		c.regionLabel(largest[0], c.opt.AName, c.opt.BName, xs, ys, segs, true),
+		c.regionLabel(largest[1], c.opt.BName, c.opt.AName, xs, ys, segs, false),
+	}
+	// Say once what each colour means: in its region's label, or, for a
+	// colour whose regions are all too thin for a label, in a key under
+	// the axis.
+	var key []keyItem
+	if !placed[0] && len(pos) > 0 {
+		key = append(key, keyItem{areaA, c.opt.AName, c.opt.BName})
+	}
+	if !placed[1] && len(neg) > 0 {
+		key = append(key, keyItem{areaB, c.opt.BName, c.opt.AName})
+	}
+	bottom = f.areaKey(key, 0, w, bottom)
 	f.scene.Add(Mark{Kind: GroupEnd})
 	return y + bottom, nil
+}
+
+// keyItem is one colour of a difference chart and what it means.
+type keyItem struct{ fill, above, below string }
+
+// areaKey draws the key for the colours whose meaning no region label
+// gives, one row each under the axis from y; it returns the y under it.
+func (f *frame) areaKey(items []keyItem, left, width, y float64) float64 {
+	if len(items) == 0 {
+		return y
+	}
+	sp := f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-legend"})
+	y += sp.gap
+	for _, it := range items {
+		sw := sp.text
+		full := it.above + " above " + it.below
+		text, ok := f.regionText(it.above, it.below, width-sw-sp.gap)
+		f.scene.Add(Mark{Kind: Rect, Class: "plumb-swatch", X: left, Y: round2(y + (lh-sw)/2), W: sw, H: sw, Fill: it.fill})
+		if ok {
+			tip := ""
+			if text != full {
+				tip = full
+			}
+			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sw + sp.gap, Y: round2(y + lh/2 + (asc-desc)/2), Text: text, Size: sp.text, Fill: f.th.text, Tooltip: tip})
+		}
+		y += lh
+	}
+	f.scene.Add(Mark{Kind: GroupEnd})
+	return y
+}
+
+// crossingsPolyline flattens the runs back into one polyline, NaN between
+// runs, so that addSeries can read a dot's data from it.
+func crossingsPolyline(runs [][]xy) scale.Polyline {
+	var p scale.Polyline
+	for i, r := range runs {
+		if i > 0 {
+			p.X, p.Y = append(p.X, math.NaN()), append(p.Y, math.NaN())
+		}
+		for _, q := range r {
+			p.X, p.Y = append(p.X, q.X), append(p.Y, q.Y)
+		}
+	}
+	return p
+}
+
+// runStarts is the index in crossingsPolyline of every run's first point.
+func runStarts(runs [][]xy) []int {
+	out := make([]int, len(runs))
+	i := 0
+	for k, r := range runs {
+		out[k] = i
+		i += len(r) + 1
+	}
+	return out
 }
 
 type areaInfo struct {
@@ -297,101 +397,91 @@ type areaInfo struct {
 	pts  []xy
 }
 
-// regionLabel names the largest area of one sign, "a above b", inside the
-// plot: where the area is tallest under the whole label, on the light fill
-// just off the baseline; else beside the area's extreme, outside it; else
-// at the plot's top (or bottom) edge. The first place clear of the labels
-// already placed wins; the label is shortened to the plot's width, and
-// left out with a note only when no place is free. It returns placed with
-// the label's box added.
-func (c *diffChart) regionLabel(placed []layout.Box, ar areaInfo, a, b string, xs, ys scale.Linear, w, top, bottom float64, above bool) []layout.Box {
+// regionLabel names the largest area of one sign, "a above b", inside it:
+// in the area's tallest clear space that holds the whole label with a
+// margin, centred there, its box crossing neither the difference line nor
+// any area's outline. An area too thin for its label gets none (the key
+// then says what the colour means). It reports whether it placed one.
+func (c *diffChart) regionLabel(ar areaInfo, a, b string, xs, ys scale.Linear, segs [][2]Point, above bool) bool {
 	if ar.area == 0 {
-		return placed
+		return false
 	}
 	f, sp := c.f, c.f.spec
-	full := a + " above " + b
-	text, ok := f.regionText(a, b, w-4)
-	if !ok {
-		f.scene.Note("label-dropped", false, fmt.Sprintf("left out the label %q: the plot is too narrow for it", full))
-		return placed
-	}
 	face := f.fonts.Face(false)
 	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	margin := math.Max(2, sp.gap/2)
 	zero := ys.Map(0)
-	lh := lineHeight(sp.text)
-	type spot struct {
-		text     string
-		tw       float64
-		cx, base float64
-	}
-	// Inside, the label may need shortening to the area's width; it goes
-	// there first unless that shortens it more than outside would.
-	var inside *spot
+	full := a + " above " + b
 	x0, x1 := xs.Map(ar.pts[0].X), xs.Map(ar.pts[len(ar.pts)-1].X)
-	if in, ok := f.regionText(a, b, math.Min(w, x1-x0)-4); ok {
-		tw := f.measure(in, sp.text, false)
-		bestCX, bestH := 0.0, -1.0
-		for cx := x0 + tw/2 + 2; cx <= x1-tw/2-2; cx += 2 {
-			if hgt := minDepth(ar.pts, xs, ys, cx-tw/2-2, cx+tw/2+2); hgt > bestH {
-				bestCX, bestH = cx, hgt
+	// One line, shortened to the region's width if need be, then the full
+	// names on two lines ("a above" over "b"), which fit a region that is
+	// deep rather than long.
+	var layouts [][]string
+	if text, ok := f.regionText(a, b, x1-x0-2*margin); ok {
+		layouts = append(layouts, []string{text})
+	}
+	layouts = append(layouts, []string{a + " above", b})
+	lh := lineHeight(sp.text)
+	for _, lines := range layouts {
+		tw := 0.0
+		for _, l := range lines {
+			tw = math.Max(tw, f.measure(l, sp.text, false))
+		}
+		th := asc + desc + float64(len(lines)-1)*lh
+		bestCX, bestD := 0.0, -1.0
+		for cx := x0 + tw/2 + margin; cx <= x1-tw/2-margin; cx += 2 {
+			if d := minDepth(ar.pts, xs, ys, cx-tw/2-margin, cx+tw/2+margin); d > bestD {
+				bestCX, bestD = cx, d
 			}
 		}
-		if bestH >= lh+sp.gap {
-			base := zero + sp.gap/2 + asc
-			if above {
-				base = zero - sp.gap/2 - desc
-			}
-			inside = &spot{in, tw, bestCX, base}
-		}
-	}
-	tw := f.measure(text, sp.text, false)
-	ext := ar.pts[0]
-	for _, p := range ar.pts {
-		if math.Abs(p.Y) > math.Abs(ext.Y) {
-			ext = p
-		}
-	}
-	cx := math.Min(math.Max(xs.Map(ext.X), tw/2+2), w-tw/2-2)
-	peak := zero
-	for _, p := range ar.pts {
-		if px := xs.Map(p.X); px < cx-tw/2-2 || px > cx+tw/2+2 {
+		if bestD < th+2*margin {
 			continue
 		}
-		if y := ys.Map(p.Y); above && y < peak || !above && y > peak {
-			peak = y
+		// Centred in the clear space between the baseline and the line.
+		mid := zero - bestD/2
+		if !above {
+			mid = zero + bestD/2
 		}
-	}
-	beside, edge := spot{text, tw, cx, peak - sp.gap - desc}, spot{text, tw, cx, top + asc}
-	clear := beside.base >= edge.base
-	if !above {
-		beside.base, edge.base = peak+sp.gap+asc, bottom-desc
-		clear = beside.base <= edge.base
-	}
-	var spots []spot
-	if inside != nil && inside.text == text {
-		spots = append(spots, *inside)
-	}
-	if clear {
-		spots = append(spots, beside)
-	}
-	if inside != nil && inside.text != text {
-		spots = append(spots, *inside)
-	}
-	spots = append(spots, edge)
-	for _, s := range spots {
-		box := layout.Box{X: s.cx - s.tw/2, Y: s.base - asc, W: s.tw, H: asc + desc}
-		if slices.ContainsFunc(placed, box.Overlaps) {
+		box := layout.Box{X: bestCX - tw/2, Y: mid - th/2, W: tw, H: th}
+		if slices.ContainsFunc(segs, func(s [2]Point) bool { return segmentHitsBox(s[0], s[1], box) }) {
 			continue
 		}
 		tip := ""
-		if s.text != full {
+		if strings.Join(lines, " ") != full {
 			tip = full
 		}
-		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(s.cx), Y: round2(s.base), Text: s.text, Size: sp.text, Fill: f.th.text, Anchor: Middle, Tooltip: tip})
-		return append(placed, box)
+		for i, l := range lines {
+			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(bestCX), Y: round2(mid - th/2 + asc + float64(i)*lh), Text: l, Size: sp.text, Fill: f.th.text, Anchor: Middle, Tooltip: tip})
+		}
+		return true
 	}
-	f.scene.Note("label-dropped", false, fmt.Sprintf("left out the label %q: no room for it in the plot clear of the other label", full))
-	return placed
+	return false
+}
+
+// segmentHitsBox reports whether the segment pq meets the box (Liang-Barsky
+// clipping of the segment against the box).
+func segmentHitsBox(p, q Point, b layout.Box) bool {
+	t0, t1 := 0.0, 1.0
+	dx, dy := q.X-p.X, q.Y-p.Y
+	for _, e := range [4][2]float64{{-dx, p.X - b.X}, {dx, b.X + b.W - p.X}, {-dy, p.Y - b.Y}, {dy, b.Y + b.H - p.Y}} {
+		pk, qk := e[0], e[1]
+		if pk == 0 {
+			if qk < 0 {
+				return false
+			}
+			continue
+		}
+		r := qk / pk
+		if pk < 0 {
+			t0 = math.Max(t0, r)
+		} else {
+			t1 = math.Min(t1, r)
+		}
+		if t0 > t1 {
+			return false
+		}
+	}
+	return true
 }
 
 // regionText is "a above b" within width: when it is too wide, the longer
@@ -503,13 +593,10 @@ func splitSigns(run []xy) []signedPart {
 // largest differences.
 func (c *diffChart) describe() string {
 	var b strings.Builder
-	over := c.opt.XName
-	if over == "" {
-		over = "x"
-	}
+	over := overText(c.opt.XName, c.opt.Time)
 	xlo, xhi, _ := dataRange(c.x)
-	fmt.Fprintf(&b, "Difference chart of %s minus %s over %s, from %s to %s, against a zero line.", c.opt.AName, c.opt.BName, over,
-		xValueText(xlo, c.opt.Time), xValueText(xhi, c.opt.Time))
+	fmt.Fprintf(&b, "Difference chart of %s minus %s %s, from %s to %s, against a zero line.", c.opt.AName, c.opt.BName, over,
+		xValueText(xlo, c.xk), xValueText(xhi, c.xk))
 	series := []Series{{Name: c.opt.AName, X: c.x, Y: c.a}, {Name: c.opt.BName, X: c.x, Y: c.b}, {X: c.x, Y: c.d}}
 	vf := scale.ValueFormat(shownValues(series), c.opt.Unit)
 	_, _, lo, hi := extremes(c.d)
@@ -522,9 +609,9 @@ func (c *diffChart) describe() string {
 		}
 	}
 	fmt.Fprintf(&b, " %s is above %s at %d of %d points and below at %d.", c.opt.AName, c.opt.BName, above, len(c.d), below)
-	fmt.Fprintf(&b, " Largest difference: %s at %s; smallest: %s at %s.", vf.Format(c.d[hi]), xValueText(c.x[hi], c.opt.Time), vf.Format(c.d[lo]), xValueText(c.x[lo], c.opt.Time))
+	fmt.Fprintf(&b, " Largest difference: %s at %s; smallest: %s at %s.", vf.Format(c.d[hi]), xValueText(c.x[hi], c.xk), vf.Format(c.d[lo]), xValueText(c.x[lo], c.xk))
 	for _, s := range series[:2] {
-		b.WriteString(" " + describeSeries(s, vf, c.opt.Time))
+		b.WriteString(" " + describeSeries(s, vf, c.xk))
 	}
 	return b.String()
 }

@@ -36,5 +36,5 @@ func ExampleDiff() {
 	}
 	fmt.Println(len(notes), "note:", notes[0])
 	// Output:
-	// 1 note: banked to 45° by median absolute slope (Cleveland, McGill & McGill 1988): plot 568 × 355 px
+	// 1 note: banked to 45° by median absolute slope (Cleveland, McGill & McGill 1988): plot 574 × 359 px
 }

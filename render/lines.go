@@ -6,6 +6,7 @@ import (
 	"io"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 	"time"
 
@@ -76,6 +77,9 @@ type lineChart struct {
 	// The data's extent over all series, found once: each pass over a
 	// million points costs as much as the rest of the layout.
 	xlo, xhi, ylo, yhi float64
+	xk                 xKind
+	yk                 yKind
+	missing            int // missing values over all series
 }
 
 func (c *lineChart) build(in []Series) (*Scene, error) {
@@ -94,6 +98,8 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	}
 	c.f = f
 	f.scene.Notes = append(f.scene.Notes, notes...)
+	c.series = series
+	c.xk = xKindOf(c.xs(), c.opt.Time)
 	if c.opt.Index || c.opt.IndexAt != nil {
 		if series, err = c.rebase(series); err != nil {
 			return nil, err
@@ -106,13 +112,16 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 		return nil, fmt.Errorf("no values to draw: every value is missing")
 	}
 	c.xlo, c.xhi, _ = dataRange(c.xs()...)
-	if n := missingNote(series); n != "" {
-		f.scene.Note("missing", false, n)
-	}
+	c.missing = countMissing(series)
+	c.kinds()
 	multiples := len(series) > MaxTogether && !c.opt.Together
+	if multiples && len(series) > MaxPanels {
+		return nil, &refusal{reason: fmt.Sprintf("%d series are too many to compare, on one panel or in a grid of %d small multiples (at most %d panels)", len(series), len(series), MaxPanels),
+			instead: "highlight a few: draw the ones that matter (--y, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
+	}
 	switch {
 	case multiples:
-		f.scene.Note("multiples", false, fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the others faint behind it (--together keeps one panel)", len(series)))
+		f.scene.Note("multiples", false, fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the range of all series as a faint band behind each (--together keeps one panel)", len(series)))
 	case len(series) > MaxTogether:
 		f.scene.Note("together", false, fmt.Sprintf("kept %d series on one panel as asked (--together); small multiples would read more easily", len(series)))
 	}
@@ -136,6 +145,56 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 		f.scene.Title = c.accessibleTitle()
 	}
 	return f.finish(bottom), nil
+}
+
+// kinds decides what the axes must respect: see xKindOf; whole-number
+// values get no fractional ticks either, and an index includes its base
+// of 100, which is always a tick.
+func (c *lineChart) kinds() {
+	if c.xk.years {
+		c.f.scene.Note("years", false, yearsNote)
+	}
+	c.yk.unit = c.unit
+	if c.indexed() {
+		base := 100.0
+		c.yk.include = &base
+		return
+	}
+	c.yk.integer = wholeNumbers(c.ys()...)
+}
+
+// yearsNote says that whole-number x values were read as years.
+const yearsNote = "read the x values, whole numbers from 1800 to 2100, as years: ticks fall on whole years and print without a thousands separator"
+
+// xKindOf says what x values are: instants, or whole numbers (no tick
+// falls between two of them), which when they all lie from 1800 to 2100
+// look like calendar years and are printed as years (2018, never 2,018).
+func xKindOf(xs [][]float64, isTime bool) xKind {
+	if isTime {
+		return xKind{time: true}
+	}
+	k := xKind{integer: wholeNumbers(xs...), years: true}
+	for _, v := range xs {
+		for _, x := range v {
+			if x < 1800 || x > 2100 {
+				k.years = false
+			}
+		}
+	}
+	k.years = k.years && k.integer
+	return k
+}
+
+// wholeNumbers reports whether every non-missing value is a whole number.
+func wholeNumbers(vs ...[]float64) bool {
+	for _, v := range vs {
+		for _, y := range v {
+			if !math.IsNaN(y) && y != math.Trunc(y) {
+				return false
+			}
+		}
+	}
+	return true
 }
 
 func (c *lineChart) ys() [][]float64 {
@@ -210,28 +269,52 @@ func cleanSeries(in []Series) ([]Series, []Note, error) {
 	return out, notes, nil
 }
 
-// missingNote counts missing values and the pieces they break lines into.
-func missingNote(series []Series) string {
-	missing, pieces := 0, 0
+// countMissing is the number of missing values over all series.
+func countMissing(series []Series) int {
+	n := 0
 	for _, s := range series {
-		in := false
 		for _, y := range s.Y {
 			if math.IsNaN(y) {
-				missing++
-				in = false
-				continue
-			}
-			if !in {
-				pieces++
-				in = true
+				n++
 			}
 		}
 	}
+	return n
+}
+
+// missingNote says what the missing values did to the drawn lines: the
+// pieces they break them into, the values between two gaps that are drawn
+// as dots, and, when the line was reduced to pixel columns, how many fell
+// inside columns that also hold values and were drawn through.
+func missingNote(missing, bridged int, drawn []drawnLine) string {
 	if missing == 0 {
 		return ""
 	}
-	return fmt.Sprintf("%d missing %s leave gaps: the lines are drawn in %d pieces and never joined across a gap",
-		missing, plural(missing, "value", "values"), pieces)
+	g := scale.Format{Group: true}
+	if bridged >= missing {
+		return fmt.Sprintf("%s missing %s fall inside pixel columns that also hold values, so at this width the line is drawn through them (a gap is drawn only where a whole pixel column has no value)",
+			g.Format(float64(missing)), plural(missing, "value", "values"))
+	}
+	pieces, dots := 0, 0
+	for _, d := range drawn {
+		pieces += len(d.pieces)
+		for _, p := range d.pieces {
+			if len(p) == 1 {
+				dots++
+			}
+		}
+	}
+	gaps := missing - bridged
+	text := fmt.Sprintf("%s missing %s: drawn in %s %s, never joined across a gap", g.Format(float64(gaps)), plural(gaps, "value leaves a gap", "values leave gaps"),
+		g.Format(float64(pieces)), plural(pieces, "piece", "pieces"))
+	if dots > 0 {
+		text += fmt.Sprintf("; %s %s between two gaps drawn as %s as wide as the line", g.Format(float64(dots)), plural(dots, "value", "values"), plural(dots, "a dot", "dots"))
+	}
+	if bridged > 0 {
+		text += fmt.Sprintf("; %s more missing %s fall inside pixel columns that also hold values and are drawn through (a gap is drawn only where a whole pixel column has no value)",
+			g.Format(float64(bridged)), plural(bridged, "value", "values"))
+	}
+	return text
 }
 
 // magnitudeNote suggests an index or panels when one axis must show series
@@ -357,10 +440,15 @@ func (c *lineChart) axisTitle() {
 }
 
 // xText formats an x value for notes and the description.
-func (c *lineChart) xText(x float64) string { return xValueText(x, c.opt.Time) }
+func (c *lineChart) xText(x float64) string { return xValueText(x, c.xk) }
 
-func xValueText(x float64, isTime bool) string {
-	if !isTime {
+// xValueText writes an x value for a note or a description: a date on a
+// time axis, a year as a year (2018, never 2,018), else a number.
+func xValueText(x float64, k xKind) string {
+	if k.years {
+		return strconv.FormatFloat(x, 'f', 0, 64)
+	}
+	if !k.time {
 		return scale.ValueFormat([]float64{x}, "").Format(x)
 	}
 	t := unixTime(x)
@@ -384,10 +472,12 @@ func (c *lineChart) seriesColors() []string {
 		out[0] = c.f.th.neutral
 		return out
 	}
-	p, err := palette.Categorical(min(n, palette.MaxCategorical))
+	p, err := palette.Categorical(n)
 	for i := range out {
-		if err != nil || i >= len(p) {
-			out[i] = c.f.th.neutral // beyond the palette: --together with many series
+		// More series than colours that stay apart (--together with many
+		// series): all in the neutral colour, for none is told apart.
+		if err != nil || n > palette.MaxCategorical || i >= len(p) {
+			out[i] = c.f.th.neutral
 			continue
 		}
 		out[i] = p[i].Hex()
@@ -400,12 +490,14 @@ type endLabel struct {
 	lines  []string
 	full   string
 	color  string // the series colour
-	text   string // the text colour: the series colour when it reads at 4.5:1
+	text   string // the text colour: the series' hue, darkened until it reads at 4.5:1
 	ex, ey float64
 }
 
 // directLabels measures the labels and returns the width they need at the
-// right of the plot.
+// right of the plot. Each label takes its series' hue, darkened in OKLCH
+// lightness until it meets the 4.5:1 text contrast of WCAG 2.x on the white
+// background, so that label and line read as one.
 func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, float64) {
 	sp := f.spec
 	labels := make([]endLabel, len(names))
@@ -417,8 +509,10 @@ func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, 
 			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
 		}
 		txt := f.th.text
-		if col, err := palette.ParseHex(colors[i]); err == nil && palette.Contrast(col, white) >= 4.5 {
-			txt = colors[i] // WCAG 2.x: text at least 4.5:1
+		if col, err := palette.ParseHex(colors[i]); err == nil {
+			if dark, ok := palette.DarkenToContrast(col, white, 4.5); ok {
+				txt = dark.Hex()
+			}
 		}
 		labels[i] = endLabel{lines: lines, full: n, color: colors[i], text: txt}
 		for _, l := range lines {
@@ -428,14 +522,17 @@ func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, 
 	return labels, width + f.labelIndent()
 }
 
-// labelIndent is the room between the plot's right edge and label text: the
-// leader, which also shows the series colour beside a label set in the text
-// colour.
+// labelIndent is the room between the plot's right edge and label text,
+// where the leaders run.
 func (f *frame) labelIndent() float64 { return f.spec.gap * 3 }
 
 // placeLabels spreads the labels vertically with the least total
 // displacement (layout.Spread) and draws them with leader lines. It returns
 // false, drawing nothing, when they cannot fit between top and bottom.
+// Leaders are thin and in the muted text colour, and run only in the
+// margin right of the plot, from the height of the line's end to the
+// label: in the series' colour and starting at the last point they read as
+// the data going on.
 func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool {
 	sp := f.spec
 	lh := lineHeight(sp.text)
@@ -467,8 +564,8 @@ func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool 
 	x := right + f.labelIndent()
 	for i, l := range labels {
 		y := got[i]
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(l.ex + 2), round2(l.ey)}, {round2(x - 2), round2(y)}}},
-			Stroke: l.color, StrokeWidth: 1.5})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(right + sp.gap/2), round2(l.ey)}, {round2(x - sp.gap/2), round2(y)}}},
+			Stroke: f.th.muted, StrokeWidth: 0.75, Attrs: []Attr{{"series", l.full}}})
 		tip := ""
 		if strings.Join(l.lines, " ") != l.full {
 			tip = l.full
@@ -494,7 +591,7 @@ func (f *frame) legend(labels []endLabel, left, y float64) float64 {
 	for _, l := range labels {
 		cy := y + lh/2
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2})
-		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sp.text*1.5 + sp.gap, Y: cy + (asc-desc)/2, Text: l.full, Size: sp.text, Fill: f.th.text,
+		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sp.text*1.5 + sp.gap, Y: cy + (asc-desc)/2, Text: l.full, Size: sp.text, Fill: l.text,
 			Attrs: []Attr{{"series", l.full}}})
 		y += lh
 	}
@@ -502,10 +599,36 @@ func (f *frame) legend(labels []endLabel, left, y float64) float64 {
 	return y
 }
 
-// seriesPath is the mark of one drawn series.
-func seriesPath(name string, lines [][]Point, color string, width float64) Mark {
+// addSeries draws one series: its pieces of two or more points as one
+// path, and every piece of a single point (a value between two missing
+// ones, which a path would not show) as a dot as wide as the line, with
+// the value it stands for.
+func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, color string, width float64, isTime bool) {
 	width = round2(width)
-	return Mark{Kind: Path, Class: "plumb-mark", Lines: lines, Stroke: color, StrokeWidth: width, Attrs: []Attr{{"series", name}}}
+	var lines [][]Point
+	var dots []Mark
+	for k, piece := range d.pieces {
+		if len(piece) > 1 {
+			lines = append(lines, piece)
+			continue
+		}
+		j := d.first[k]
+		dots = append(dots, Mark{Kind: Circle, Class: class, X: piece[0].X, Y: piece[0].Y, R: width / 2, Fill: color,
+			Attrs: []Attr{{"series", name}, {"x", xData(p.X[j], isTime)}, {"value", dataNumber(p.Y[j])}}})
+	}
+	if len(lines) > 0 {
+		f.scene.Add(Mark{Kind: Path, Class: class, Lines: lines, Stroke: color, StrokeWidth: width, Attrs: []Attr{{"series", name}}})
+	}
+	f.scene.Add(dots...)
+}
+
+// xData is an x value for a data attribute: the number, or the instant in
+// RFC 3339.
+func xData(x float64, isTime bool) string {
+	if isTime {
+		return unixTime(x).Format(time.RFC3339)
+	}
+	return dataNumber(x)
 }
 
 // shouldReduce applies M4 when a series holds more than four points per
@@ -526,6 +649,60 @@ func reduceNote(before, after int) string {
 		scale.Format{Group: true}.Format(float64(before)), scale.Format{Group: true}.Format(float64(after)))
 }
 
+// MaxDrawnPoints bounds the vertices one line chart draws after reduction:
+// about 60 MB of SVG, far more than any reader can see, and far below what
+// runs a machine out of memory. Past it the chart is declined with the
+// alternatives.
+const MaxDrawnPoints = 4_000_000
+
+// reduceAll turns every series into the polyline to draw for plot width w,
+// each reduced per pixel column when it has more than four points per
+// column, and notes the reduction. It declines a chart past MaxDrawnPoints.
+func (c *lineChart) reduceAll(g lineGeom) ([]scale.Polyline, int, error) {
+	return c.reduceWithin(g, MaxDrawnPoints)
+}
+
+// reduceWithin is reduceAll with the bound on drawn points as a parameter.
+func (c *lineChart) reduceWithin(g lineGeom, limit int) ([]scale.Polyline, int, error) {
+	polys := make([]scale.Polyline, len(c.series))
+	before, after, bridged := 0, 0, 0
+	for i, s := range c.series {
+		g.reduce = shouldReduce(c.series[i:i+1], g.w)
+		var b int
+		polys[i], b = g.polyline(s.X, s.Y)
+		before, after, bridged = before+len(s.X), after+len(polys[i].X), bridged+b
+	}
+	if after > limit {
+		return nil, 0, &refusal{reason: fmt.Sprintf("%s series draw %s points even after reduction to the pixel columns, more than the %s one figure draws",
+			scale.Format{Group: true}.Format(float64(len(c.series))), scale.Format{Group: true}.Format(float64(after)), scale.Format{Group: true}.Format(float64(limit))),
+			instead: "aggregate the series (a mean or median per x), filter to the few that matter, or draw groups of them in separate figures"}
+	}
+	if after < before {
+		c.f.scene.Note("reduced", false, reduceNote(before, after))
+	}
+	return polys, bridged, nil
+}
+
+// noteMissing records what the missing values did to the drawn lines.
+func (c *lineChart) noteMissing(bridged int, drawn []drawnLine) {
+	if n := missingNote(c.missing, bridged, drawn); n != "" {
+		c.f.scene.Note("missing", true, n)
+	}
+}
+
+// drawBase draws the base of an index, 100, as a labelled reference line
+// across the plot: every line is read against it.
+func (c *lineChart) drawBase(ys scale.Linear, left, right float64) {
+	if !c.indexed() {
+		return
+	}
+	y := round2(ys.Map(100))
+	c.f.scene.Add(Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: c.f.th.baseline, StrokeWidth: 1,
+		Attrs: []Attr{{"label", "index base"}, {"value", "100"}}})
+}
+
+func (c *lineChart) indexed() bool { return c.opt.Index || c.opt.IndexAt != nil }
+
 // layoutSingle draws every series on one panel and returns the y under it.
 func (c *lineChart) layoutSingle() (float64, error) {
 	f, sp := c.f, c.f.spec
@@ -540,46 +717,39 @@ func (c *lineChart) layoutSingle() (float64, error) {
 		top += t.height(lh) + sp.gap
 	}
 	plotTop := top + math.Ceil((asc+desc)/2)
-	ylo, yhi, xlo, xhi := c.ylo, c.yhi, c.xlo, c.xhi
 	colors := c.seriesColors()
 	var labels []endLabel
 	labelW := 0.0
-	if len(c.series) > 1 {
+	switch {
+	case len(c.series) > palette.MaxCategorical:
+		f.scene.Note("unnamed", false, fmt.Sprintf("%d series are more than colours or names can tell apart: drew them alike in one colour, without names; highlight a few, aggregate them, or draw small multiples of fewer", len(c.series)))
+	case len(c.series) > 1:
 		names := make([]string, len(c.series))
 		for i, s := range c.series {
 			names[i] = s.Name
 		}
 		labels, labelW = f.directLabels(names, colors, inner*0.3)
 	}
-	left := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
-	left, w, _, ax := f.fitPanelsX(left, labelW, 1, 0, xlo, xhi, c.opt.Time)
+	left := math.Ceil(sp.pad + f.yLabelWidth(c.ylo, c.yhi, c.yk) + sp.gap)
+	left, w, _, ax := f.fitPanelsX(left, labelW, 1, 0, c.xlo, c.xhi, c.xk)
 	if w < sp.text*8 {
 		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size or shorter series names")
 	}
-	g := lineGeom{left: left, w: int(w), ax: ax, reduce: shouldReduce(c.series, int(w))}
-	polys := make([]scale.Polyline, len(c.series))
-	before, after := 0, 0
-	for i, s := range c.series {
-		polys[i] = g.polyline(s.X, s.Y)
-		before, after = before+len(s.X), after+len(polys[i].X)
+	g := lineGeom{left: left, w: int(w), ax: ax}
+	polys, bridged, err := c.reduceAll(g)
+	if err != nil {
+		return 0, err
 	}
-	if g.reduce && after < before {
-		f.scene.Note("reduced", false, reduceNote(before, after))
-	}
-	h, ay := f.bank(&c.bank, polys, ax.d1-ax.d0, w, ylo, yhi, c.unit, nil)
+	room := 0.0
 	if fb := f.fixedPlotBottom(); fb > 0 {
-		room := fb - plotTop - (f.xLabelTop(0) + lh)
+		room = fb - plotTop - (f.xLabelTop(0) + lh)
 		if c.opt.XName != "" {
 			room -= lh
 		}
-		if room < sp.text*3 {
-			return 0, fmt.Errorf("the figure is too short for a line chart: give a taller --size")
-		}
-		if h > room {
-			h = room
-			ay = f.fitY(ylo, yhi, h, c.unit, nil)
-			c.bank.limit(w, h)
-		}
+	}
+	h, ay, err := f.plotHeight(&c.bank, polys, c.opt.Time, ax.d1-ax.d0, w, c.ylo, c.yhi, c.yk, room, false)
+	if err != nil {
+		return 0, err
 	}
 	f.scene.Note("aspect", false, c.bank.note(w, h))
 	bottom := plotTop + h
@@ -593,17 +763,21 @@ func (c *lineChart) layoutSingle() (float64, error) {
 		axisBottom += lh
 	}
 	f.scene.Add(Mark{Kind: GroupEnd})
+	c.drawBase(ys, left, left+w)
 
 	width := strokeWidth(sp)
+	drawn := make([]drawnLine, len(c.series))
 	for i, s := range c.series {
-		lines := g.screen(polys[i], ys)
-		f.scene.Add(seriesPath(s.Name, lines, colors[i], width))
+		g.reduce = shouldReduce(c.series[i:i+1], g.w)
+		drawn[i] = g.screen(polys[i], ys)
+		f.addSeries("plumb-mark", s.Name, polys[i], drawn[i], colors[i], width, c.opt.Time)
 		if labels != nil {
-			last := lines[len(lines)-1]
-			p := last[len(last)-1]
-			labels[i].ex, labels[i].ey = p.X, p.Y
+			if p, ok := drawn[i].last(); ok {
+				labels[i].ex, labels[i].ey = p.X, p.Y
+			}
 		}
 	}
+	c.noteMissing(bridged, drawn)
 	if labels != nil && !f.placeLabels(labels, left+w, plotTop, bottom) {
 		f.scene.Note("legend", false, "the series names do not fit beside the line ends: named them in a legend below the chart")
 		axisBottom = f.legend(labels, left, axisBottom)
@@ -611,8 +785,22 @@ func (c *lineChart) layoutSingle() (float64, error) {
 	return axisBottom, nil
 }
 
+// MaxPanels is the most series a line chart splits into small multiples:
+// six rows of five panels still fit a screen or a page with every panel
+// wide enough for its x labels and tall enough to read. Past it the chart
+// is declined: a grid of more panels is a wall no reader compares across,
+// and an honest figure highlights a few series, aggregates them, or
+// filters them first.
+const MaxPanels = 30
+
+// minPanelChars is the narrowest panel of small multiples, in characters
+// of text: room for two or three x tick labels.
+const minPanelChars = 7
+
 // layoutMultiples draws one panel per series in a grid, all with the same
-// scales; each panel shows its own series strongly and the others faintly.
+// scales; each panel shows its own series strongly over one faint band:
+// the range of all the series, computed once for every panel, so that the
+// figure grows linearly with the number of series.
 func (c *lineChart) layoutMultiples() (float64, error) {
 	f, sp := c.f, c.f.spec
 	lh := lineHeight(sp.text)
@@ -625,18 +813,19 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 		top += t.height(lh) + sp.gap
 	}
 	n := len(c.series)
-	ylo, yhi, xlo, xhi := c.ylo, c.yhi, c.xlo, c.xhi
-	left0 := math.Ceil(sp.pad + f.yLabelWidth(ylo, yhi, c.unit, nil) + sp.gap)
+	left0 := math.Ceil(sp.pad + f.yLabelWidth(c.ylo, c.yhi, c.yk) + sp.gap)
 	// The gutter between panels is two characters, or wider when the
-	// outer x labels of neighbouring panels need it; a panel narrower than
-	// ten characters reads poorly, so fewer columns are tried first.
+	// outer x labels of neighbouring panels need it. The grid is about
+	// square in panels, so the columns grow with the count; a panel
+	// narrower than minPanelChars characters reads poorly, so fewer
+	// columns are tried then.
 	hgap0 := math.Ceil(sp.text * 2)
 	cols := min(n, int(math.Ceil(math.Sqrt(float64(n)))))
 	var left, w, hgap float64
 	var ax xAxis
 	for ; ; cols-- {
-		left, w, hgap, ax = f.fitPanelsX(left0, 0, cols, hgap0, xlo, xhi, c.opt.Time)
-		if cols == 1 || w >= sp.text*10 {
+		left, w, hgap, ax = f.fitPanelsX(left0, 0, cols, hgap0, c.xlo, c.xhi, c.xk)
+		if cols == 1 || w >= sp.text*minPanelChars {
 			break
 		}
 	}
@@ -645,43 +834,39 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 		return 0, fmt.Errorf("%d panels do not fit at this width: give a wider --size, or --together for one panel", n)
 	}
 	g := lineGeom{left: 0, w: int(w), ax: ax}
-	polys := make([]scale.Polyline, n)
-	before, after := 0, 0
-	for i, s := range c.series {
-		g.reduce = shouldReduce(c.series[i:i+1], int(w))
-		polys[i] = g.polyline(s.X, s.Y)
-		before, after = before+len(s.X), after+len(polys[i].X)
+	polys, bridged, err := c.reduceAll(g)
+	if err != nil {
+		return 0, err
 	}
-	if after < before {
-		f.scene.Note("reduced", false, reduceNote(before, after))
-	}
-	h, ay := f.bank(&c.bank, polys, ax.d1-ax.d0, w, ylo, yhi, c.unit, nil)
 	titleH := lh
 	plotOff := titleH + math.Ceil((asc+desc)/2)
+	room := 0.0
 	if fb := f.fixedPlotBottom(); fb > 0 {
 		// Rows of panels, the last one or two with x labels, within the canvas.
 		over := float64(rows)*(plotOff+sp.gap*2) + 2*(f.xLabelTop(0)+lh)
 		if c.opt.XName != "" {
 			over += lh
 		}
-		room := (fb - top - over) / float64(rows)
-		if room < sp.text*3 {
+		room = math.Floor((fb - top - over) / float64(rows))
+		if room < minPlotHeight(sp, true) {
 			return 0, fmt.Errorf("%d %s not fit in a %g px high figure: give a taller --size, or --together for one panel", rows, plural(rows, "row of panels does", "rows of panels do"), f.spec.height)
 		}
-		if h > room {
-			h = room
-			ay = f.fitY(ylo, yhi, h, c.unit, nil)
-			c.bank.limit(w, h)
-		}
+	}
+	h, ay, err := f.plotHeight(&c.bank, polys, c.opt.Time, ax.d1-ax.d0, w, c.ylo, c.yhi, c.yk, room, true)
+	if err != nil {
+		return 0, err
 	}
 	f.scene.Note("aspect", false, c.bank.note(w, h)+", each panel")
 	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: plotOff + h, R1: plotOff}
 	lastRow := n - (rows-1)*cols
-	y := top
-	var lines [][][]Point
+	drawn := make([]drawnLine, n)
 	for i := range c.series {
-		lines = append(lines, g.screen(polys[i], ys))
+		g.reduce = shouldReduce(c.series[i:i+1], g.w)
+		drawn[i] = g.screen(polys[i], ys)
 	}
+	c.noteMissing(bridged, drawn)
+	band := bandPieces(envelope(c.series, ax, g.w), ys)
+	y := top
 	for r := 0; r < rows; r++ {
 		rowH := plotOff + h
 		labelled := r == rows-1 || r == rows-2 && lastRow < cols
@@ -708,12 +893,11 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 			showX := r == rows-1 || (r+1)*cols+col >= n
 			f.drawXAxis(ax, 0, int(w), plotOff+h, showX)
 			f.scene.Add(Mark{Kind: GroupEnd})
-			for j, s := range c.series {
-				if j != i {
-					f.scene.Add(Mark{Kind: Path, Class: "plumb-context", Lines: lines[j], Stroke: f.th.context, StrokeWidth: round2(strokeWidth(sp) / 2), Attrs: []Attr{{"series", s.Name}}})
-				}
+			if len(band) > 0 {
+				f.scene.Add(Mark{Kind: Path, Class: "plumb-context", Lines: band, Closed: true, Fill: f.th.context, Attrs: []Attr{{"series", "range of all series"}}})
 			}
-			f.scene.Add(seriesPath(c.series[i].Name, lines[i], f.th.neutral, strokeWidth(sp)))
+			c.drawBase(ys, 0, w)
+			f.addSeries("plumb-mark", c.series[i].Name, polys[i], drawn[i], f.th.neutral, strokeWidth(sp), c.opt.Time)
 			f.scene.Add(Mark{Kind: GroupEnd})
 		}
 		y += rowH + sp.gap*2
@@ -737,19 +921,16 @@ func (c *lineChart) describe(multiples bool) string {
 	if c.opt.Index || c.opt.IndexAt != nil {
 		what += " as an index (" + strings.TrimPrefix(c.yTitle, "index, ") + ")"
 	}
+	over := overText(c.opt.XName, c.opt.Time)
 	kind := "Line chart"
 	if multiples {
 		kind = "Small multiples of line charts, one panel per series,"
 	}
-	over := c.opt.XName
-	if over == "" {
-		over = "x"
-	}
-	fmt.Fprintf(&b, "%s of %s over %s, %d %s, from %s to %s.", kind, what, over, len(c.series),
+	fmt.Fprintf(&b, "%s of %s %s, %d %s, from %s to %s.", kind, what, over, len(c.series),
 		plural(len(c.series), "series", "series"), c.xText(c.xlo), c.xText(c.xhi))
 	vf := scale.ValueFormat(shownValues(c.series), c.unitText())
 	for _, s := range c.series {
-		b.WriteString(" " + describeSeries(s, vf, c.opt.Time))
+		b.WriteString(" " + describeSeries(s, vf, c.xk))
 	}
 	return b.String()
 }
@@ -801,7 +982,7 @@ func extremes(y []float64) (first, last, lo, hi int) {
 
 // describeSeries says one series' first and last values, its change, and
 // its extremes.
-func describeSeries(s Series, vf scale.Format, isTime bool) string {
+func describeSeries(s Series, vf scale.Format, k xKind) string {
 	first, last, lo, hi := extremes(s.Y)
 	if first < 0 {
 		return fmt.Sprintf("%s: no values.", s.Name)
@@ -818,8 +999,21 @@ func describeSeries(s Series, vf scale.Format, isTime bool) string {
 		change += fmt.Sprintf(" (%+.0f%%)", 100*d/math.Abs(s.Y[first]))
 	}
 	return fmt.Sprintf("%s: %s at %s, %s at %s, %s; highest %s at %s, lowest %s at %s.", s.Name,
-		vf.Format(s.Y[first]), xValueText(s.X[first], isTime), vf.Format(s.Y[last]), xValueText(s.X[last], isTime), change,
-		vf.Format(s.Y[hi]), xValueText(s.X[hi], isTime), vf.Format(s.Y[lo]), xValueText(s.X[lo], isTime))
+		vf.Format(s.Y[first]), xValueText(s.X[first], k), vf.Format(s.Y[last]), xValueText(s.X[last], k), change,
+		vf.Format(s.Y[hi]), xValueText(s.X[hi], k), vf.Format(s.Y[lo]), xValueText(s.X[lo], k))
+}
+
+// overText says what the x axis is for a description: the x column's
+// name, "over time" for instants, or "in x order" when nothing names it;
+// never a bare "over x".
+func overText(name string, isTime bool) string {
+	switch {
+	case name != "":
+		return "over " + name
+	case isTime:
+		return "over time"
+	}
+	return "in x order"
 }
 
 // accessibleTitle names an untitled chart by what it plots.

@@ -116,3 +116,69 @@ func (g *m4Group) flush(dst []int) []int {
 }
 
 func m4Drawable(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// M4Columns is M4 for a line with missing values drawn w pixels wide over
+// [x0, x1]: it reduces per pixel column first, so that missing values no
+// longer defeat the reduction. A column that holds at least one value keeps
+// the first, last, lowest and highest of its values, exactly as M4 does,
+// and the missing values inside it do not break the line: at this width
+// they share a pixel column with drawn values and a break there could not
+// be seen. The line breaks only where missing values leave at least one
+// whole pixel column without a value between two columns that have one;
+// M4Columns then appends the index of the first missing point there, so
+// that a renderer walking the kept points sees the break. Missing values
+// before the first or after the last value are gaps too. Points must be
+// sorted by x. bridged counts the missing values the line was drawn
+// through (inside or between neighbouring drawn columns), for a note.
+func M4Columns(dst []int, xs, ys []float64, x0, x1 float64, w int) (kept []int, bridged int) {
+	n := min(len(xs), len(ys))
+	if w < 1 || n == 0 {
+		return dst, 0
+	}
+	var g m4Group
+	open := false
+	gapAt, gapCount := -1, 0 // first missing point since the open group's last value, and how many
+	for i := 0; i < n; i++ {
+		x, y := xs[i], ys[i]
+		if !m4Drawable(x) || !m4Drawable(y) {
+			if gapAt < 0 {
+				gapAt = i
+			}
+			gapCount++
+			continue
+		}
+		c := PixelColumn(x, x0, x1, w)
+		if open && c == g.col {
+			bridged += gapCount
+			gapAt, gapCount = -1, 0
+			g.last = i
+			if y < ys[g.min] {
+				g.min = i
+			}
+			if y > ys[g.max] {
+				g.max = i
+			}
+			continue
+		}
+		if open {
+			dst = g.flush(dst)
+			if gapCount > 0 && c-g.col >= 2 {
+				dst = append(dst, gapAt)
+			} else {
+				bridged += gapCount
+			}
+		} else if gapAt >= 0 {
+			dst = append(dst, gapAt) // missing values before the first value
+		}
+		gapAt, gapCount = -1, 0
+		g = m4Group{col: c, first: i, last: i, min: i, max: i}
+		open = true
+	}
+	if open {
+		dst = g.flush(dst)
+	}
+	if gapAt >= 0 {
+		dst = append(dst, gapAt)
+	}
+	return dst, bridged
+}
