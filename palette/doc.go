@@ -21,11 +21,13 @@
 //     Deficiency", IEEE TVCG 15(6), applied to linear RGB and clipped to the
 //     gamut.
 //
-// The palettes (Categorical, Sequential, Diverging and the single colours
-// Neutral, Accent, Context, Text and Muted) are tables written by the
+// The palettes (Categorical, Sequential, Diverging and the theme colours
+// Neutral, Accent, Context, Grid, Text and Muted) are tables written by the
 // generator in internal/gen (run `go generate`), which searches for colours
 // by the measures above; the tests pin every property the generator
-// optimised for, so that a regenerated table that loses one fails.
+// optimised for, so that a regenerated table that loses one fails. The
+// rules behind the theme colours, and the numbers they give, are in
+// THEME.md next to this file.
 package palette
 
 //go:generate go run ./internal/gen -o tables.go

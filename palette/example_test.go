@@ -46,8 +46,8 @@ func ExampleCategorical() {
 	fmt.Println(p.Hex())
 	fmt.Printf("worst case %.1f\n", p.WorstCase())
 	// Output:
-	// [#4494c8 #cf6f19 #376a50]
-	// worst case 19.5
+	// [#5a95ef #cd7304 #744f71]
+	// worst case 24.5
 }
 
 func ExampleGamutMap() {

@@ -33,13 +33,17 @@ var ErrSize = fmt.Errorf("palette size out of range")
 // itself a good palette, so a group keeps its colour when groups are added.
 // Every colour is at least 3:1 on white (WCAG 2.x non-text contrast) with
 // OKLCH chroma between 0.07 and MaxCategoricalChroma. The colours were
-// chosen by search, in order of priority: the worst case, over normal,
+// found by simulated annealing (internal/gen): the worst case, over normal,
 // protan, deutan and tritan vision (Machado et al. 2009), of the smallest
-// pairwise CIEDE2000 distance is at least 12 for all 8; no two colours
-// share a hue family (OKLCH hues 25° or more apart, or lightness far
-// apart); the hues are spread evenly around the hue circle, the first ones
-// most. The first two colours, the most used, are a blue and a clear
-// (not dark) warm hue, the pair that colour-blind readers tell apart best.
+// pairwise CIEDE2000 distance of all eight is as large as the search could
+// make it (15.27; at least 14 is required), while no two colours share a
+// hue family (OKLCH hues 25° or more apart, or OKLab lightness 0.15 apart),
+// the hues cover all but at most two 45° sectors of the hue circle, and
+// the prefixes of 2, 3 and 4 colours keep at least the worst cases of the
+// palette this one replaced. The order then makes each prefix as strong as
+// the set allows, n = 2 first. The first two colours, the most used, are a
+// blue and a clear (not dark) warm hue across the hue circle (an orange),
+// the pair that colour-blind readers tell apart best.
 func Categorical(n int) (Palette, error) {
 	if n < 1 || n > MaxCategorical {
 		return nil, fmt.Errorf("categorical: n = %d: %w (want 1..%d)", n, ErrSize, MaxCategorical)
@@ -47,24 +51,40 @@ func Categorical(n int) (Palette, error) {
 	return slices.Clone(Palette(categoricalTable[:n])), nil
 }
 
-// Neutral is the default colour of a single series: a calm grey-blue,
-// 5.5:1 on white, so that a chart without a grouping carries no false
-// meaning in its colour.
+// Neutral is the default colour of a single series: the middle grey
+// (CIELAB L* 50, 4.5:1 on white) faintly tinted (C*ab 6) in the hue of
+// plumb's own grey family, so that a chart without a grouping carries no
+// false meaning in its colour. It stays at least MinPairDistance from every
+// categorical colour under all four visions, because series beyond the
+// palette are drawn in it; its hue was chosen together with Accent (see
+// THEME.md).
 func Neutral() SRGB { return neutralColor }
 
-// Accent is the highlight colour: a warm colour at least 3:1 on white,
-// chosen to be as far as possible from Neutral under all four visions.
+// Accent is the highlight colour: at least 3:1 on white, at least
+// MinPairDistance from every categorical colour under all four visions (a
+// highlight is never taken for a group), and of such colours the one
+// farthest from Neutral in the worst case over the four visions.
 func Accent() SRGB { return accentColor }
 
-// Context is a light grey for faint context marks (other series drawn
-// behind the one in focus, grid lines); it is not meant to carry data.
+// Context is the colour of faint context marks (other series drawn behind
+// the one in focus, leader lines): a light tint of the grey family at
+// 1.73:1 on white (the square root of the 3:1 of data marks), visible but
+// never mistaken for data.
 func Context() SRGB { return contextColor }
 
-// Text is the colour for titles and labels, well above 7:1 on white.
+// Grid is the colour of grid lines: a tint of the grey family at 1.32:1 on
+// white (the fourth root of 3:1), below the 1.5:1 at which a grid starts to
+// compete with the marks.
+func Grid() SRGB { return gridColor }
+
+// Text is the colour for titles, labels and values: the grey family at
+// half the CIELAB lightness of Muted, 11:1 on white (WCAG 2.x SC 1.4.6
+// asks 7:1).
 func Text() SRGB { return textColor }
 
-// Muted is the colour for secondary text (notes, sources, tick labels),
-// at least 4.5:1 on white (WCAG 2.x SC 1.4.3).
+// Muted is the colour for secondary text (notes, sources, tick labels): the
+// lightest tint of the grey family that keeps 4.5:1 on white (WCAG 2.x SC
+// 1.4.3).
 func Muted() SRGB { return mutedColor }
 
 // SequentialHues lists the hue names Sequential accepts, in a fixed order;

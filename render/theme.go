@@ -3,8 +3,9 @@ package render
 import "plumb/palette"
 
 // theme holds the colours a chart uses. Charts take every colour from here,
-// and the data colours come from package palette, where they are chosen by
-// measurement and pinned by tests.
+// and every colour but the inside-label white comes from package palette,
+// where it is derived by a documented rule (palette/THEME.md), reproduced by
+// `go generate ./palette` and pinned by tests.
 type theme struct {
 	neutral  string // the one colour of ordinary marks
 	accent   string // highlighted marks
@@ -21,11 +22,12 @@ func defaultTheme() theme {
 		neutral: palette.Neutral().Hex(),
 		accent:  palette.Accent().Hex(),
 		context: palette.Context().Hex(),
-		// Grid lines carry no data: faint enough to recede behind the
-		// marks (1.2:1 on white), the zero line dark enough to read as
-		// the reference it is (11:1). Common practice.
-		grid:     "#e4e6e8",
-		baseline: "#3a3a3a",
+		// Grid lines carry no data: a tint of the neutral's family below
+		// 1.5:1 on white, so they recede behind the marks.
+		grid: palette.Grid().Hex(),
+		// The zero line is the reference every bar is read from: drawn in
+		// the text colour, as strong as the labels that name it.
+		baseline: palette.Text().Hex(),
 		text:     palette.Text().Hex(),
 		muted:    palette.Muted().Hex(),
 		inside:   "#ffffff",
