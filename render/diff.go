@@ -113,10 +113,11 @@ func (c *diffChart) noteMissing(bridged int, drawn []drawnLine) {
 }
 
 func (c *diffChart) unitSuffix() string {
-	if c.opt.Unit == "" {
+	unit := strings.TrimSpace(c.opt.Unit)
+	if unit == "" {
 		return ""
 	}
-	return " (" + c.opt.Unit + ")"
+	return " (" + unit + ")"
 }
 
 // layout places the optional context panel and the difference panel, one

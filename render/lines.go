@@ -412,7 +412,7 @@ func interpolateAt(s Series, x float64) float64 {
 
 // axisTitle sets the y axis title and which unit goes on the ticks.
 func (c *lineChart) axisTitle() {
-	name, unit := c.opt.YName, c.opt.Unit
+	name, unit := c.opt.YName, strings.TrimSpace(c.opt.Unit)
 	if c.opt.Index || c.opt.IndexAt != nil {
 		at := "first value = 100"
 		if c.opt.IndexAt != nil {

@@ -48,7 +48,7 @@ var gallery = []figure{
 		"--title", "Ten years of daily passengers", "--subtitle", "All routes; 3,653 days drawn with M4 reduction to the pixel columns"}},
 	{"lines-multiples", "loads.csv", []string{"lines", "--x", "hour", "--y", "load_pct", "--series", "weekday", "--unit", "%",
 		"--y-name", "seats taken", "--x-name", "hour of departure", "--title", "Vessel load by hour, one panel per weekday",
-		"--subtitle", "Share of seats taken; the other days in grey behind each panel"}},
+		"--subtitle", "Share of seats taken; the range of all days in grey behind each panel"}},
 	{"diff-fuel", "fuel.csv", []string{"diff", "--x", "month", "--a", "vessel_a", "--b", "vessel_b", "--context", "--unit", "t",
 		"--title", "Vessel A burns more fuel than vessel B every month", "--subtitle", "Monthly fuel use in tonnes (above) and the difference A − B (below)"}},
 	{"palette-categorical", "", []string{"palette", "categorical", "--n", "8"}},
