@@ -243,9 +243,9 @@ func (b *banking) note(w, h float64) string {
 		return fmt.Sprintf("%s, height/width %.2f; the plot fills the figure's fixed size instead (plot %.0f × %.0f px), so %s", how, b.banked, w, h, angle())
 	case b.fill:
 		return fmt.Sprintf("%s; the plot fills the figure's fixed size (plot %.0f × %.0f px)", how, w, h)
-	case b.raised:
+	case b.raised && off:
 		return fmt.Sprintf("%s, height/width %.2f; kept at the medium's minimum plot height of %.0f px (plot %.0f × %.0f px), so %s", how, b.banked, b.minH, w, h, angle())
-	case b.clamped:
+	case b.clamped && off:
 		return fmt.Sprintf("%s, height/width %.2f; kept within %.2f–%.2f (plot %.0f × %.0f px), so %s", how, b.banked, MinAspect, MaxAspect, w, h, angle())
 	}
 	return fmt.Sprintf("%s: plot %.0f × %.0f px", how, w, h)
