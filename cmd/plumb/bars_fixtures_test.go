@@ -12,7 +12,7 @@ import (
 // above the rest, rates that differ in the decimal, counts with repeated
 // labels, month names under columns, changes on both sides of zero. Each is
 // drawn through the CLI, checked like the gallery and pinned byte for byte
-// in testdata/bars/*.svg (rewrite with -update and look at the pictures).
+// in golden/fixture-bars-*.svg (rewrite with -update and look at the pictures).
 var barsFixtures = []struct {
 	name string
 	args []string
@@ -41,7 +41,7 @@ func TestBarsFixtures(t *testing.T) {
 			if fx.args[0] == "bars" {
 				checkBars(t, root)
 			}
-			golden := filepath.Join(dir, fx.name+".svg")
+			golden := filepath.Join("..", "..", "golden", "fixture-bars-"+fx.name+".svg")
 			if *update {
 				if err := os.WriteFile(golden, out.Bytes(), 0o644); err != nil {
 					t.Fatal(err)
