@@ -1,10 +1,12 @@
 package render
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"plumb/palette"
@@ -160,14 +162,14 @@ func (c *rowChart) limitRows() error {
 	case OtherAuto, OtherNone, OtherMean:
 	case OtherSum:
 		if c.dots {
-			return fmt.Errorf("--other sum: a dot marks a position, not an amount, so dots are never summed; use --other mean or none, or draw bars")
+			return &OptionError{Option: "Other", Value: string(OtherSum), Err: fmt.Errorf("a dot marks a position, not an amount, so dots are never summed; use %s mean or none, or draw bars", c.opt.name("Other"))}
 		}
 	default:
-		return fmt.Errorf("unknown --other %q: use sum, mean or none", string(c.opt.Other))
+		return &OptionError{Option: "Other", Value: strconv.Quote(string(c.opt.Other)), Err: errors.New("use sum, mean or none")}
 	}
 	top := c.opt.Top
 	if top > 0 && top < 2 {
-		return fmt.Errorf("--top %d: show at least 2 categories", top)
+		return &OptionError{Option: "Top", Value: strconv.Itoa(top), Err: errors.New("show at least 2 categories")}
 	}
 	fold := c.opt.Other == OtherSum || c.opt.Other == OtherMean || (c.opt.Other == OtherAuto && c.additive() && !c.dots)
 	canvas := false // the fixed canvas, not the caller, limited the rows
@@ -193,7 +195,7 @@ func (c *rowChart) limitRows() error {
 		var note string
 		c.rows, note = combineTail(c.rows, top, c.opt.Other == OtherSum || (c.opt.Other == OtherAuto && !c.opt.Averages))
 		if note != "" {
-			f.scene.Note("other", true, note)
+			f.scene.Note("other", true, note+"; show more with "+c.opt.name("Top"))
 		}
 		return nil
 	}
@@ -207,9 +209,9 @@ func (c *rowChart) limitRows() error {
 	if c.dots {
 		why = "a dot is a position, so a sum would mean nothing"
 	}
-	more := "show them all with --top -1, or combine them with --other sum or mean"
+	more := fmt.Sprintf("show them all with %s -1, or combine them with %s sum or mean", c.opt.name("Top"), c.opt.name("Other"))
 	if canvas {
-		more = "only these fit the canvas; give a taller --size, or combine the rest with --other mean"
+		more = fmt.Sprintf("only these fit the canvas; give a taller canvas (%s), or combine the rest with %s mean", c.opt.name("Height"), c.opt.name("Other"))
 	}
 	f.scene.Note("left-out", true, fmt.Sprintf("drew the %d largest of %d categories and left out %d (not combined into Other; %s): %s; %s",
 		len(c.rows), n, len(gone), why, listNames(gone, 6), more))
@@ -248,13 +250,13 @@ func (c *rowChart) toShares() error {
 		if r.value < 0 {
 			return &refusal{
 				reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
-				instead: "shares need values of one sign; drop --percent to draw the values themselves",
+				instead: "shares need values of one sign; drop " + c.opt.name("Percent") + " to draw the values themselves",
 			}
 		}
 		total += r.value
 	}
 	if total == 0 {
-		return &refusal{reason: "cannot show shares: the values add up to zero", instead: "drop --percent"}
+		return &refusal{reason: "cannot show shares: the values add up to zero", instead: "drop " + c.opt.name("Percent")}
 	}
 	for i := range c.rows {
 		c.rows[i].value = 100 * c.rows[i].value / total
@@ -278,14 +280,14 @@ func (c *rowChart) domain() error {
 			return &refusal{reason: why, instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}
 		}
 		if c.opt.To != nil && *c.opt.To < hi {
-			return &refusal{reason: fmt.Sprintf("--to %s would cut bars that reach %s", c.numText(*c.opt.To), c.numText(hi)), instead: "give --to at or beyond the largest value, or leave it out"}
+			return c.domainError("To", *c.opt.To, "would cut bars that reach "+c.numText(hi), "at or beyond the largest value")
 		}
 	} else {
 		if c.opt.From != nil && *c.opt.From > lo {
-			return &refusal{reason: fmt.Sprintf("--from %s would hide values down to %s", c.numText(*c.opt.From), c.numText(lo)), instead: "give --from at or below the smallest value, or leave it out"}
+			return c.domainError("From", *c.opt.From, "would hide values down to "+c.numText(lo), "at or below the smallest value")
 		}
 		if c.opt.To != nil && *c.opt.To < hi {
-			return &refusal{reason: fmt.Sprintf("--to %s would hide values up to %s", c.numText(*c.opt.To), c.numText(hi)), instead: "give --to at or above the largest value, or leave it out"}
+			return c.domainError("To", *c.opt.To, "would hide values up to "+c.numText(hi), "at or above the largest value")
 		}
 	}
 	if c.opt.From != nil {
@@ -297,6 +299,13 @@ func (c *rowChart) domain() error {
 	c.d0, c.d1 = lo, hi
 	c.lo0, c.hi0 = lo, hi
 	return nil
+}
+
+// domainError refuses a From or To that would hide data: an OptionError
+// naming the option, wrapping the refusal.
+func (c *rowChart) domainError(option string, v float64, why, where string) error {
+	return &OptionError{Option: option, Value: strconv.FormatFloat(v, 'g', -1, 64),
+		Err: &refusal{reason: why, instead: fmt.Sprintf("give %s %s, or leave it out", c.opt.name(option), where)}}
 }
 
 func (c *rowChart) cutWhat(lo float64) string {
@@ -423,7 +432,7 @@ func (c *rowChart) layoutRows() (float64, error) {
 			maxLines = 1
 		}
 		if band < lh+sp.gap/2 {
-			return 0, fmt.Errorf("%d %s not fit in a %g px high figure with %g px text: show fewer with --top, or give a taller --size", n, plural(n, "row does", "rows do"), f.spec.height, sp.text)
+			return 0, fmt.Errorf("%d %s not fit in a %g px high figure with %g px text: show fewer with %s, or give a taller canvas (%s)", n, plural(n, "row does", "rows do"), f.spec.height, sp.text, c.opt.name("Top"), c.opt.name("Height"))
 		}
 	}
 	wrapped, labelCol, linesUsed := c.wrapLabels((f.width-2*sp.pad)*0.38, maxLines)
@@ -775,7 +784,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 		rb = lh
 	}
 	if plotH-rt-rb < 4*sp.text {
-		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller --size or drop --vertical")
+		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller canvas (%s) or drop %s", c.opt.name("Height"), c.opt.name("Vertical"))
 	}
 	c.fitTicks(plotH-rt-rb, false)
 	labels := c.tickLabels(c.ticks.Values)
@@ -787,7 +796,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	plotR := f.width - sp.pad
 	band := (plotR - plotL) / float64(n)
 	if band < sp.text*1.6 {
-		return 0, fmt.Errorf("%d columns are too narrow at this width: drop --vertical (horizontal bars fit long lists) or show fewer with --top", n)
+		return 0, fmt.Errorf("%d columns are too narrow at this width: drop %s (horizontal bars fit long lists) or show fewer with %s", n, c.opt.name("Vertical"), c.opt.name("Top"))
 	}
 	barW := math.Min(band*0.7, sp.text*4)
 	y0, y1 := top+plotH-rb, top+rt
@@ -816,7 +825,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	}
 	showValues := slices.IndexFunc(vw, tooWide) < 0
 	if !showValues {
-		f.scene.Note("value-labels-dropped", false, "left out the value labels: even with three significant digits they are wider than the columns; the axis carries the values (or drop --vertical)")
+		f.scene.Note("value-labels-dropped", false, "left out the value labels: even with three significant digits they are wider than the columns; the axis carries the values (or drop "+c.opt.name("Vertical")+")")
 	}
 	c.abbreviateCalendar(band - sp.gap)
 	// Words wrap at their boundaries, up to three lines, before any is shortened.

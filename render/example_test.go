@@ -62,7 +62,7 @@ func ExampleBars_other() {
 	}
 	fmt.Println(notes[0].Code)
 	// Output:
-	// combined the 3 smallest of 6 categories into "Other (3)" (summed): "d", "e", "f"; show more with --top
+	// combined the 3 smallest of 6 categories into "Other (3)" (summed): "d", "e", "f"; show more with Top
 	// left-out
 }
 

@@ -51,7 +51,7 @@ func (s *shared) register(fs *flag.FlagSet) {
 
 // common turns the shared flags into the render options they mean.
 func (s *shared) common() (render.Common, error) {
-	c := render.Common{Title: s.title, Subtitle: s.subtitle, Source: s.source, Note: s.note, Medium: render.Medium(s.medium), EmbedFont: s.embedFont}
+	c := render.Common{Title: s.title, Subtitle: s.subtitle, Source: s.source, Note: s.note, Medium: render.Medium(s.medium), EmbedFont: s.embedFont, Names: flagNames}
 	switch c.Medium {
 	case render.Print, render.Screen, render.Slide:
 	default:
@@ -355,3 +355,7 @@ func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []render.Not
 	}
 	return exitOK
 }
+
+// flagNames maps render's option names to the flags that set them.
+var flagNames = render.OptionNames{"Top": "--top", "Other": "--other", "Percent": "--percent", "Vertical": "--vertical",
+	"From": "--from", "To": "--to", "Width": "--size", "Height": "--size", "Together": "--together", "Index": "--index", "IndexAt": "--index-at", "Aspect": "--aspect"}
