@@ -276,8 +276,8 @@ func (c *rowChart) domain() error {
 	if !c.dots {
 		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
 		if c.opt.From != nil && *c.opt.From > lo {
-			why := fmt.Sprintf("a bar chart starting at %s would cut %s", c.numText(*c.opt.From), c.cutWhat(lo))
-			return &refusal{reason: why, instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}
+			return &OptionError{Option: "From", Value: strconv.FormatFloat(*c.opt.From, 'g', -1, 64), Err: &refusal{reason: "would cut " + c.cutWhat(lo),
+				instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}}
 		}
 		if c.opt.To != nil && *c.opt.To < hi {
 			return c.domainError("To", *c.opt.To, "would cut bars that reach "+c.numText(hi), "at or beyond the largest value")

@@ -38,7 +38,7 @@ func ExampleBars_refused() {
 	fmt.Println(err)
 	// Output:
 	// true
-	// a bar chart starting at 80 would cut every bar short of its true length; a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere
+	// From 80: would cut every bar short of its true length; a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere
 }
 
 // Many categories: the smallest are combined into one Other bar, placed

@@ -37,6 +37,11 @@ func TestOptionErrorsNameTheOption(t *testing.T) {
 			_, err := BarsScene(labels, values, BarsOptions{RowOptions: RowOptions{To: &to}})
 			return err
 		}, "To", "2", true},
+		{"from cuts bars", func() error {
+			from := 2.5
+			_, err := BarsScene(labels, values, BarsOptions{RowOptions: RowOptions{From: &from}})
+			return err
+		}, "From", "2.5", true},
 		{"to hides dots", func() error {
 			_, err := DotsScene(labels, values, DotsOptions{RowOptions: RowOptions{To: &to}})
 			return err
