@@ -1,7 +1,9 @@
 package main
 
 import (
+	"os"
 	"reflect"
+	"regexp"
 	"strings"
 	"testing"
 
@@ -123,5 +125,42 @@ func TestHelpComesFromTheTable(t *testing.T) {
 				assert.Contains(t, stderr, "-"+d.name+" "+strings.Join(d.values, "|"))
 			}
 		}
+	}
+}
+
+// The README's table of charts lists exactly the flags each chart's entry
+// in the command table has, besides the shared ones.
+func TestReadmeListsEachChartsFlags(t *testing.T) {
+	b, err := os.ReadFile("../../README.md")
+	require.NoError(t, err)
+	rows := map[string]string{}
+	for _, line := range strings.Split(string(b), "\n") {
+		if name, ok := strings.CutPrefix(line, "| `"); ok {
+			name, rest, _ := strings.Cut(name, "`")
+			rows[name] = rest
+		}
+	}
+	flagName := regexp.MustCompile(`--([a-z][a-z-]*)`)
+	shared := map[string]bool{}
+	sh := newShared(&render.Common{})
+	for _, d := range sh.flags() {
+		shared[d.name] = true
+	}
+	for _, cmd := range commandTable() {
+		if cmd.chart == nil {
+			continue
+		}
+		row, ok := rows[cmd.name]
+		require.True(t, ok, "README lists %s", cmd.name)
+		var inReadme, inTable []string
+		for _, m := range flagName.FindAllStringSubmatch(row, -1) {
+			inReadme = append(inReadme, m[1])
+		}
+		for _, d := range cmd.chart().flags() {
+			if !shared[d.name] {
+				inTable = append(inTable, d.name)
+			}
+		}
+		assert.ElementsMatch(t, inTable, inReadme, cmd.name)
 	}
 }
