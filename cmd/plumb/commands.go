@@ -18,8 +18,9 @@ import (
 // chart's -h and the names that messages give the options all come from it.
 // Adding a chart is one builder in render and one entry here.
 type command struct {
-	name    string
-	summary string // its line in plumb's usage text
+	name     string
+	summary  string // its line in plumb's usage text
+	synopsis string // what follows "plumb NAME" in its -h
 
 	// chart makes one run of a chart command: its options, with every flag
 	// bound to the field it sets. Nil for commands that are not charts.
@@ -32,12 +33,12 @@ type command struct {
 // commandTable is plumb's command table, in the order the usage text lists it.
 func commandTable() []command {
 	return []command{
-		{name: "bars", summary: "compare amounts (horizontal, sorted, from zero)", chart: func() chart { return newRows(false) }},
-		{name: "dots", summary: "compare values far from zero", chart: func() chart { return newRows(true) }},
-		{name: "lines", summary: "change over time or order, banked to 45°", chart: func() chart { return newLines() }},
-		{name: "diff", summary: "the difference of two series, a − b against zero", chart: func() chart { return newDiff() }},
-		{name: "palette", summary: "show, make or check colour palettes", run: runPalette},
-		{name: "demo", summary: "render the built-in gallery (-o DIR)", run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
+		{name: "bars", summary: "compare amounts (horizontal, sorted, from zero)", synopsis: dataSynopsis, chart: func() chart { return newRows(false) }},
+		{name: "dots", summary: "compare values far from zero", synopsis: dataSynopsis, chart: func() chart { return newRows(true) }},
+		{name: "lines", summary: "change over time or order, banked to 45°", synopsis: dataSynopsis, chart: func() chart { return newLines() }},
+		{name: "diff", summary: "the difference of two series, a − b against zero", synopsis: dataSynopsis, chart: func() chart { return newDiff() }},
+		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
+		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)
 		}},
 	}
@@ -101,7 +102,7 @@ func runChart(cmd command, args []string, stdin io.Reader, stdout, stderr io.Wri
 	defs := ch.flags()
 	sh := ch.base()
 	names := optionNames(defs)
-	fs := newChartFlagSet(cmd.name, defs, stderr)
+	fs := newChartFlagSet(cmd.name, cmd.synopsis, defs, stderr)
 	pos, err := parse(fs, args)
 	if err != nil {
 		return exitCode(err, stderr)

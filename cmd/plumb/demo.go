@@ -56,9 +56,12 @@ var gallery = []figure{
 	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
 }
 
+// demoSynopsis is the usage line of plumb demo.
+const demoSynopsis = "[-o DIR]"
+
 // runDemo renders the gallery from the data built into the binary.
 func runDemo(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("demo", "[-o DIR]", stderr)
+	fs := newFlagSet("demo", demoSynopsis, stderr)
 	out := fs.String("o", "plumb-demo", "write the gallery into `DIR`")
 	pos, err := parse(fs, args)
 	if err != nil {

@@ -226,13 +226,13 @@ func newFlagSet(name, synopsis string, stderr io.Writer) *flag.FlagSet {
 
 // newChartFlagSet makes a chart's flag set from its command-table flags,
 // each bound to the field it sets; -h prints them as printHelp does.
-func newChartFlagSet(name string, defs []flagDef, stderr io.Writer) *flag.FlagSet {
+func newChartFlagSet(name, synopsis string, defs []flagDef, stderr io.Writer) *flag.FlagSet {
 	fs := flag.NewFlagSet("plumb "+name, flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	for _, d := range defs {
 		fs.Var(d.value, d.name, d.usage)
 	}
-	fs.Usage = func() { printHelp(stderr, name, dataSynopsis, defs) }
+	fs.Usage = func() { printHelp(stderr, name, synopsis, defs) }
 	return fs
 }
 
