@@ -102,7 +102,7 @@ func runChart(cmd command, args []string, stdin io.Reader, stdout, stderr io.Wri
 	defs := ch.flags()
 	sh := ch.base()
 	names := optionNames(defs)
-	fs := newChartFlagSet(cmd.name, cmd.synopsis, defs, stderr)
+	fs := newTableFlagSet(cmd.name, cmd.synopsis, defs, stderr)
 	pos, err := parse(fs, args)
 	if err != nil {
 		return exitCode(err, stderr)

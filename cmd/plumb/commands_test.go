@@ -56,7 +56,7 @@ func TestCommandTableFlagsSetRealOptions(t *testing.T) {
 // Flags write straight into the options the builder receives.
 func TestFlagsBindToOptions(t *testing.T) {
 	r := newRows(false)
-	fs := newChartFlagSet("bars", dataSynopsis, r.flags(), nil)
+	fs := newTableFlagSet("bars", dataSynopsis, r.flags(), nil)
 	_, err := parse(fs, []string{"--top", "5", "--other", "mean", "--highlight", "a,b", "--highlight", "c", "--from", "-2",
 		"--vertical", "--order", "label", "--title", "T", "--for", "print", "--size", "800x0", "--unit", "kg", "data.csv"})
 	require.NoError(t, err)
@@ -68,7 +68,7 @@ func TestFlagsBindToOptions(t *testing.T) {
 	}, r.bars)
 
 	l := newLines()
-	fs = newChartFlagSet("lines", dataSynopsis, l.flags(), nil)
+	fs = newTableFlagSet("lines", dataSynopsis, l.flags(), nil)
 	_, err = parse(fs, []string{"--index=2020", "--together", "--aspect", "3:1", "--y-name", "riders", "data.csv"})
 	require.NoError(t, err)
 	assert.True(t, l.opt.Index)

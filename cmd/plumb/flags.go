@@ -188,19 +188,8 @@ func flagError(fs *flag.FlagSet, err error) error {
 	if rest, ok := strings.CutPrefix(msg, "invalid value "); ok {
 		if i := strings.LastIndex(rest, " for flag -"); i > 0 {
 			value := rest[:i]
+			// Every flag's Value says what would work (commands.go).
 			name, cause, _ := strings.Cut(rest[i+len(" for flag -"):], ": ")
-			if f := fs.Lookup(name); f != nil {
-				if g, ok := f.Value.(flag.Getter); ok {
-					switch g.Get().(type) {
-					case int, int64, uint, uint64:
-						cause = "give a whole number"
-					case float64:
-						cause = "give a number"
-					case bool:
-						cause = "give true or false"
-					}
-				}
-			}
 			return usagef("--%s %s: %s", name, value, cause)
 		}
 	}
@@ -210,23 +199,10 @@ func flagError(fs *flag.FlagSet, err error) error {
 // dataSynopsis is the usage line of a chart that reads a data file.
 const dataSynopsis = "DATA [flags]\n\nDATA is a .csv, .tsv or .json file, or - for standard input."
 
-// newFlagSet makes a flag set that never exits and never prints on its own;
-// -h prints "usage: plumb NAME SYNOPSIS" and the flags on stderr.
-func newFlagSet(name, synopsis string, stderr io.Writer) *flag.FlagSet {
-	fs := flag.NewFlagSet("plumb "+name, flag.ContinueOnError)
-	fs.SetOutput(io.Discard)
-	fs.Usage = func() {
-		fmt.Fprintf(stderr, "usage: plumb %s %s\n\nflags:\n", name, synopsis)
-		fs.SetOutput(stderr)
-		fs.PrintDefaults()
-		fs.SetOutput(io.Discard)
-	}
-	return fs
-}
-
-// newChartFlagSet makes a chart's flag set from its command-table flags,
-// each bound to the field it sets; -h prints them as printHelp does.
-func newChartFlagSet(name, synopsis string, defs []flagDef, stderr io.Writer) *flag.FlagSet {
+// newTableFlagSet makes a flag set from a command's flag table, each flag
+// bound to the field it sets. It never exits and never prints on its own;
+// -h prints the synopsis and the table (printHelp) on stderr.
+func newTableFlagSet(name, synopsis string, defs []flagDef, stderr io.Writer) *flag.FlagSet {
 	fs := flag.NewFlagSet("plumb "+name, flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	for _, d := range defs {
