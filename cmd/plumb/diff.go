@@ -43,20 +43,20 @@ func (r *diffRun) load(path string, stdin io.Reader, _ func(string) bool) ([]ren
 
 // read reads the x, a and b columns, in x order, and finishes the options
 // from the data: the columns chosen, the x kind, the unit, the x name.
-func (f *diffRun) read(path string, stdin io.Reader) (x, a, b []float64, notes []render.Note, err error) {
-	opt := &f.opt
+func (r *diffRun) read(path string, stdin io.Reader) (x, a, b []float64, notes []render.Note, err error) {
+	opt := &r.opt
 	var want []string
-	if f.x != "" && opt.AName != "" && opt.BName != "" {
-		want = []string{f.x, opt.AName, opt.BName}
+	if r.x != "" && opt.AName != "" && opt.BName != "" {
+		want = []string{r.x, opt.AName, opt.BName}
 	}
-	t, notes, err := readData(path, f.readOptions(), want, stdin)
+	t, notes, err := readData(path, r.readOptions(), want, stdin)
 	if err != nil {
 		return nil, nil, nil, nil, err
 	}
 	if t.Len() == 0 {
 		return nil, nil, nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
-	xcol := f.x
+	xcol := r.x
 	if xcol == "" && len(t.Header) > 0 {
 		xcol = t.Header[0]
 	}
@@ -80,7 +80,7 @@ func (f *diffRun) read(path string, stdin io.Reader) (x, a, b []float64, notes [
 		}
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("drawing %q minus %q over %q (choose with --x, --a and --b)", acol, bcol, xcol)})
 	}
-	xc, xn, err := readX(t, xcol, f.xFormat)
+	xc, xn, err := readX(t, xcol, r.xFormat)
 	if err != nil {
 		return nil, nil, nil, nil, err
 	}

@@ -211,23 +211,23 @@ func (r *linesRun) load(path string, stdin io.Reader, _ func(string) bool) ([]re
 
 // read reads the table and builds the series, wide or long, and finishes
 // the options from the data: the x kind, the unit, the axis names.
-func (f *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render.Note, error) {
-	opt := &f.opt
+func (r *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render.Note, error) {
+	opt := &r.opt
 	var want []string
-	if f.x != "" && len(f.y) > 0 {
-		want = append([]string{f.x}, f.y...)
-		if f.series != "" {
-			want = append(want, f.series)
+	if r.x != "" && len(r.y) > 0 {
+		want = append([]string{r.x}, r.y...)
+		if r.series != "" {
+			want = append(want, r.series)
 		}
 	}
-	t, notes, err := readData(path, f.readOptions(), want, stdin)
+	t, notes, err := readData(path, r.readOptions(), want, stdin)
 	if err != nil {
 		return nil, nil, err
 	}
 	if len(t.Header) < 2 {
 		return nil, nil, tooFewColumns(t, "a line chart needs an x column and a value column")
 	}
-	xcol := f.x
+	xcol := r.x
 	if xcol == "" {
 		xcol = t.Header[0]
 	}
@@ -237,14 +237,14 @@ func (f *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 	if t.Len() == 0 {
 		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
-	ycols := []string(f.y)
+	ycols := []string(r.y)
 	if len(ycols) == 0 {
 		n := 0
-		if f.series != "" {
+		if r.series != "" {
 			n = 1
 		}
 		var first error
-		ycols, first = t.NumericColumns(xcol, []string{f.series}, n, true)
+		ycols, first = t.NumericColumns(xcol, []string{r.series}, n, true)
 		if len(ycols) == 0 && first != nil {
 			// The first candidate's bad cell is the likeliest mistake.
 			return nil, nil, first
@@ -254,10 +254,10 @@ func (f *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 		}
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for x and %s for values (choose with --x and --y)", xcol, quoteList(ycols))})
 	}
-	if f.series != "" && len(ycols) != 1 {
+	if r.series != "" && len(ycols) != 1 {
 		return nil, nil, usagef("--series takes one value column (--y COL); give several --y columns only in wide format")
 	}
-	x, xn, err := readX(t, xcol, f.xFormat)
+	x, xn, err := readX(t, xcol, r.xFormat)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -270,19 +270,19 @@ func (f *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 	if opt.XName == "" && !x.time {
 		opt.XName = xcol
 	}
-	if opt.YName == "" && (len(ycols) == 1 || f.series != "") {
+	if opt.YName == "" && (len(ycols) == 1 || r.series != "") {
 		opt.YName = ycols[0]
 	}
-	if f.indexAt != "" {
+	if r.indexAt != "" {
 		opt.Index = true
-		v, err := parseAt(f.indexAt, x.time)
+		v, err := parseAt(r.indexAt, x.time)
 		if err != nil {
 			return nil, nil, err
 		}
 		opt.IndexAt = &v
 	}
 	var series []render.Series
-	if f.series == "" {
+	if r.series == "" {
 		rows, err := orderRows(t, xcol, x.values, allRows(t.Len()))
 		if err != nil {
 			return nil, nil, err
@@ -306,9 +306,9 @@ func (f *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 		}
 		return series, notes, nil
 	}
-	names := t.Strings(f.series)
+	names := t.Strings(r.series)
 	if names == nil {
-		return nil, nil, t.missingColumn(f.series, 1)
+		return nil, nil, t.missingColumn(r.series, 1)
 	}
 	notes = append(notes, shortenNote(table.ShortenLabels(names, 0), "series name")...)
 	ys, _, err := t.Numbers(ycols[0])
