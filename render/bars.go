@@ -209,7 +209,11 @@ func (c *rowChart) limitRows() error {
 	if c.dots {
 		why = "a dot is a position, so a sum would mean nothing"
 	}
-	more := fmt.Sprintf("show them all with %s -1, or combine them with %s sum or mean", c.opt.name("Top"), c.opt.name("Other"))
+	combine := "sum or mean"
+	if c.dots {
+		combine = "mean" // a dot is never summed
+	}
+	more := fmt.Sprintf("show them all with %s -1, or combine them with %s %s", c.opt.name("Top"), c.opt.name("Other"), combine)
 	if canvas {
 		more = fmt.Sprintf("only these fit the canvas; give a taller canvas (%s), or combine the rest with %s mean", c.opt.name("Height"), c.opt.name("Other"))
 	}
