@@ -95,3 +95,51 @@ func TestOptionNamesInNotes(t *testing.T) {
 	assert.Equal(t, "Other", oe.Option, "the error's Option is always the field name")
 	assert.Contains(t, err.Error(), "use --other mean or none")
 }
+
+// A Go caller's notes and errors never name a command-line flag.
+func TestLibraryMessagesNameNoFlags(t *testing.T) {
+	var labels []string
+	var values []float64
+	for i := range 30 {
+		labels = append(labels, strings.Repeat("x", i%7+1)+string(rune('a'+i%26))+string(rune('A'+i/26)))
+		values = append(values, float64((i*37)%101+1))
+	}
+	xs := []float64{1, 2, 3, 4, 5, 6}
+	var many []Series
+	for i := range 6 {
+		many = append(many, Series{Name: string(rune('a' + i)), X: xs, Y: []float64{1, 2, float64(i), 4, 5, 6}})
+	}
+	big := []Series{{Name: "big", X: xs, Y: []float64{100, 200, 300, 400, 500, 600}}, {Name: "small", X: xs, Y: []float64{1, 2, 1, 2, 1, 2}}}
+	small := Common{Width: 120, Height: 150}
+	var msgs []string
+	keep := func(s *Scene, err error) {
+		if err != nil {
+			msgs = append(msgs, err.Error())
+			return
+		}
+		for _, n := range s.Notes {
+			msgs = append(msgs, n.Text)
+		}
+	}
+	keep(BarsScene(labels, values, BarsOptions{RowOptions: RowOptions{Top: 5}}))
+	keep(BarsScene(labels, values, BarsOptions{Additive: true}))
+	keep(BarsScene(labels, values, BarsOptions{Common: Common{Medium: Slide}}))
+	keep(BarsScene(labels, values, BarsOptions{Common: small}))
+	keep(BarsScene(labels, values, BarsOptions{Common: small, Vertical: true}))
+	keep(BarsScene(labels, values, BarsOptions{Common: Common{Width: 300}, Vertical: true}))
+	keep(BarsScene(labels, append([]float64{-1}, values[1:]...), BarsOptions{Percent: true}))
+	keep(DotsScene(labels, values, DotsOptions{}))
+	keep(DotsScene(labels, values, DotsOptions{Common: Common{Medium: Slide, Height: 400}}))
+	keep(LinesScene(many, LinesOptions{}))
+	keep(LinesScene(many, LinesOptions{Together: true}))
+	keep(LinesScene(many, LinesOptions{Common: small}))
+	keep(LinesScene(big, LinesOptions{}))
+	keep(LinesScene(big, LinesOptions{Index: true, Aspect: "3:1"}))
+	keep(LinesScene(big, LinesOptions{Common: Common{Width: 40}}))
+	keep(DiffScene(xs, big[0].Y, big[1].Y, DiffOptions{Common: small}))
+	keep(DiffScene(xs, big[0].Y, big[1].Y, DiffOptions{Common: Common{Width: 30}}))
+	require.Greater(t, len(msgs), 15)
+	for _, m := range msgs {
+		assert.NotContains(t, m, "--", m)
+	}
+}
