@@ -1,9 +1,11 @@
 package render
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"time"
 
 	"plumb/scale"
@@ -436,12 +438,12 @@ func parseAspect(s string) (method string, forced float64, err error) {
 	}
 	var w, h float64
 	if _, e := fmt.Sscanf(s, "%g:%g", &w, &h); e != nil || !(w > 0) || !(h > 0) || math.IsInf(w, 0) || math.IsInf(h, 0) {
-		return "", 0, fmt.Errorf("aspect %q: use orientation, or width:height such as 16:9", s)
+		return "", 0, &OptionError{Option: "Aspect", Value: strconv.Quote(s), Err: errors.New("use orientation, or width:height such as 16:9")}
 	}
 	if a := h / w; a > 0 && !math.IsInf(a, 0) {
 		return "W:H", a, nil
 	}
-	return "", 0, fmt.Errorf("aspect %q: the ratio is out of range; use width:height such as 16:9", s)
+	return "", 0, &OptionError{Option: "Aspect", Value: strconv.Quote(s), Err: errors.New("the ratio is out of range; use width:height such as 16:9")}
 }
 
 // lineGeom maps data to the screen of one panel, with M4 reduction when a

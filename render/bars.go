@@ -1,15 +1,32 @@
 package render
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"plumb/palette"
 	"plumb/scale"
 )
+
+// RowOptions are the options bars and dots share: one row (or column) per
+// category on one value axis. A bar chart that should be a dot plot (values
+// far from zero) passes its RowOptions on unchanged.
+type RowOptions struct {
+	Order     Order     // ByValue (default), ByLabel or ByData
+	Top       int       // most rows to draw; 0 chooses (DefaultTop or DefaultDotsTop), negative draws all
+	Other     OtherMode // what becomes of the categories beyond Top; OtherAuto by default (dots: OtherSum is refused, a dot is a position, not an amount)
+	Highlight []string  // labels drawn in the accent colour
+	From, To  *float64  // widen the value domain, never hide a value; bars always include zero
+	Unit      string    // "%", "kg": said once, in the axis title and on the first value label; a currency sign leads every value ("$5")
+	ValueName string    // what the values measure, for the axis and the description
+	LabelName string    // what the categories are, for the description
+	Averages  bool      // values are means, medians or extremes: never Additive, and an automatic Other averages them
+}
 
 // BarsOptions configures a bar chart. The zero value draws the honest
 // default: horizontal bars from zero, largest first, one neutral colour,
@@ -17,33 +34,19 @@ import (
 // whole (then at most DefaultTop bars, the rest summed into Other).
 type BarsOptions struct {
 	Common
-	Order     Order     // ByValue (default), ByLabel or ByData
-	Top       int       // most bars to draw; 0 chooses (see Other), negative draws all
-	Other     OtherMode // what becomes of the categories beyond Top; OtherAuto by default
-	Additive  bool      // the values are parts of a whole (counts, sums), so Other may sum them
-	Vertical  bool      // stand the bars up; labels then sit under narrow columns
-	Percent   bool      // show each value as a share of the total
-	Highlight []string  // labels drawn in the accent colour
-	From, To  *float64  // widen the value domain; bars always include zero
-	Unit      string    // "%", "kg": said once, in the axis title and on the first value label; a currency sign leads every value ("$5")
-	ValueName string    // what the values measure, for the axis and the description
-	LabelName string    // what the categories are, for the description
-	Averages  bool      // values are means, medians or extremes: never Additive, and an automatic Other averages them
+	RowOptions
+	Additive bool // the values are parts of a whole (counts, sums), so Other may sum them
+	Vertical bool // stand the bars up; labels then sit under narrow columns
+	Percent  bool // show each value as a share of the total
 }
 
 // DotsOptions configures a dot plot: like bars, but values are positions, so
-// the domain fits the data and need not include zero.
+// the domain fits the data and need not include zero, at most
+// DefaultDotsTop dots are drawn unless Top says otherwise, and an Other dot
+// (OtherMean) is always a mean.
 type DotsOptions struct {
 	Common
-	Order     Order
-	Top       int       // most dots to draw; 0 means DefaultDotsTop, negative draws all
-	Other     OtherMode // OtherAuto and OtherNone leave the rest out with a note; OtherMean folds them; OtherSum is refused: a dot is a position, not an amount
-	Highlight []string
-	From, To  *float64 // set the domain; they may not hide any value
-	Unit      string
-	ValueName string
-	LabelName string
-	Averages  bool // as for bars: an Other dot (OtherMean) is always a mean
+	RowOptions
 }
 
 // Bars draws a bar chart of values by label and writes it as SVG to w. It
@@ -58,11 +61,7 @@ func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]No
 
 // BarsScene builds the bar chart's scene without writing it.
 func BarsScene(labels []string, values []float64, opt BarsOptions) (*Scene, error) {
-	c := rowChart{
-		Common: opt.Common, dots: false, vertical: opt.Vertical, order: opt.Order, top: opt.Top,
-		other: opt.Other, additive: (opt.Additive && !opt.Averages) || opt.Percent, percent: opt.Percent, highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
-		valueName: opt.ValueName, labelName: opt.LabelName, averages: opt.Averages,
-	}
+	c := rowChart{opt: opt}
 	return c.build(labels, values)
 }
 
@@ -77,29 +76,15 @@ func Dots(w io.Writer, labels []string, values []float64, opt DotsOptions) ([]No
 
 // DotsScene builds the dot plot's scene without writing it.
 func DotsScene(labels []string, values []float64, opt DotsOptions) (*Scene, error) {
-	c := rowChart{
-		Common: opt.Common, dots: true, order: opt.Order, top: opt.Top, other: opt.Other,
-		highlight: opt.Highlight, from: opt.From, to: opt.To, unit: opt.Unit,
-		valueName: opt.ValueName, labelName: opt.LabelName, averages: opt.Averages,
-	}
+	c := rowChart{opt: BarsOptions{Common: opt.Common, RowOptions: opt.RowOptions}, dots: true}
 	return c.build(labels, values)
 }
 
 // rowChart is what bars and dots share: one row (or column) per category,
 // one value axis.
 type rowChart struct {
-	Common
-	dots, vertical       bool
-	order                Order
-	top                  int
-	other                OtherMode
-	additive             bool
-	percent              bool
-	highlight            []string
-	from, to             *float64
-	unit                 string
-	valueName, labelName string
-	averages             bool
+	opt  BarsOptions // a dot plot's options, with the bar-only fields zero
+	dots bool
 
 	f        *frame
 	rows     []row
@@ -109,34 +94,39 @@ type rowChart struct {
 	vfmt     scale.Format
 }
 
+// additive reports whether values are parts of a whole, which Other may sum.
+func (c *rowChart) additive() bool {
+	return (c.opt.Additive && !c.opt.Averages) || c.opt.Percent
+}
+
 func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	// " pts" from a shell quote would print "( pts)" in the axis title.
-	c.unit = strings.TrimSpace(c.unit)
+	c.opt.Unit = strings.TrimSpace(c.opt.Unit)
 	if err := checkRows(labels, values); err != nil {
 		return nil, err
 	}
-	f, err := newFrame(c.Common)
+	f, err := newFrame(c.opt.Common)
 	if err != nil {
 		return nil, err
 	}
 	c.f = f
-	if err := findLabels(c.highlight, labels); err != nil {
+	if err := findLabels(c.opt.Highlight, labels); err != nil {
 		return nil, err
 	}
-	hl := make(map[string]bool, len(c.highlight))
-	for _, h := range c.highlight {
+	hl := make(map[string]bool, len(c.opt.Highlight))
+	for _, h := range c.opt.Highlight {
 		hl[h] = true
 	}
 	c.rows = make([]row, len(labels))
 	for i := range labels {
 		c.rows[i] = row{label: labels[i], value: values[i], raw: values[i], highlight: hl[labels[i]]}
 	}
-	if c.percent {
+	if c.opt.Percent {
 		if err := c.toShares(); err != nil {
 			return nil, err
 		}
 	}
-	if err := arrange(c.rows, c.order); err != nil {
+	if err := arrange(c.rows, c.opt.Order); err != nil {
 		return nil, err
 	}
 	if err := c.limitRows(); err != nil {
@@ -145,9 +135,9 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	if err := c.domain(); err != nil {
 		return nil, err
 	}
-	c.vfmt = scale.ValueFormat(c.values(), c.unit)
+	c.vfmt = scale.ValueFormat(c.values(), c.opt.Unit)
 	var bottom float64
-	if c.vertical {
+	if c.opt.Vertical {
 		bottom, err = c.layoutColumns()
 	} else {
 		bottom, err = c.layoutRows()
@@ -168,20 +158,20 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 // and under the chart, never silently.
 func (c *rowChart) limitRows() error {
 	f := c.f
-	switch c.other {
+	switch c.opt.Other {
 	case OtherAuto, OtherNone, OtherMean:
 	case OtherSum:
 		if c.dots {
-			return fmt.Errorf("--other sum: a dot marks a position, not an amount, so dots are never summed; use --other mean or none, or draw bars")
+			return &OptionError{Option: "Other", Value: string(OtherSum), Err: fmt.Errorf("a dot marks a position, not an amount, so dots are never summed; use %s mean or none, or draw bars", c.opt.name("Other"))}
 		}
 	default:
-		return fmt.Errorf("unknown --other %q: use sum, mean or none", string(c.other))
+		return &OptionError{Option: "Other", Value: strconv.Quote(string(c.opt.Other)), Err: errors.New("use sum, mean or none")}
 	}
-	top := c.top
+	top := c.opt.Top
 	if top > 0 && top < 2 {
-		return fmt.Errorf("--top %d: show at least 2 categories", top)
+		return &OptionError{Option: "Top", Value: strconv.Itoa(top), Err: errors.New("show at least 2 categories")}
 	}
-	fold := c.other == OtherSum || c.other == OtherMean || (c.other == OtherAuto && c.additive && !c.dots)
+	fold := c.opt.Other == OtherSum || c.opt.Other == OtherMean || (c.opt.Other == OtherAuto && c.additive() && !c.dots)
 	canvas := false // the fixed canvas, not the caller, limited the rows
 	if top == 0 {
 		switch {
@@ -203,9 +193,9 @@ func (c *rowChart) limitRows() error {
 	}
 	if fold {
 		var note string
-		c.rows, note = combineTail(c.rows, top, c.other == OtherSum || (c.other == OtherAuto && !c.averages))
+		c.rows, note = combineTail(c.rows, top, c.opt.Other == OtherSum || (c.opt.Other == OtherAuto && !c.opt.Averages))
 		if note != "" {
-			f.scene.Note("other", true, note)
+			f.scene.Note("other", true, note+"; show more with "+c.opt.name("Top"))
 		}
 		return nil
 	}
@@ -219,9 +209,13 @@ func (c *rowChart) limitRows() error {
 	if c.dots {
 		why = "a dot is a position, so a sum would mean nothing"
 	}
-	more := "show them all with --top -1, or combine them with --other sum or mean"
+	combine := "sum or mean"
+	if c.dots {
+		combine = "mean" // a dot is never summed
+	}
+	more := fmt.Sprintf("show them all with %s -1, or combine them with %s %s", c.opt.name("Top"), c.opt.name("Other"), combine)
 	if canvas {
-		more = "only these fit the canvas; give a taller --size, or combine the rest with --other mean"
+		more = fmt.Sprintf("only these fit the canvas; give a taller canvas (%s), or combine the rest with %s mean", c.opt.name("Height"), c.opt.name("Other"))
 	}
 	f.scene.Note("left-out", true, fmt.Sprintf("drew the %d largest of %d categories and left out %d (not combined into Other; %s): %s; %s",
 		len(c.rows), n, len(gone), why, listNames(gone, 6), more))
@@ -235,7 +229,7 @@ func (c *rowChart) limitRows() error {
 // their columns get too narrow.
 func (c *rowChart) rowsThatFit() int {
 	f := c.f
-	if c.vertical || f.fixedPlotBottom() == 0 {
+	if c.opt.Vertical || f.fixedPlotBottom() == 0 {
 		return -1
 	}
 	sp := f.spec
@@ -260,18 +254,18 @@ func (c *rowChart) toShares() error {
 		if r.value < 0 {
 			return &refusal{
 				reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
-				instead: "shares need values of one sign; drop --percent to draw the values themselves",
+				instead: "shares need values of one sign; drop " + c.opt.name("Percent") + " to draw the values themselves",
 			}
 		}
 		total += r.value
 	}
 	if total == 0 {
-		return &refusal{reason: "cannot show shares: the values add up to zero", instead: "drop --percent"}
+		return &refusal{reason: "cannot show shares: the values add up to zero", instead: "drop " + c.opt.name("Percent")}
 	}
 	for i := range c.rows {
 		c.rows[i].value = 100 * c.rows[i].value / total
 	}
-	c.unit = "%"
+	c.opt.Unit = "%"
 	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", scale.ValueFormat([]float64{total}, "").Format(total)))
 	return nil
 }
@@ -285,30 +279,37 @@ func (c *rowChart) domain() error {
 	}
 	if !c.dots {
 		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
-		if c.from != nil && *c.from > lo {
-			why := fmt.Sprintf("a bar chart starting at %s would cut %s", c.numText(*c.from), c.cutWhat(lo))
-			return &refusal{reason: why, instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}
+		if c.opt.From != nil && *c.opt.From > lo {
+			return &OptionError{Option: "From", Value: strconv.FormatFloat(*c.opt.From, 'g', -1, 64), Err: &refusal{reason: "would cut " + c.cutWhat(lo),
+				instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}}
 		}
-		if c.to != nil && *c.to < hi {
-			return &refusal{reason: fmt.Sprintf("--to %s would cut bars that reach %s", c.numText(*c.to), c.numText(hi)), instead: "give --to at or beyond the largest value, or leave it out"}
+		if c.opt.To != nil && *c.opt.To < hi {
+			return c.domainError("To", *c.opt.To, "would cut bars that reach "+c.numText(hi), "at or beyond the largest value")
 		}
 	} else {
-		if c.from != nil && *c.from > lo {
-			return &refusal{reason: fmt.Sprintf("--from %s would hide values down to %s", c.numText(*c.from), c.numText(lo)), instead: "give --from at or below the smallest value, or leave it out"}
+		if c.opt.From != nil && *c.opt.From > lo {
+			return c.domainError("From", *c.opt.From, "would hide values down to "+c.numText(lo), "at or below the smallest value")
 		}
-		if c.to != nil && *c.to < hi {
-			return &refusal{reason: fmt.Sprintf("--to %s would hide values up to %s", c.numText(*c.to), c.numText(hi)), instead: "give --to at or above the largest value, or leave it out"}
+		if c.opt.To != nil && *c.opt.To < hi {
+			return c.domainError("To", *c.opt.To, "would hide values up to "+c.numText(hi), "at or above the largest value")
 		}
 	}
-	if c.from != nil {
-		lo = *c.from
+	if c.opt.From != nil {
+		lo = *c.opt.From
 	}
-	if c.to != nil {
-		hi = *c.to
+	if c.opt.To != nil {
+		hi = *c.opt.To
 	}
 	c.d0, c.d1 = lo, hi
 	c.lo0, c.hi0 = lo, hi
 	return nil
+}
+
+// domainError refuses a From or To that would hide data: an OptionError
+// naming the option, wrapping the refusal.
+func (c *rowChart) domainError(option string, v float64, why, where string) error {
+	return &OptionError{Option: option, Value: strconv.FormatFloat(v, 'g', -1, 64),
+		Err: &refusal{reason: why, instead: fmt.Sprintf("give %s %s, or leave it out", c.opt.name(option), where)}}
 }
 
 func (c *rowChart) cutWhat(lo float64) string {
@@ -319,7 +320,7 @@ func (c *rowChart) cutWhat(lo float64) string {
 }
 
 func (c *rowChart) numText(v float64) string {
-	return scale.ValueFormat([]float64{v}, c.unit).Format(v)
+	return scale.ValueFormat([]float64{v}, c.opt.Unit).Format(v)
 }
 
 // fitTicks chooses the ticks for an axis of the given length: about one
@@ -341,10 +342,10 @@ func (c *rowChart) fitTicks(length float64, horizontal bool) {
 	for m := target - 1; horizontal && m >= floor && len(c.ticks.Values) >= 2 && !c.ticksFit(c.ticks, length); m-- {
 		c.ticks = c.ticksFor(m, floor)
 	}
-	if c.from == nil && len(c.ticks.Values) > 0 {
+	if c.opt.From == nil && len(c.ticks.Values) > 0 {
 		c.d0 = math.Min(c.d0, c.ticks.Values[0])
 	}
-	if c.to == nil && len(c.ticks.Values) > 0 {
+	if c.opt.To == nil && len(c.ticks.Values) > 0 {
 		c.d1 = math.Max(c.d1, c.ticks.Values[len(c.ticks.Values)-1])
 	}
 }
@@ -353,8 +354,8 @@ func (c *rowChart) fitTicks(length float64, horizontal bool) {
 // current domain.
 func (c *rowChart) ticksFor(m, floor int) scale.Ticks {
 	lo, hi := c.d0, c.d1
-	o := scale.TickOptions{Min: floor, Zero: true, Integer: !c.percent && scale.IsInteger(c.values())}
-	if c.from != nil || c.to != nil {
+	o := scale.TickOptions{Min: floor, Zero: true, Integer: !c.opt.Percent && scale.IsInteger(c.values())}
+	if c.opt.From != nil || c.opt.To != nil {
 		// An end set by the user is kept and ticks fall inside it; the other
 		// end extends to its outer tick as usual.
 		if !c.dots {
@@ -364,7 +365,7 @@ func (c *rowChart) ticksFor(m, floor int) scale.Ticks {
 		eps := 1e-9 * math.Abs(hi-lo)
 		var in []float64
 		for _, v := range t.Values {
-			if (c.from == nil || v >= lo-eps) && (c.to == nil || v <= hi+eps) {
+			if (c.opt.From == nil || v >= lo-eps) && (c.opt.To == nil || v <= hi+eps) {
 				in = append(in, v)
 			}
 		}
@@ -435,7 +436,7 @@ func (c *rowChart) layoutRows() (float64, error) {
 			maxLines = 1
 		}
 		if band < lh+sp.gap/2 {
-			return 0, fmt.Errorf("%d %s not fit in a %g px high figure with %g px text: show fewer with --top, or give a taller --size", n, plural(n, "row does", "rows do"), f.spec.height, sp.text)
+			return 0, fmt.Errorf("%d %s not fit in a %g px high figure with %g px text: show fewer with %s, or give a taller canvas (%s)", n, plural(n, "row does", "rows do"), f.spec.height, sp.text, c.opt.name("Top"), c.opt.name("Height"))
 		}
 	}
 	wrapped, labelCol, linesUsed := c.wrapLabels((f.width-2*sp.pad)*0.38, maxLines)
@@ -515,7 +516,7 @@ func (c *rowChart) valueTexts() ([]string, []float64) {
 		// The unit is said once, on the first label, where the reader starts
 		// (on columns, whose labels must be narrow, the axis title says it).
 		text[i] = bare.Format(r.value)
-		if i == 0 && (!c.vertical || c.axisTitle() == "") {
+		if i == 0 && (!c.opt.Vertical || c.axisTitle() == "") {
 			text[i] = c.vfmt.Format(r.value)
 		}
 		width[i] = c.f.measure(text[i], c.f.spec.text, false)
@@ -615,7 +616,7 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 // markAttrs are the data attributes of a row's mark.
 func (c *rowChart) markAttrs(r row) []Attr {
 	attrs := []Attr{{"label", r.label}, {"value", dataNumber(r.value)}}
-	if c.percent {
+	if c.opt.Percent {
 		attrs = append(attrs, Attr{"amount", dataNumber(r.raw)})
 	}
 	if r.other > 0 {
@@ -679,16 +680,16 @@ func (c *rowChart) drawRow(g *rowGeom, i int, r row, lines []string, vtext strin
 
 // axisTitle names the value axis: what is measured and its unit.
 func (c *rowChart) axisTitle() string {
-	name := c.valueName
-	if c.percent {
+	name := c.opt.ValueName
+	if c.opt.Percent {
 		if name == "" {
 			return "Share of total (%)"
 		}
 		return "Share of total " + name + " (%)"
 	}
 	// A currency sign is on every tick already (see tickLabels).
-	if c.unit != "" && name != "" && !scale.IsCurrency(c.unit) && !namesUnit(name, c.unit) {
-		return name + " (" + c.unit + ")"
+	if c.opt.Unit != "" && name != "" && !scale.IsCurrency(c.opt.Unit) && !namesUnit(name, c.opt.Unit) {
+		return name + " (" + c.opt.Unit + ")"
 	}
 	return name
 }
@@ -722,14 +723,14 @@ func (c *rowChart) values() []float64 {
 // how an amount is written ("$5"), one character wide, and a bare 5 beside
 // $10 would read as another quantity (common practice).
 func (c *rowChart) tickLabels(ticks []float64) []string {
-	tf := scale.TickFormat(ticks, c.unit)
-	if scale.IsCurrency(c.unit) {
+	tf := scale.TickFormat(ticks, c.opt.Unit)
+	if scale.IsCurrency(c.opt.Unit) {
 		return formatAll(tf, ticks)
 	}
 	bare := tf
 	bare.Unit = ""
 	out := formatAll(bare, ticks)
-	if c.unit != "" && c.axisTitle() == "" && len(ticks) > 0 {
+	if c.opt.Unit != "" && c.axisTitle() == "" && len(ticks) > 0 {
 		out[len(out)-1] = tf.Format(ticks[len(ticks)-1])
 	}
 	return out
@@ -787,7 +788,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 		rb = lh
 	}
 	if plotH-rt-rb < 4*sp.text {
-		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller --size or drop --vertical")
+		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller canvas (%s) or drop %s", c.opt.name("Height"), c.opt.name("Vertical"))
 	}
 	c.fitTicks(plotH-rt-rb, false)
 	labels := c.tickLabels(c.ticks.Values)
@@ -799,7 +800,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	plotR := f.width - sp.pad
 	band := (plotR - plotL) / float64(n)
 	if band < sp.text*1.6 {
-		return 0, fmt.Errorf("%d columns are too narrow at this width: drop --vertical (horizontal bars fit long lists) or show fewer with --top", n)
+		return 0, fmt.Errorf("%d columns are too narrow at this width: drop %s (horizontal bars fit long lists) or show fewer with %s", n, c.opt.name("Vertical"), c.opt.name("Top"))
 	}
 	barW := math.Min(band*0.7, sp.text*4)
 	y0, y1 := top+plotH-rb, top+rt
@@ -823,12 +824,12 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	if slices.IndexFunc(vw, tooWide) >= 0 {
 		// Shorter numbers before no numbers: three significant digits,
 		// each value abbreviated on its own ($3.23M, $119k).
-		c.vfmt = scale.ShortValueFormat(c.values(), c.unit)
+		c.vfmt = scale.ShortValueFormat(c.values(), c.opt.Unit)
 		vtext, vw = c.valueTexts()
 	}
 	showValues := slices.IndexFunc(vw, tooWide) < 0
 	if !showValues {
-		f.scene.Note("value-labels-dropped", false, "left out the value labels: even with three significant digits they are wider than the columns; the axis carries the values (or drop --vertical)")
+		f.scene.Note("value-labels-dropped", false, "left out the value labels: even with three significant digits they are wider than the columns; the axis carries the values (or drop "+c.opt.name("Vertical")+")")
 	}
 	c.abbreviateCalendar(band - sp.gap)
 	// Words wrap at their boundaries, up to three lines, before any is shortened.
@@ -929,23 +930,23 @@ func (c *rowChart) describe() string {
 	switch {
 	case c.dots:
 		kind = "Dot plot"
-	case c.vertical:
+	case c.opt.Vertical:
 		kind = "Vertical bar chart"
 	}
-	what := c.valueName
+	what := c.opt.ValueName
 	if what == "" {
 		what = "values"
 	}
-	if c.percent {
-		what = "share of total " + c.valueName
+	if c.opt.Percent {
+		what = "share of total " + c.opt.ValueName
 	}
-	by := c.labelName
+	by := c.opt.LabelName
 	if by == "" {
 		by = "category"
 	}
 	var b strings.Builder
 	fmt.Fprintf(&b, "%s of %s by %s, %d %s", kind, strings.TrimSpace(what), by, len(c.rows), plural(len(c.rows), "row", "rows"))
-	switch c.order {
+	switch c.opt.Order {
 	case ByValue, "":
 		b.WriteString(", largest first")
 	case ByLabel:
@@ -970,8 +971,8 @@ func (c *rowChart) describe() string {
 	if last := c.rows[len(c.rows)-1]; last.other > 0 {
 		fmt.Fprintf(&b, " %d smaller categories are combined in %s at %s.", last.other, last.label, c.vfmt.Format(last.value))
 	}
-	if len(c.highlight) > 0 {
-		fmt.Fprintf(&b, " Highlighted: %s.", strings.Join(c.highlight, ", "))
+	if len(c.opt.Highlight) > 0 {
+		fmt.Fprintf(&b, " Highlighted: %s.", strings.Join(c.opt.Highlight, ", "))
 	}
 	return b.String()
 }

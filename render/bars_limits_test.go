@@ -68,11 +68,11 @@ func TestOtherModes(t *testing.T) {
 		wantLeftOn bool
 	}{
 		{BarsOptions{}, 20, false, false},
-		{BarsOptions{Top: 5}, 5, false, true},
-		{BarsOptions{Top: 5, Other: OtherMean}, 5, true, false},
+		{BarsOptions{RowOptions: RowOptions{Top: 5}}, 5, false, true},
+		{BarsOptions{RowOptions: RowOptions{Top: 5, Other: OtherMean}}, 5, true, false},
 		{BarsOptions{Additive: true}, DefaultTop, true, false},
-		{BarsOptions{Additive: true, Other: OtherNone}, 20, false, false},
-		{BarsOptions{Top: 5, Highlight: []string{labels[0], labels[1], labels[2], labels[3], labels[4], labels[5]}}, 6, false, true},
+		{BarsOptions{Additive: true, RowOptions: RowOptions{Other: OtherNone}}, 20, false, false},
+		{BarsOptions{RowOptions: RowOptions{Top: 5, Highlight: []string{labels[0], labels[1], labels[2], labels[3], labels[4], labels[5]}}}, 6, false, true},
 	} {
 		s, err := BarsScene(labels, values, tc.opt)
 		require.NoError(t, err)
@@ -85,7 +85,7 @@ func TestOtherModes(t *testing.T) {
 		assert.Equal(t, tc.other, other, "%+v", tc.opt)
 		assert.Equal(t, tc.wantLeftOn, left, "%+v", tc.opt)
 	}
-	_, err := DotsScene(labels, values, DotsOptions{Other: OtherSum})
+	_, err := DotsScene(labels, values, DotsOptions{RowOptions: RowOptions{Other: OtherSum}})
 	assert.Error(t, err, "dots are positions, never summed")
 }
 
@@ -107,7 +107,7 @@ func TestBarsTickFloor(t *testing.T) {
 			}
 		}
 		medium := []Medium{Screen, Print, Slide}[r.IntN(3)]
-		c := rowChart{Common: Common{Medium: medium}}
+		c := rowChart{opt: BarsOptions{Common: Common{Medium: medium}}}
 		s, err := c.build(labels, values)
 		require.NoError(t, err)
 		var ticks []float64
@@ -147,8 +147,8 @@ func TestAxisTitleSaysUnitOnce(t *testing.T) {
 		{"fare", "£", "fare"}, // the currency sign is on every tick
 		{"gain", " pts", "gain (pts)"},
 	} {
-		c := rowChart{valueName: tc.name, unit: tc.unit}
-		c.unit = strings.TrimSpace(c.unit)
+		c := rowChart{opt: BarsOptions{RowOptions: RowOptions{ValueName: tc.name, Unit: tc.unit}}}
+		c.opt.Unit = strings.TrimSpace(c.opt.Unit)
 		assert.Equal(t, tc.want, c.axisTitle())
 	}
 }
@@ -178,7 +178,7 @@ func TestColumnsKeepTheirValues(t *testing.T) {
 	// A small value beside six-digit ones: in full ("$118,750") the labels
 	// are wider than the columns, and a shared k would print it "$1k".
 	values[11] = 950
-	s, err := BarsScene(labels, values, BarsOptions{Vertical: true, Order: ByData, Unit: "$"})
+	s, err := BarsScene(labels, values, BarsOptions{Vertical: true, RowOptions: RowOptions{Order: ByData, Unit: "$"}})
 	require.NoError(t, err)
 	var texts []string
 	for _, m := range s.Marks {

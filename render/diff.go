@@ -148,7 +148,7 @@ func (c *diffChart) layout() (float64, error) {
 	}
 	left, w, _, ax := f.fitPanelsX(math.Ceil(sp.pad+yw+sp.gap), labelW, 1, 0, xlo, xhi, xk)
 	if w < sp.text*8 {
-		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size")
+		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider canvas (%s)", c.opt.name("Width"))
 	}
 	g := lineGeom{left: 0, w: int(w), ax: ax}
 	y := f.plotTop()
@@ -200,7 +200,7 @@ func (c *diffChart) layout() (float64, error) {
 		// Two panels share a fixed canvas: each may then be as short as a
 		// panel of small multiples.
 		if h < minPlotHeight(sp, c.opt.Context) || c.opt.Context && hc < minPlotHeight(sp, true) {
-			return 0, fmt.Errorf("the figure's fixed height leaves too short a plot for a difference chart to be read: give a taller --size, or a shorter title and notes, so that it can fit")
+			return 0, fmt.Errorf("the figure's fixed height leaves too short a plot for a difference chart to be read: give a taller canvas (%s), or a shorter title and notes, so that it can fit", c.opt.name("Height"))
 		}
 		ay = f.fitY(dlo, dhi, h, dk)
 		bk.fill, bk.raised, bk.alpha = true, false, h/w

@@ -18,9 +18,8 @@ func ExampleBars() {
 
 	var svg bytes.Buffer
 	notes, err := render.Bars(&svg, regions, revenue, render.BarsOptions{
-		Common:    render.Common{Title: "Revenue by region", Source: "Quarterly report"},
-		ValueName: "revenue",
-		LabelName: "region",
+		Common:     render.Common{Title: "Revenue by region", Source: "Quarterly report"},
+		RowOptions: render.RowOptions{ValueName: "revenue", LabelName: "region"},
 	})
 	if err != nil {
 		fmt.Println(err)
@@ -34,12 +33,12 @@ func ExampleBars() {
 // alternative in the message.
 func ExampleBars_refused() {
 	from := 80.0
-	_, err := render.Bars(os.Stdout, []string{"a", "b"}, []float64{90, 100}, render.BarsOptions{From: &from})
+	_, err := render.Bars(os.Stdout, []string{"a", "b"}, []float64{90, 100}, render.BarsOptions{RowOptions: render.RowOptions{From: &from}})
 	fmt.Println(errors.Is(err, render.ErrRefused))
 	fmt.Println(err)
 	// Output:
 	// true
-	// a bar chart starting at 80 would cut every bar short of its true length; a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere
+	// From 80: would cut every bar short of its true length; a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere
 }
 
 // Many categories: the smallest are combined into one Other bar, placed
@@ -49,21 +48,21 @@ func ExampleBars_other() {
 	values := []float64{60, 50, 40, 3, 2, 1}
 	var svg bytes.Buffer
 	// Counts are parts of a whole: the smallest may be summed into Other.
-	notes, err := render.Bars(&svg, labels, values, render.BarsOptions{Top: 4, Additive: true})
+	notes, err := render.Bars(&svg, labels, values, render.BarsOptions{RowOptions: render.RowOptions{Top: 4}, Additive: true})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	fmt.Println(notes[0])
 	// Medians are not: the smallest are left out, and the chart says so.
-	notes, err = render.Bars(&svg, labels, values, render.BarsOptions{Top: 4})
+	notes, err = render.Bars(&svg, labels, values, render.BarsOptions{RowOptions: render.RowOptions{Top: 4}})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	fmt.Println(notes[0].Code)
 	// Output:
-	// combined the 3 smallest of 6 categories into "Other (3)" (summed): "d", "e", "f"; show more with --top
+	// combined the 3 smallest of 6 categories into "Other (3)" (summed): "d", "e", "f"; show more with Top
 	// left-out
 }
 
@@ -72,7 +71,7 @@ func ExampleBars_other() {
 func ExampleDots() {
 	routes := []string{"Harbour", "Point", "Sound"}
 	onTime := []float64{91.5, 88, 96.2}
-	s, err := render.DotsScene(routes, onTime, render.DotsOptions{Unit: "%", ValueName: "on time"})
+	s, err := render.DotsScene(routes, onTime, render.DotsOptions{RowOptions: render.RowOptions{Unit: "%", ValueName: "on time"}})
 	if err != nil {
 		fmt.Println(err)
 		return

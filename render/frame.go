@@ -24,6 +24,9 @@ type Common struct {
 	Fonts     layout.Fonts // faces to measure and name; zero value: Go fonts
 	EmbedFont bool         // embed the regular face so viewers draw what was measured
 
+	// Names says how errors and notes name options; nil names the fields.
+	Names OptionNames
+
 	// Notes are decisions the caller made before drawing, such as which
 	// columns it read and how; they open the scene's notes, so that the
 	// figure's metadata records them with the chart's own.

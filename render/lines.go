@@ -117,16 +117,16 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	multiples := len(series) > MaxTogether && !c.opt.Together
 	if multiples && len(series) > MaxPanels {
 		return nil, &refusal{reason: fmt.Sprintf("%d series are too many to compare, on one panel or in a grid of %d small multiples (at most %d panels)", len(series), len(series), MaxPanels),
-			instead: "highlight a few: draw the ones that matter (--y, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
+			instead: "highlight a few: draw the ones that matter (choose the series, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
 	}
 	switch {
 	case multiples:
-		f.scene.Note("multiples", false, fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the range of all series as a faint band behind each (--together keeps one panel)", len(series)))
+		f.scene.Note("multiples", false, fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the range of all series as a faint band behind each (%s keeps one panel)", len(series), c.opt.name("Together")))
 	case len(series) > MaxTogether:
-		f.scene.Note("together", false, fmt.Sprintf("kept %d series on one panel as asked (--together); small multiples would read more easily", len(series)))
+		f.scene.Note("together", false, fmt.Sprintf("kept %d series on one panel as asked (%s); small multiples would read more easily", len(series), c.opt.name("Together")))
 	}
 	if !multiples && !c.opt.Index && c.opt.IndexAt == nil {
-		if n := magnitudeNote(series); n != "" {
+		if n := magnitudeNote(series, c.opt.name("Index")); n != "" {
 			f.scene.Note("magnitude", false, n)
 		}
 	}
@@ -319,7 +319,7 @@ func missingNote(missing, bridged int, drawn []drawnLine) string {
 
 // magnitudeNote suggests an index or panels when one axis must show series
 // more than ten times apart in size, which flattens the smaller ones.
-func magnitudeNote(series []Series) string {
+func magnitudeNote(series []Series, index string) string {
 	if len(series) < 2 {
 		return ""
 	}
@@ -342,7 +342,7 @@ func magnitudeNote(series []Series) string {
 	if lo > 0 && hi/lo <= 10 {
 		return ""
 	}
-	return fmt.Sprintf("%q reaches more than ten times the size of %q, which looks flat on a shared axis: compare changes with --index, or draw each in its own figure (plumb draws no second y axis)", hiName, loName)
+	return fmt.Sprintf("%q reaches more than ten times the size of %q, which looks flat on a shared axis: compare changes with %s, or draw each in its own figure (plumb draws no second y axis)", hiName, loName, index)
 }
 
 // rebase turns every series into an index, 100 at its first value or at x
@@ -364,7 +364,7 @@ func (c *lineChart) rebase(series []Series) ([]Series, error) {
 	if c.opt.IndexAt != nil {
 		at = "x = " + c.xText(*c.opt.IndexAt)
 	}
-	c.f.scene.Note("index", true, fmt.Sprintf("rebased every series to 100 at %s (--index), so that the lines compare change, not size", at))
+	c.f.scene.Note("index", true, fmt.Sprintf("rebased every series to 100 at %s (%s), so that the lines compare change, not size", at, c.opt.name("Index")))
 	return out, nil
 }
 
@@ -387,7 +387,7 @@ func indexBase(s Series, at *float64, isTime bool) (float64, error) {
 	}
 	if base == 0 || math.IsNaN(base) {
 		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q to 100 at a value of %v", s.Name, base),
-			instead: "index at a point where every series is non-zero (--index-at), or compare the values themselves"}
+			instead: "index at a point where every series is non-zero, or compare the values themselves"}
 	}
 	if base < 0 {
 		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q at a negative value: the index would run backwards", s.Name),
@@ -733,7 +733,7 @@ func (c *lineChart) layoutSingle() (float64, error) {
 	left := math.Ceil(sp.pad + f.yLabelWidth(c.ylo, c.yhi, c.yk) + sp.gap)
 	left, w, _, ax := f.fitPanelsX(left, labelW, 1, 0, c.xlo, c.xhi, c.xk)
 	if w < sp.text*8 {
-		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider --size or shorter series names")
+		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider canvas (%s) or shorter series names", c.opt.name("Width"))
 	}
 	g := lineGeom{left: left, w: int(w), ax: ax}
 	polys, bridged, err := c.reduceAll(g)
@@ -831,7 +831,7 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 	}
 	rows := (n + cols - 1) / cols
 	if w < sp.text*6 {
-		return 0, fmt.Errorf("%d panels do not fit at this width: give a wider --size, or --together for one panel", n)
+		return 0, fmt.Errorf("%d panels do not fit at this width: give a wider canvas (%s), or %s for one panel", n, c.opt.name("Width"), c.opt.name("Together"))
 	}
 	g := lineGeom{left: 0, w: int(w), ax: ax}
 	polys, bridged, err := c.reduceAll(g)
@@ -849,7 +849,7 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 		}
 		room = math.Floor((fb - top - over) / float64(rows))
 		if room < minPlotHeight(sp, true) {
-			return 0, fmt.Errorf("%d %s not fit in a %g px high figure: give a taller --size, or --together for one panel", rows, plural(rows, "row of panels does", "rows of panels do"), f.spec.height)
+			return 0, fmt.Errorf("%d %s not fit in a %g px high figure: give a taller canvas (%s), or %s for one panel", rows, plural(rows, "row of panels does", "rows of panels do"), f.spec.height, c.opt.name("Height"), c.opt.name("Together"))
 		}
 	}
 	h, ay, err := f.plotHeight(&c.bank, polys, c.opt.Time, ax.d1-ax.d0, w, c.ylo, c.yhi, c.yk, room, true)

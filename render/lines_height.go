@@ -187,7 +187,7 @@ func (f *frame) plotHeight(b *banking, lines []scale.Polyline, isTime bool, rx, 
 	}
 	if room > 0 {
 		if room < b.minH {
-			return 0, yAxis{}, fmt.Errorf("the figure's fixed height leaves a %.0f px plot, under the %.0f px a line chart needs on this medium to be read: give a taller --size, or a shorter title and notes, so that it can fit", room, b.minH)
+			return 0, yAxis{}, fmt.Errorf("the figure's fixed height leaves a %.0f px plot, under the %.0f px a line chart needs on this medium to be read: give a taller canvas (%s), or a shorter title and notes, so that it can fit", room, b.minH, f.c.name("Height"))
 		}
 		if b.forced > 0 {
 			h = math.Min(h, room)
@@ -221,7 +221,7 @@ func (b *banking) note(w, h float64) string {
 		return fmt.Sprintf("the median segment is drawn at %.0f°", medianAngle(b.alpha, b.msAlpha))
 	}
 	if b.forced > 0 {
-		s := fmt.Sprintf("aspect ratio forced by --aspect: plot %.0f × %.0f px", w, h)
+		s := fmt.Sprintf("aspect ratio forced as asked: plot %.0f × %.0f px", w, h)
 		if b.msAlpha > 0 {
 			s += "; " + angle()
 		}

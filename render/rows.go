@@ -183,7 +183,7 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 	}
 	other.label = fmt.Sprintf("Other (%d)", other.other)
 	out = append(out, other)
-	return out, fmt.Sprintf("combined the %d smallest of %d categories into %q (%s): %s; show more with --top",
+	return out, fmt.Sprintf("combined the %d smallest of %d categories into %q (%s): %s",
 		other.other, len(rows), other.label, how, listNames(names, 6))
 }
 

@@ -90,8 +90,8 @@ func TestCombineTail(t *testing.T) {
 func TestRefusals(t *testing.T) {
 	from, to := 50.0, 10.0
 	for name, opt := range map[string]BarsOptions{
-		"from cuts bars":      {From: &from},
-		"to cuts bars":        {To: &to},
+		"from cuts bars":      {RowOptions: RowOptions{From: &from}},
+		"to cuts bars":        {RowOptions: RowOptions{To: &to}},
 		"percent of negative": {Percent: true},
 	} {
 		t.Run(name, func(t *testing.T) {
@@ -100,7 +100,7 @@ func TestRefusals(t *testing.T) {
 			assert.True(t, errors.Is(err, ErrRefused), "%v", err)
 		})
 	}
-	_, err := DotsScene([]string{"a", "b"}, []float64{60, 40}, DotsOptions{From: &from})
+	_, err := DotsScene([]string{"a", "b"}, []float64{60, 40}, DotsOptions{RowOptions: RowOptions{From: &from}})
 	assert.True(t, errors.Is(err, ErrRefused), "dots may not hide values: %v", err)
 }
 
@@ -117,7 +117,7 @@ func TestBadInput(t *testing.T) {
 		_, err := BarsScene(tc.labels, tc.values, BarsOptions{})
 		assert.Error(t, err, name)
 	}
-	_, err := BarsScene([]string{"North"}, []float64{1}, BarsOptions{Highlight: []string{"Nroth"}})
+	_, err := BarsScene([]string{"North"}, []float64{1}, BarsOptions{RowOptions: RowOptions{Highlight: []string{"Nroth"}}})
 	require.Error(t, err)
 	assert.Contains(t, err.Error(), `did you mean "North"`)
 }

@@ -1,104 +1,101 @@
 package main
 
 import (
-	"flag"
 	"fmt"
 	"io"
 
+	"plumb/internal/table"
 	"plumb/render"
 )
 
-// rowFlags are the flags bars and dots share.
-type rowFlags struct {
+// rowsRun is one run of plumb bars or plumb dots: the options the builder
+// receives, which the flags set directly, and the columns to read.
+type rowsRun struct {
 	shared
-	label, value, order, agg, unit, valueName, other string
-	top                                              int
-	vertical, percent                                bool
-	highlight                                        listFlag
-	from, to                                         floatFlag
+	dots bool
+	bars render.BarsOptions
+	dot  render.DotsOptions
+	row  *render.RowOptions // the RowOptions of bars or dot, whichever is drawn
+
+	label, value, agg string
 }
 
-func (r *rowFlags) register(fs *flag.FlagSet, dots bool) {
-	r.shared.register(fs)
-	fs.StringVar(&r.label, "label", "", "column with the category labels (default: the first column)")
-	fs.StringVar(&r.value, "value", "", "column with the values (default: the first numeric column after the labels)")
-	fs.StringVar(&r.order, "order", "value", "order of categories: value (largest first), label, or data (as in the file)")
+func newRows(dots bool) *rowsRun {
+	r := &rowsRun{dots: dots, agg: "sum"}
+	c, row := &r.bars.Common, &r.bars.RowOptions
 	if dots {
-		fs.IntVar(&r.top, "top", 0, fmt.Sprintf("show at most `N` categories, the largest; the rest are left out with a note (default %d; -1 shows all)", render.DefaultDotsTop))
-		fs.StringVar(&r.other, "other", "", "what becomes of categories beyond --top: none (left out, the default) or mean (one Other dot)")
+		c, row, r.agg = &r.dot.Common, &r.dot.RowOptions, "mean"
+	}
+	r.shared, r.row = newShared(c), row
+	row.Order = render.ByValue
+	return r
+}
+
+func (r *rowsRun) base() *shared { return &r.shared }
+
+// orders are the values of --order.
+var orders = []string{string(render.ByValue), string(render.ByLabel), string(render.ByData)}
+
+func (r *rowsRun) flags() []flagDef {
+	o := r.row
+	defs := []flagDef{
+		{name: "label", arg: "COLUMN", usage: "column with the category labels (default: the first column)", value: stringValue{&r.label}},
+		{name: "value", arg: "COLUMN", usage: "column with the values (default: the first numeric column after the labels)", value: stringValue{&r.value}},
+		{name: "order", sets: []string{"Order"}, values: orders, def: string(render.ByValue), usage: "order of categories: value (largest first), label, or data (as in the file)",
+			value: choiceValue[render.Order]{p: &o.Order, values: orders}},
+	}
+	if r.dots {
+		defs = append(defs,
+			flagDef{name: "top", sets: []string{"Top"}, arg: "N", usage: fmt.Sprintf("show at most N categories, the largest; the rest are left out with a note (default %d; -1 shows all)", render.DefaultDotsTop),
+				value: intValue{&o.Top}},
+			flagDef{name: "other", sets: []string{"Other"}, values: []string{"none", "mean"}, usage: "what becomes of categories beyond --top: none (left out, the default) or mean (one Other dot)",
+				value: choiceValue[render.OtherMode]{p: &o.Other, values: []string{"none", "mean"}, refused: map[string]string{
+					"sum": "a dot marks a position, not an amount, so dots are never summed; use --other mean or none, or draw bars"}}})
 	} else {
-		fs.IntVar(&r.top, "top", 0, fmt.Sprintf("show at most `N` categories (default: all, or %d with the rest summed into Other when the values are parts of a whole; -1 shows all)", render.DefaultTop))
-		fs.StringVar(&r.other, "other", "", "combine categories beyond --top into Other by sum or mean, or none (leave them out with a note); default: sum for parts of a whole, else none")
+		defs = append(defs,
+			flagDef{name: "top", sets: []string{"Top"}, arg: "N", usage: fmt.Sprintf("show at most N categories (default: all, or %d with the rest summed into Other when the values are parts of a whole; -1 shows all)", render.DefaultTop),
+				value: intValue{&o.Top}},
+			flagDef{name: "other", sets: []string{"Other"}, values: []string{"sum", "mean", "none"}, usage: "combine categories beyond --top into Other by sum or mean, or none (leave them out with a note); default: sum for parts of a whole, else none",
+				value: choiceValue[render.OtherMode]{p: &o.Other, values: []string{"sum", "mean", "none"}}})
 	}
-	fs.Var(&r.highlight, "highlight", "draw these `LABELS` (comma-separated) in the accent colour")
-	fs.Var(&r.from, "from", "start of the value axis (may widen it, never hide data)")
-	fs.Var(&r.to, "to", "end of the value axis (may widen it, never hide data)")
-	fs.StringVar(&r.unit, "unit", "", "unit appended to values, such as % or kg")
-	fs.StringVar(&r.valueName, "value-name", "", "what the values measure, for the axis (default: the value column's name)")
-	if dots {
-		fs.StringVar(&r.agg, "agg", "mean", "combine repeated labels: sum, mean, median, count, min or max")
-		return
+	defs = append(defs,
+		flagDef{name: "highlight", sets: []string{"Highlight"}, arg: "LABELS", repeat: true, usage: "draw these LABELS (comma-separated) in the accent colour", value: listValue{&o.Highlight}},
+		flagDef{name: "from", sets: []string{"From"}, arg: "NUMBER", usage: "start of the value axis (may widen it, never hide data)", value: numberValue{&o.From}},
+		flagDef{name: "to", sets: []string{"To"}, arg: "NUMBER", usage: "end of the value axis (may widen it, never hide data)", value: numberValue{&o.To}},
+		flagDef{name: "unit", sets: []string{"Unit"}, arg: "UNIT", usage: "unit appended to values, such as % or kg (default: the sign the cells carry)", value: stringValue{&o.Unit}},
+		flagDef{name: "value-name", sets: []string{"ValueName"}, arg: "TEXT", usage: "what the values measure, for the axis (default: the value column's name)", value: stringValue{&o.ValueName}},
+		flagDef{name: "agg", values: table.Aggregations, def: r.agg, usage: "combine repeated labels", value: choiceValue[string]{p: &r.agg, values: table.Aggregations}},
+	)
+	if !r.dots {
+		defs = append(defs,
+			flagDef{name: "vertical", sets: []string{"Vertical"}, usage: "stand the bars up (horizontal bars read better with long labels)", value: boolValue{&r.bars.Vertical}},
+			flagDef{name: "percent", sets: []string{"Percent"}, usage: "show each value as a percentage of the total", value: boolValue{&r.bars.Percent}})
 	}
-	fs.StringVar(&r.agg, "agg", "sum", "combine repeated labels: sum, mean, median, count, min or max")
-	fs.BoolVar(&r.vertical, "vertical", false, "stand the bars up (horizontal bars read better with long labels)")
-	fs.BoolVar(&r.percent, "percent", false, "show each value as a percentage of the total")
+	return append(defs, r.shared.flags()...)
 }
 
-// runRows is plumb bars and plumb dots.
-func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Writer) int {
-	dots := chart == "dots"
-	fs := newFlagSet(chart, dataSynopsis, stderr)
-	var f rowFlags
-	f.register(fs, dots)
-	path, c, err := parseChart(fs, &f.shared, args)
+func (r *rowsRun) load(path string, stdin io.Reader, given func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
+	d, err := loadLabelled(path, r.readOptions(), r.label, r.value, r.agg, stdin)
 	if err != nil {
-		return exitCode(err, stderr)
+		return nil, nil, err
 	}
-	switch f.order {
-	case "value", "label", "data":
-	default:
-		return exitCode(usagef("--order %q: use value, label or data", f.order), stderr)
+	o := r.row
+	if o.Unit == "" {
+		o.Unit = d.unit // the sign the cells carry, such as % or $
 	}
-	switch f.other {
-	case "", "sum", "mean", "none":
-	default:
-		return exitCode(usagef("--other %q: use sum, mean or none", f.other), stderr)
+	if o.ValueName == "" {
+		o.ValueName = d.valueCol
 	}
-	if dots && f.other == "sum" {
-		return exitCode(usagef("--other sum: a dot marks a position, not an amount, so dots are never summed; use --other mean or none, or draw bars"), stderr)
-	}
-	aggGiven := false
-	fs.Visit(func(fl *flag.Flag) { aggGiven = aggGiven || fl.Name == "agg" })
-	d, err := loadLabelled(path, f.readOptions(), f.label, f.value, f.agg, stdin)
-	if err != nil {
-		return exitCode(err, stderr)
-	}
-	if f.unit == "" {
-		f.unit = d.unit // the sign the cells carry, such as % or $
-	}
-	notes := d.notes
-	name := f.valueName
-	if name == "" {
-		name = d.valueCol
-	}
-	averages := f.agg != "sum" && f.agg != "count"
-	c.Notes = notes
+	o.LabelName = d.labelCol
+	o.Averages = r.agg != "sum" && r.agg != "count"
 	// Values are parts of a whole when they are shares, when the user said
 	// they sum or count, or when repeated labels really were summed; a
 	// single value per label may be a median or a rate, which never adds.
-	additive := f.percent || (aggGiven && !averages) || (f.agg == "sum" && len(d.repeated) > 0)
-	return emit(chart, &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
-		if dots {
-			return render.Dots(w, d.labels, d.values, render.DotsOptions{
-				Common: c, Order: render.Order(f.order), Top: f.top, Other: render.OtherMode(f.other), Highlight: f.highlight,
-				From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name, LabelName: d.labelCol, Averages: averages,
-			})
+	r.bars.Additive = r.bars.Percent || (given("agg") && !o.Averages) || (r.agg == "sum" && len(d.repeated) > 0)
+	return d.notes, func(w io.Writer) ([]render.Note, error) {
+		if r.dots {
+			return render.Dots(w, d.labels, d.values, r.dot)
 		}
-		return render.Bars(w, d.labels, d.values, render.BarsOptions{
-			Common: c, Order: render.Order(f.order), Top: f.top, Other: render.OtherMode(f.other), Additive: additive,
-			Vertical: f.vertical, Percent: f.percent,
-			Highlight: f.highlight, From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name,
-			LabelName: d.labelCol, Averages: averages,
-		})
-	})
+		return render.Bars(w, d.labels, d.values, r.bars)
+	}, nil
 }

@@ -56,10 +56,16 @@ var gallery = []figure{
 	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
 }
 
+// demoSynopsis is the usage line of plumb demo.
+const demoSynopsis = "[-o DIR]"
+
 // runDemo renders the gallery from the data built into the binary.
 func runDemo(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("demo", "[-o DIR]", stderr)
-	out := fs.String("o", "plumb-demo", "write the gallery into `DIR`")
+	out := new(string)
+	*out = "plumb-demo"
+	fs := newTableFlagSet("demo", demoSynopsis, []flagDef{
+		{name: "o", arg: "DIR", def: "plumb-demo", usage: "write the gallery into DIR", value: stringValue{out}},
+	}, stderr)
 	pos, err := parse(fs, args)
 	if err != nil {
 		return exitCode(err, stderr)

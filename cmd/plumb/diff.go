@@ -7,57 +7,63 @@ import (
 	"plumb/render"
 )
 
-// diffFlags are the flags of plumb diff.
-type diffFlags struct {
+// diffRun is one run of plumb diff: the options the builder receives,
+// which the flags set directly, and the x column to read.
+type diffRun struct {
+	shared
 	xFlags
-	a, b    string
-	context bool
+	opt render.DiffOptions
 }
 
-// runDiff is plumb diff.
-func runDiff(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
-	fs := newFlagSet("diff", dataSynopsis, stderr)
-	var f diffFlags
-	f.xFlags.register(fs)
-	fs.StringVar(&f.a, "a", "", "`COLUMN` of the first series (default: the first numeric column after x)")
-	fs.StringVar(&f.b, "b", "", "`COLUMN` of the second series, subtracted from a (default: the next numeric column)")
-	fs.BoolVar(&f.context, "context", false, "add a panel above with both series on the same x scale")
-	path, c, err := parseChart(fs, &f.shared, args)
-	if err != nil {
-		return exitCode(err, stderr)
-	}
-	x, a, b, opt, notes, err := loadDiff(path, &f, stdin)
-	if err != nil {
-		return exitCode(err, stderr)
-	}
-	opt.Common = c
-	opt.Common.Notes = notes
-	return emit("diff", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
-		return render.Diff(w, x, a, b, opt)
-	})
+func newDiff() *diffRun {
+	r := &diffRun{}
+	r.shared = newShared(&r.opt.Common)
+	return r
 }
 
-// loadDiff reads the x, a and b columns, in x order.
-func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, opt render.DiffOptions, notes []render.Note, err error) {
+func (r *diffRun) base() *shared { return &r.shared }
+
+func (r *diffRun) flags() []flagDef {
+	o := &r.opt
+	defs := append(r.xFlags.flags(&o.Unit, &o.XName),
+		flagDef{name: "a", sets: []string{"AName"}, arg: "COLUMN", usage: "COLUMN of the first series (default: the first numeric column after x)", value: stringValue{&o.AName}},
+		flagDef{name: "b", sets: []string{"BName"}, arg: "COLUMN", usage: "COLUMN of the second series, subtracted from a (default: the next numeric column)", value: stringValue{&o.BName}},
+		flagDef{name: "context", sets: []string{"Context"}, usage: "add a panel above with both series on the same x scale", value: boolValue{&o.Context}},
+	)
+	return append(defs, r.shared.flags()...)
+}
+
+func (r *diffRun) load(path string, stdin io.Reader, _ func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
+	x, a, b, notes, err := r.read(path, stdin)
+	if err != nil {
+		return nil, nil, err
+	}
+	return notes, func(w io.Writer) ([]render.Note, error) { return render.Diff(w, x, a, b, r.opt) }, nil
+}
+
+// read reads the x, a and b columns, in x order, and finishes the options
+// from the data: the columns chosen, the x kind, the unit, the x name.
+func (r *diffRun) read(path string, stdin io.Reader) (x, a, b []float64, notes []render.Note, err error) {
+	opt := &r.opt
 	var want []string
-	if f.x != "" && f.a != "" && f.b != "" {
-		want = []string{f.x, f.a, f.b}
+	if r.x != "" && opt.AName != "" && opt.BName != "" {
+		want = []string{r.x, opt.AName, opt.BName}
 	}
-	t, notes, err := readData(path, f.readOptions(), want, stdin)
+	t, notes, err := readData(path, r.readOptions(), want, stdin)
 	if err != nil {
-		return nil, nil, nil, opt, nil, err
+		return nil, nil, nil, nil, err
 	}
 	if t.Len() == 0 {
-		return nil, nil, nil, opt, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+		return nil, nil, nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
-	xcol := f.x
+	xcol := r.x
 	if xcol == "" && len(t.Header) > 0 {
 		xcol = t.Header[0]
 	}
 	if !t.Has(xcol) {
-		return nil, nil, nil, opt, nil, t.missingColumn(xcol, 1)
+		return nil, nil, nil, nil, t.missingColumn(xcol, 1)
 	}
-	acol, bcol := f.a, f.b
+	acol, bcol := opt.AName, opt.BName
 	if acol == "" || bcol == "" {
 		nums, first := t.NumericColumns(xcol, []string{acol, bcol}, 2, false)
 		if acol == "" && len(nums) > 0 {
@@ -68,28 +74,28 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 		}
 		if acol == "" || bcol == "" {
 			if first != nil {
-				return nil, nil, nil, opt, nil, first // a bad cell in a column that was likely meant
+				return nil, nil, nil, nil, first // a bad cell in a column that was likely meant
 			}
-			return nil, nil, nil, opt, nil, tooFewColumns(t, "a difference needs two numeric columns; name them with --a and --b")
+			return nil, nil, nil, nil, tooFewColumns(t, "a difference needs two numeric columns; name them with --a and --b")
 		}
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("drawing %q minus %q over %q (choose with --x, --a and --b)", acol, bcol, xcol)})
 	}
-	xc, xn, err := readX(t, xcol, f.xFormat)
+	xc, xn, err := readX(t, xcol, r.xFormat)
 	if err != nil {
-		return nil, nil, nil, opt, nil, err
+		return nil, nil, nil, nil, err
 	}
 	notes = append(notes, xn...)
 	av, _, err := t.Numbers(acol)
 	if err != nil {
-		return nil, nil, nil, opt, nil, err
+		return nil, nil, nil, nil, err
 	}
 	bv, _, err := t.Numbers(bcol)
 	if err != nil {
-		return nil, nil, nil, opt, nil, err
+		return nil, nil, nil, nil, err
 	}
 	rows, err := orderRows(t, xcol, xc.values, allRows(t.Len()))
 	if err != nil {
-		return nil, nil, nil, opt, nil, err
+		return nil, nil, nil, nil, err
 	}
 	x = xc.values
 	if rows != nil {
@@ -97,12 +103,12 @@ func loadDiff(path string, f *diffFlags, stdin io.Reader) (x, a, b []float64, op
 		notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
 	}
 	notes = append(notes, t.numberNotes(acol, bcol)...)
-	opt = render.DiffOptions{Time: xc.time, AName: acol, BName: bcol, Context: f.context, Unit: f.unit, XName: f.xName}
+	opt.Time, opt.AName, opt.BName = xc.time, acol, bcol
 	if opt.Unit == "" {
 		opt.Unit = t.unitOf(acol, bcol)
 	}
 	if opt.XName == "" && !xc.time {
 		opt.XName = xcol
 	}
-	return x, av, bv, opt, notes, nil
+	return x, av, bv, notes, nil
 }

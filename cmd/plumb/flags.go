@@ -23,59 +23,63 @@ func (e *usageError) Error() string { return e.msg }
 
 func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(format, a...)} }
 
-// shared holds the flags every chart takes.
+// shared holds the settings every chart takes: the CLI's own (output,
+// reading, notes) and, through c, the chart's render.Common.
 type shared struct {
-	out, title, subtitle, source, note string
-	medium, size, font, format         string
-	decimal, maxInput                  string
-	embedFont, quiet, explain          bool
-	data                               string // the data path, set by parseChart; names the figure in notes
+	c                                    *render.Common // the options' Common, which the shared flags set
+	out, font, format, decimal, maxInput string
+	quiet, explain                       bool
+	data                                 string // the data path, set by runChart; names the figure in notes
 }
 
-func (s *shared) register(fs *flag.FlagSet) {
-	fs.StringVar(&s.out, "o", "", "write the figure to `FILE` (.svg or no extension; - or none: standard output)")
-	fs.StringVar(&s.title, "title", "", "title above the chart")
-	fs.StringVar(&s.subtitle, "subtitle", "", "subtitle: what is measured, in what unit")
-	fs.StringVar(&s.source, "source", "", "where the numbers come from, printed under the chart")
-	fs.StringVar(&s.note, "note", "", "a note printed under the chart")
-	fs.StringVar(&s.medium, "for", "screen", "the medium: print, screen or slide (sets size and text sizes)")
-	fs.StringVar(&s.size, "size", "", "canvas size `WxH` in pixels (H may be 0 to let the chart choose)")
-	fs.StringVar(&s.font, "font", "", "measure text with this TTF/OTF `FILE` and name it in the figure")
-	fs.BoolVar(&s.embedFont, "embed-font", false, "embed the font in the SVG so every viewer draws what was measured")
-	fs.StringVar(&s.format, "format", "", "data format when the file name does not say: csv, tsv, json, semicolon or pipe")
-	fs.BoolVar(&s.quiet, "quiet", false, "print no notes on standard error (errors still print)")
-	fs.BoolVar(&s.explain, "explain", false, "also print routine decisions (columns chosen, types guessed, banking) on standard error; the SVG's metadata always has them")
-	fs.StringVar(&s.decimal, "decimal", "", "decimal mark of the numbers: . or , (default: decided per column from the cells)")
-	fs.StringVar(&s.maxInput, "max-input", "1GB", "read at most `SIZE` of data, such as 1GB or 200MB")
+// newShared binds the shared settings to a chart's Common, with the
+// defaults the flags show.
+func newShared(c *render.Common) shared {
+	c.Medium = render.Screen
+	return shared{c: c, maxInput: "1GB"}
 }
 
-// common turns the shared flags into the render options they mean.
-func (s *shared) common() (render.Common, error) {
-	c := render.Common{Title: s.title, Subtitle: s.subtitle, Source: s.source, Note: s.note, Medium: render.Medium(s.medium), EmbedFont: s.embedFont}
-	switch c.Medium {
-	case render.Print, render.Screen, render.Slide:
-	default:
-		return c, usagef("--for %q: use print, screen or slide", s.medium)
+// flags are the shared flags, bound to Common's fields and the CLI's own.
+func (s *shared) flags() []flagDef {
+	c := s.c
+	return []flagDef{
+		{name: "o", arg: "FILE", usage: "write the figure to FILE (.svg or no extension; - or none: standard output)", value: stringValue{&s.out}},
+		{name: "title", sets: []string{"Title"}, arg: "TEXT", usage: "title above the chart", value: stringValue{&c.Title}},
+		{name: "subtitle", sets: []string{"Subtitle"}, arg: "TEXT", usage: "subtitle: what is measured, in what unit", value: stringValue{&c.Subtitle}},
+		{name: "source", sets: []string{"Source"}, arg: "TEXT", usage: "where the numbers come from, printed under the chart", value: stringValue{&c.Source}},
+		{name: "note", sets: []string{"Note"}, arg: "TEXT", usage: "a note printed under the chart", value: stringValue{&c.Note}},
+		{name: "for", sets: []string{"Medium"}, values: media, def: string(render.Screen), usage: "the medium: print, screen or slide (sets size and text sizes)",
+			value: choiceValue[render.Medium]{p: &c.Medium, values: media}},
+		{name: "size", sets: []string{"Width", "Height"}, arg: "WxH", usage: "canvas size WxH in pixels (H may be 0 to let the chart choose)", value: sizeValue{&c.Width, &c.Height}},
+		{name: "font", sets: []string{"Fonts"}, arg: "FILE", usage: "measure text with this TTF/OTF FILE and name it in the figure", value: stringValue{&s.font}},
+		{name: "embed-font", sets: []string{"EmbedFont"}, usage: "embed the font in the SVG so every viewer draws what was measured", value: boolValue{&c.EmbedFont}},
+		{name: "format", arg: "FORMAT", usage: "data format when the file name does not say: csv, tsv, json, semicolon or pipe", value: stringValue{&s.format}},
+		{name: "decimal", arg: "MARK", usage: "decimal mark of the numbers: . or , (default: decided per column from the cells)", value: stringValue{&s.decimal}},
+		{name: "max-input", arg: "SIZE", def: "1GB", usage: "read at most SIZE of data, such as 1GB or 200MB", value: stringValue{&s.maxInput}},
+		{name: "quiet", usage: "print no notes on standard error (errors still print)", value: boolValue{&s.quiet}},
+		{name: "explain", usage: "also print routine decisions (columns chosen, types guessed, banking) on standard error; the SVG's metadata always has them", value: boolValue{&s.explain}},
 	}
-	if s.size != "" {
-		wv, hv, ok := parseSize(s.size)
-		if !ok {
-			return c, usagef("--size %q: give width x height in pixels, such as 800x500 (width 1 to 20000; height 0 lets the chart choose)", s.size)
-		}
-		c.Width, c.Height = wv, hv
+}
+
+// media are the values of --for.
+var media = []string{string(render.Print), string(render.Screen), string(render.Slide)}
+
+// finish completes Common from the settings that need work once the flags
+// are parsed: the font file is read and parsed.
+func (s *shared) finish() error {
+	if s.font == "" {
+		return nil
 	}
-	if s.font != "" {
-		data, err := readFont(s.font)
-		if err != nil {
-			return c, fmt.Errorf("--font %s: %w", s.font, err)
-		}
-		face, err := layout.ParseFace(data)
-		if err != nil {
-			return c, fmt.Errorf("--font %s: %w", s.font, err)
-		}
-		c.Fonts = layout.Fonts{Regular: face, Bold: face}
+	data, err := readFont(s.font)
+	if err != nil {
+		return fmt.Errorf("--font %s: %w", s.font, err)
 	}
-	return c, nil
+	face, err := layout.ParseFace(data)
+	if err != nil {
+		return fmt.Errorf("--font %s: %w", s.font, err)
+	}
+	s.c.Fonts = layout.Fonts{Regular: face, Bold: face}
+	return nil
 }
 
 // maxFontBytes bounds --font: the largest common faces (full CJK sets)
@@ -184,19 +188,8 @@ func flagError(fs *flag.FlagSet, err error) error {
 	if rest, ok := strings.CutPrefix(msg, "invalid value "); ok {
 		if i := strings.LastIndex(rest, " for flag -"); i > 0 {
 			value := rest[:i]
+			// Every flag's Value says what would work (commands.go).
 			name, cause, _ := strings.Cut(rest[i+len(" for flag -"):], ": ")
-			if f := fs.Lookup(name); f != nil {
-				if g, ok := f.Value.(flag.Getter); ok {
-					switch g.Get().(type) {
-					case int, int64, uint, uint64:
-						cause = "give a whole number"
-					case float64:
-						cause = "give a number"
-					case bool:
-						cause = "give true or false"
-					}
-				}
-			}
 			return usagef("--%s %s: %s", name, value, cause)
 		}
 	}
@@ -206,58 +199,17 @@ func flagError(fs *flag.FlagSet, err error) error {
 // dataSynopsis is the usage line of a chart that reads a data file.
 const dataSynopsis = "DATA [flags]\n\nDATA is a .csv, .tsv or .json file, or - for standard input."
 
-// newFlagSet makes a flag set that never exits and never prints on its own;
-// -h prints "usage: plumb NAME SYNOPSIS" and the flags on stderr, marking
-// the flags that may be repeated.
-func newFlagSet(name, synopsis string, stderr io.Writer) *flag.FlagSet {
+// newTableFlagSet makes a flag set from a command's flag table, each flag
+// bound to the field it sets. It never exits and never prints on its own;
+// -h prints the synopsis and the table (printHelp) on stderr.
+func newTableFlagSet(name, synopsis string, defs []flagDef, stderr io.Writer) *flag.FlagSet {
 	fs := flag.NewFlagSet("plumb "+name, flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
-	fs.Usage = func() {
-		fmt.Fprintf(stderr, "usage: plumb %s %s\n\nflags:\n", name, synopsis)
-		fs.VisitAll(func(f *flag.Flag) {
-			if _, ok := f.Value.(*listFlag); ok && !strings.Contains(f.Usage, "repeat") {
-				f.Usage += fmt.Sprintf("; may repeat: --%s a --%s b (survives Makefile functions, where a,b does not) or --%s a,b", f.Name, f.Name, f.Name)
-			}
-		})
-		fs.SetOutput(stderr)
-		fs.PrintDefaults()
-		fs.SetOutput(io.Discard)
+	for _, d := range defs {
+		fs.Var(d.value, d.name, d.usage)
 	}
+	fs.Usage = func() { printHelp(stderr, name, synopsis, defs) }
 	return fs
-}
-
-// floatFlag is an optional number: unset unless given.
-type floatFlag struct{ v *float64 }
-
-func (f *floatFlag) String() string {
-	if f.v == nil {
-		return ""
-	}
-	return strconv.FormatFloat(*f.v, 'g', -1, 64)
-}
-
-func (f *floatFlag) Set(s string) error {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil {
-		return errors.New("give a number")
-	}
-	f.v = &v
-	return nil
-}
-
-// listFlag is a list that may be given as commas (--y a,b), by repeating
-// the flag (--y a --y b), or both.
-type listFlag []string
-
-func (l *listFlag) String() string { return strings.Join(*l, ",") }
-
-func (l *listFlag) Set(s string) error {
-	for _, p := range strings.Split(s, ",") {
-		if p = strings.TrimSpace(p); p != "" {
-			*l = append(*l, p)
-		}
-	}
-	return nil
 }
 
 // printError writes one error line on stderr, user text made safe.
@@ -314,24 +266,6 @@ func printNotes(stderr io.Writer, figure string, notes []render.Note, level note
 			fmt.Fprintln(stderr, "plumb: "+terminalSafe(figure)+": note: "+terminalSafe(n.Text))
 		}
 	}
-}
-
-// parseChart reads a chart's command line: flags in any order and exactly
-// one data file. It returns the data path and the shared render options.
-func parseChart(fs *flag.FlagSet, sh *shared, args []string) (string, render.Common, error) {
-	pos, err := parse(fs, args)
-	if err != nil {
-		return "", render.Common{}, err
-	}
-	if len(pos) != 1 {
-		return "", render.Common{}, usagef("give one data file (.csv, .tsv, .json), or - for standard input")
-	}
-	if err := checkFigurePath(sh.out); err != nil {
-		return "", render.Common{}, err
-	}
-	sh.data = pos[0]
-	c, err := sh.common()
-	return pos[0], c, err
 }
 
 // emit writes the figure that draw produces to -o (or stdout), prints the

@@ -3,7 +3,6 @@ package main
 import (
 	"cmp"
 	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -22,37 +21,37 @@ var (
 	ErrDuplicateX = errors.New("two rows share one x value")
 )
 
-// indexFlag is --index: a bare --index rebases at the first value, and
-// --index=AT at x = AT. It is a boolean flag to the flag package, so that
+// indexValue is --index: a bare --index rebases at the first value, and
+// --index=AT at x = AT. It is a switch to the flag package, so that
 // "--index data.csv" does not swallow the file name.
-type indexFlag struct {
-	on bool
-	at string
+type indexValue struct {
+	on *bool   // LinesOptions.Index
+	at *string // the point, read once the x axis is known
 }
 
-func (f *indexFlag) String() string {
-	if f == nil || !f.on {
+func (v indexValue) String() string {
+	switch {
+	case v.on == nil || !*v.on:
 		return "false"
-	}
-	if f.at != "" {
-		return f.at
+	case *v.at != "":
+		return *v.at
 	}
 	return "true"
 }
 
-func (f *indexFlag) Set(s string) error {
+func (v indexValue) Set(s string) error {
 	switch s {
 	case "true":
-		f.on, f.at = true, ""
+		*v.on, *v.at = true, ""
 	case "false":
-		f.on, f.at = false, ""
+		*v.on, *v.at = false, ""
 	default:
-		f.on, f.at = true, s
+		*v.on, *v.at = true, s
 	}
 	return nil
 }
 
-func (f *indexFlag) IsBoolFlag() bool { return true }
+func (v indexValue) IsBoolFlag() bool { return true }
 
 // xColumn is a parsed x column.
 type xColumn struct {
@@ -152,144 +151,141 @@ func pick(v []float64, rows []int) []float64 {
 	return out
 }
 
-// xFlags are the flags of the charts drawn over an x axis: lines and diff.
+// xFlags are the flags of the charts drawn over an x axis, lines and
+// diff, that are the CLI's own: which column is x and how to read it.
 type xFlags struct {
+	x, xFormat string
+}
+
+// flags are the x flags and the flags of the options both charts have.
+func (x *xFlags) flags(unit, xName *string) []flagDef {
+	x.xFormat = "auto"
+	return []flagDef{
+		{name: "x", arg: "COLUMN", usage: "column with the x values: numbers or ISO 8601 dates (default: the first column)", value: stringValue{&x.x}},
+		{name: "x-format", arg: "PATTERN", def: "auto", usage: "read x as auto, number, time, or dates in a PATTERN of YYYY, MM, DD, MMM, Q, HH, mm, ss such as DD.MM.YYYY", value: stringValue{&x.xFormat}},
+		{name: "unit", sets: []string{"Unit"}, arg: "UNIT", usage: "unit of the values, such as % or t", value: stringValue{unit}},
+		{name: "x-name", sets: []string{"XName"}, arg: "TEXT", usage: "what x is, for the axis (default: the x column's name unless it is a date)", value: stringValue{xName}},
+	}
+}
+
+// linesRun is one run of plumb lines: the options the builder receives,
+// which the flags set directly, and the columns to read.
+type linesRun struct {
 	shared
-	x, xFormat, unit, xName string
-}
-
-func (x *xFlags) register(fs *flag.FlagSet) {
-	x.shared.register(fs)
-	fs.StringVar(&x.x, "x", "", "column with the x values: numbers or ISO 8601 dates (default: the first column)")
-	fs.StringVar(&x.xFormat, "x-format", "auto", "read x as auto, number, time, or dates in a `PATTERN` of YYYY, MM, DD, MMM, Q, HH, mm, ss such as DD.MM.YYYY")
-	fs.StringVar(&x.unit, "unit", "", "unit of the values, such as % or t")
-	fs.StringVar(&x.xName, "x-name", "", "what x is, for the axis (default: the x column's name unless it is a date)")
-}
-
-// linesFlags are the flags of plumb lines.
-type linesFlags struct {
 	xFlags
-	series, aspect, indexAt, yName string
-	y                              listFlag
-	index                          indexFlag
-	together                       bool
+	opt     render.LinesOptions
+	series  string
+	y       []string
+	indexAt string // --index=AT or --index-at, read once the x axis is known
 }
 
-func (l *linesFlags) register(fs *flag.FlagSet) {
-	l.xFlags.register(fs)
-	fs.Var(&l.y, "y", "value `COLUMNS`, comma-separated, one line each (default: every numeric column after x)")
-	fs.StringVar(&l.series, "series", "", "long format: `COLUMN` naming the series of each row")
-	fs.Var(&l.index, "index", "rebase every series to 100 at its first value; --index=AT rebases at x = AT")
-	fs.StringVar(&l.indexAt, "index-at", "", "rebase every series to 100 at x = `AT` (same as --index=AT)")
-	fs.StringVar(&l.aspect, "aspect", "", "plot shape: orientation (bank by mean orientation) or W:H; default banks to 45° by median slope")
-	fs.BoolVar(&l.together, "together", false, "keep more than four series on one panel instead of small multiples")
-	fs.StringVar(&l.yName, "y-name", "", "what the values measure, for the axis")
+func newLines() *linesRun {
+	r := &linesRun{}
+	r.shared = newShared(&r.opt.Common)
+	return r
 }
 
-// runLines is plumb lines.
-func runLines(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
-	fs := newFlagSet("lines", dataSynopsis, stderr)
-	var f linesFlags
-	f.register(fs)
-	path, c, err := parseChart(fs, &f.shared, args)
+func (r *linesRun) base() *shared { return &r.shared }
+
+func (r *linesRun) flags() []flagDef {
+	o := &r.opt
+	defs := append(r.xFlags.flags(&o.Unit, &o.XName),
+		flagDef{name: "y", arg: "COLUMNS", repeat: true, usage: "value COLUMNS, comma-separated, one line each (default: every numeric column after x)", value: listValue{&r.y}},
+		flagDef{name: "series", arg: "COLUMN", usage: "long format: COLUMN naming the series of each row", value: stringValue{&r.series}},
+		flagDef{name: "index", sets: []string{"Index"}, arg: "[=AT]", usage: "rebase every series to 100 at its first value; --index=AT rebases at x = AT", value: indexValue{&o.Index, &r.indexAt}},
+		flagDef{name: "index-at", sets: []string{"IndexAt"}, arg: "AT", usage: "rebase every series to 100 at x = AT (same as --index=AT)", value: stringValue{&r.indexAt}},
+		flagDef{name: "aspect", sets: []string{"Aspect"}, arg: "orientation|W:H", usage: "plot shape: orientation (bank by mean orientation) or W:H; default banks to 45° by median slope", value: stringValue{&o.Aspect}},
+		flagDef{name: "together", sets: []string{"Together"}, usage: "keep more than four series on one panel instead of small multiples", value: boolValue{&o.Together}},
+		flagDef{name: "y-name", sets: []string{"YName"}, arg: "TEXT", usage: "what the values measure, for the axis", value: stringValue{&o.YName}},
+	)
+	return append(defs, r.shared.flags()...)
+}
+
+func (r *linesRun) load(path string, stdin io.Reader, _ func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
+	series, notes, err := r.read(path, stdin)
 	if err != nil {
-		return exitCode(err, stderr)
+		return nil, nil, err
 	}
-	series, opt, notes, err := loadLines(path, &f, stdin)
-	if err != nil {
-		return exitCode(err, stderr)
-	}
-	opt.Common = c
-	opt.Common.Notes = notes
-	return emit("lines", &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
-		return render.Lines(w, series, opt)
-	})
+	return notes, func(w io.Writer) ([]render.Note, error) { return render.Lines(w, series, r.opt) }, nil
 }
 
-// loadLines reads the table and builds the series, wide or long.
-func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, render.LinesOptions, []render.Note, error) {
-	var opt render.LinesOptions
+// read reads the table and builds the series, wide or long, and finishes
+// the options from the data: the x kind, the unit, the axis names.
+func (r *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render.Note, error) {
+	opt := &r.opt
 	var want []string
-	if f.x != "" && len(f.y) > 0 {
-		want = append([]string{f.x}, f.y...)
-		if f.series != "" {
-			want = append(want, f.series)
+	if r.x != "" && len(r.y) > 0 {
+		want = append([]string{r.x}, r.y...)
+		if r.series != "" {
+			want = append(want, r.series)
 		}
 	}
-	t, notes, err := readData(path, f.readOptions(), want, stdin)
+	t, notes, err := readData(path, r.readOptions(), want, stdin)
 	if err != nil {
-		return nil, opt, nil, err
+		return nil, nil, err
 	}
 	if len(t.Header) < 2 {
-		return nil, opt, nil, tooFewColumns(t, "a line chart needs an x column and a value column")
+		return nil, nil, tooFewColumns(t, "a line chart needs an x column and a value column")
 	}
-	xcol := f.x
+	xcol := r.x
 	if xcol == "" {
 		xcol = t.Header[0]
 	}
 	if !t.Has(xcol) {
-		return nil, opt, nil, t.missingColumn(xcol, 1)
+		return nil, nil, t.missingColumn(xcol, 1)
 	}
 	if t.Len() == 0 {
-		return nil, opt, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
-	ycols := []string(f.y)
+	ycols := []string(r.y)
 	if len(ycols) == 0 {
 		n := 0
-		if f.series != "" {
+		if r.series != "" {
 			n = 1
 		}
 		var first error
-		ycols, first = t.NumericColumns(xcol, []string{f.series}, n, true)
+		ycols, first = t.NumericColumns(xcol, []string{r.series}, n, true)
 		if len(ycols) == 0 && first != nil {
 			// The first candidate's bad cell is the likeliest mistake.
-			return nil, opt, nil, first
+			return nil, nil, first
 		}
 		if len(ycols) == 0 {
-			return nil, opt, nil, tooFewColumns(t, fmt.Sprintf("no column after %q to draw; name the value columns with --y", xcol))
+			return nil, nil, tooFewColumns(t, fmt.Sprintf("no column after %q to draw; name the value columns with --y", xcol))
 		}
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for x and %s for values (choose with --x and --y)", xcol, quoteList(ycols))})
 	}
-	if f.series != "" && len(ycols) != 1 {
-		return nil, opt, nil, usagef("--series takes one value column (--y COL); give several --y columns only in wide format")
+	if r.series != "" && len(ycols) != 1 {
+		return nil, nil, usagef("--series takes one value column (--y COL); give several --y columns only in wide format")
 	}
-	x, xn, err := readX(t, xcol, f.xFormat)
+	x, xn, err := readX(t, xcol, r.xFormat)
 	if err != nil {
-		return nil, opt, nil, err
+		return nil, nil, err
 	}
 	notes = append(notes, xn...)
 	notes = append(notes, t.numberNotes(ycols...)...)
-	opt = render.LinesOptions{Time: x.time, Aspect: f.aspect, Together: f.together, Unit: f.unit, XName: f.xName, YName: f.yName}
+	opt.Time = x.time
 	if opt.Unit == "" {
 		opt.Unit = t.unitOf(ycols...)
 	}
 	if opt.XName == "" && !x.time {
 		opt.XName = xcol
 	}
-	if opt.YName == "" && len(ycols) == 1 && f.series == "" {
+	if opt.YName == "" && (len(ycols) == 1 || r.series != "") {
 		opt.YName = ycols[0]
 	}
-	if f.series != "" && opt.YName == "" {
-		opt.YName = ycols[0]
-	}
-	if f.indexAt != "" {
-		f.index.on, f.index.at = true, f.indexAt
-	}
-	if f.index.on {
+	if r.indexAt != "" {
 		opt.Index = true
-		if f.index.at != "" {
-			v, err := parseAt(f.index.at, x.time)
-			if err != nil {
-				return nil, opt, nil, err
-			}
-			opt.IndexAt = &v
+		v, err := parseAt(r.indexAt, x.time)
+		if err != nil {
+			return nil, nil, err
 		}
+		opt.IndexAt = &v
 	}
 	var series []render.Series
-	if f.series == "" {
+	if r.series == "" {
 		rows, err := orderRows(t, xcol, x.values, allRows(t.Len()))
 		if err != nil {
-			return nil, opt, nil, err
+			return nil, nil, err
 		}
 		if rows != nil {
 			notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
@@ -301,23 +297,23 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 		for _, col := range ycols {
 			ys, _, err := t.Numbers(col)
 			if err != nil {
-				return nil, opt, nil, err
+				return nil, nil, err
 			}
 			if rows != nil {
 				ys = pick(ys, rows)
 			}
 			series = append(series, render.Series{Name: col, X: xs, Y: ys})
 		}
-		return series, opt, notes, nil
+		return series, notes, nil
 	}
-	names := t.Strings(f.series)
+	names := t.Strings(r.series)
 	if names == nil {
-		return nil, opt, nil, t.missingColumn(f.series, 1)
+		return nil, nil, t.missingColumn(r.series, 1)
 	}
 	notes = append(notes, shortenNote(table.ShortenLabels(names, 0), "series name")...)
 	ys, _, err := t.Numbers(ycols[0])
 	if err != nil {
-		return nil, opt, nil, err
+		return nil, nil, err
 	}
 	var order []string
 	groups := map[string][]int{}
@@ -332,7 +328,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 		rows := groups[n]
 		sorted, err := orderRows(t, xcol, x.values, rows)
 		if err != nil {
-			return nil, opt, nil, err
+			return nil, nil, err
 		}
 		if sorted != nil {
 			rows, sortedAny = sorted, true
@@ -342,7 +338,7 @@ func loadLines(path string, f *linesFlags, stdin io.Reader) ([]render.Series, re
 	if sortedAny {
 		notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted each series by %q: a line joins its points in x order", xcol)})
 	}
-	return series, opt, notes, nil
+	return series, notes, nil
 }
 
 // parseAt reads an --index point as a number or, on a time axis, a date.

@@ -132,26 +132,22 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		stdout = newSession(stdout)
 	}
 	if len(args) == 0 {
-		fmt.Fprintln(stderr, usage)
+		fmt.Fprintln(stderr, usage())
 		return exitUsage
 	}
 	switch args[0] {
 	case "help", "-h", "-help", "--help":
-		fmt.Fprintln(stdout, usage)
+		fmt.Fprintln(stdout, usage())
 		return exitOK
 	case "version", "-version", "--version":
 		fmt.Fprintln(stdout, version())
 		return exitOK
-	case "bars", "dots":
-		return runRows(args[0], args[1:], stdin, stdout, stderr)
-	case "lines":
-		return runLines(args[1:], stdin, stdout, stderr)
-	case "diff":
-		return runDiff(args[1:], stdin, stdout, stderr)
-	case "palette":
-		return runPalette(args[1:], stdin, stdout, stderr)
-	case "demo":
-		return runDemo(args[1:], stdout, stderr)
+	}
+	if cmd, ok := lookup(args[0]); ok {
+		if cmd.chart != nil {
+			return runChart(cmd, args[1:], stdin, stdout, stderr)
+		}
+		return cmd.run(args[1:], stdin, stdout, stderr)
 	}
 	printError(stderr, unknownChart(args[0]))
 	fmt.Fprintln(stderr, "Run 'plumb help' for the list of charts.")
@@ -160,7 +156,11 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 
 // commands are the names run accepts, for suggestions.
 func commands() []string {
-	return []string{"bars", "dots", "lines", "diff", "palette", "demo", "help", "version"}
+	var names []string
+	for _, c := range commandTable() {
+		names = append(names, c.name)
+	}
+	return append(names, "help", "version")
 }
 
 // notDrawn maps charts plumb deliberately does not draw to the command that
@@ -229,15 +229,13 @@ func version() string {
 	return out + " " + bi.GoVersion
 }
 
-const usage = `usage: plumb CHART [DATA] [flags]
+// usage is plumb's usage text; its list of charts comes from the command
+// table.
+func usage() string {
+	return "usage: plumb CHART [DATA] [flags]\n\ncharts:\n" + chartList() + usageNotes
+}
 
-charts:
-  bars      compare amounts (horizontal, sorted, from zero)
-  dots      compare values far from zero
-  lines     change over time or order, banked to 45°
-  diff      the difference of two series, a − b against zero
-  palette   show, make or check colour palettes
-  demo      render the built-in gallery (-o DIR)
+const usageNotes = `
 
 Notes on standard error say what plumb changed or left out, each naming its
 figure; --explain adds routine decisions, --quiet prints none.

@@ -48,14 +48,20 @@ func runPalette(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 }
 
 func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("palette "+kind, "[--n N] [--hue NAME] [--json] [--quiet] [-o FILE]", stderr)
-	n := fs.Int("n", 0, fmt.Sprintf("number of colours (categorical 1-%d, default %d; sequential and diverging %d-%d, default 7 and 9)",
-		palette.MaxCategorical, palette.MaxCategorical, palette.MinRamp, palette.MaxRamp))
-	hue := fs.String("hue", "", "sequential: "+strings.Join(palette.SequentialHues(), ", ")+
-		"; diverging: "+strings.Join(palette.DivergingHues(), ", "))
-	asJSON := fs.Bool("json", false, `print {"kind": ..., "colors": [...]} instead of a swatch sheet`)
-	out := fs.String("o", "", "output `FILE` (.svg, or any name with --json); default standard output")
-	fs.Bool("quiet", false, "accepted for symmetry with the charts: palettes print no notes")
+	var (
+		n            = new(int)
+		hue, out     = new(string), new(string)
+		asJSON, hush = new(bool), new(bool)
+	)
+	fs := newTableFlagSet("palette "+kind, "[--n N] [--hue NAME] [--json] [--quiet] [-o FILE]", []flagDef{
+		{name: "n", arg: "N", usage: fmt.Sprintf("number of colours (categorical 1-%d, default %d; sequential and diverging %d-%d, default 7 and 9)",
+			palette.MaxCategorical, palette.MaxCategorical, palette.MinRamp, palette.MaxRamp), value: intValue{n}},
+		{name: "hue", arg: "NAME", usage: "sequential: " + strings.Join(palette.SequentialHues(), ", ") +
+			"; diverging: " + strings.Join(palette.DivergingHues(), ", "), value: stringValue{hue}},
+		{name: "json", usage: `print {"kind": ..., "colors": [...]} instead of a swatch sheet`, value: boolValue{asJSON}},
+		{name: "o", arg: "FILE", usage: "output FILE (.svg, or any name with --json); default standard output", value: stringValue{out}},
+		{name: "quiet", usage: "accepted for symmetry with the charts: palettes print no notes", value: boolValue{hush}},
+	}, stderr)
 	pos, err := parse(fs, args)
 	if err != nil {
 		return exitCode(err, stderr)
@@ -144,11 +150,17 @@ type contrastJSON struct {
 }
 
 func runPaletteCheck(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("palette check", "[--background HEX] [--json] [--quiet] [-o FILE] COLOUR...", stderr)
-	bgFlag := fs.String("background", "#ffffff", "background `COLOUR` the marks sit on (#rgb or #rrggbb)")
-	asJSON := fs.Bool("json", false, "print the measurements as JSON")
-	quiet := fs.Bool("quiet", false, "print no report; the exit status says safe (0) or not (1)")
-	out := fs.String("o", "", "`FILE` for the JSON (with --json) or the SVG swatch sheet (.svg)")
+	var (
+		bgFlag, out   = new(string), new(string)
+		asJSON, quiet = new(bool), new(bool)
+	)
+	*bgFlag = "#ffffff"
+	fs := newTableFlagSet("palette check", "[--background HEX] [--json] [--quiet] [-o FILE] COLOUR...", []flagDef{
+		{name: "background", arg: "COLOUR", def: "#ffffff", usage: "background COLOUR the marks sit on (#rgb or #rrggbb)", value: stringValue{bgFlag}},
+		{name: "json", usage: "print the measurements as JSON", value: boolValue{asJSON}},
+		{name: "quiet", usage: "print no report; the exit status says safe (0) or not (1)", value: boolValue{quiet}},
+		{name: "o", arg: "FILE", usage: "FILE for the JSON (with --json) or the SVG swatch sheet (.svg)", value: stringValue{out}},
+	}, stderr)
 	pos, err := parse(fs, args)
 	if err != nil {
 		return exitCode(err, stderr)

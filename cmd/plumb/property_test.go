@@ -55,9 +55,9 @@ func TestChartsProperty(t *testing.T) {
 		case 0:
 			other := []render.OtherMode{render.OtherAuto, render.OtherSum, render.OtherMean, render.OtherNone}[rng.IntN(4)]
 			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Percent: !negative && rng.IntN(3) == 0,
-				Top: []int{-1, 0, 0, 2, 3, 5, 8, 12}[rng.IntN(8)], Other: other, Additive: rng.IntN(2) == 0})
+				RowOptions: render.RowOptions{Top: []int{-1, 0, 0, 2, 3, 5, 8, 12}[rng.IntN(8)], Other: other}, Additive: rng.IntN(2) == 0})
 		case 1:
-			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Vertical: true, Top: 6})
+			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Vertical: true, RowOptions: render.RowOptions{Top: 6}})
 		default:
 			_, err = render.Dots(&svg, labels, values, render.DotsOptions{Common: c})
 		}
