@@ -393,7 +393,7 @@ func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
 	return widest+c.f.spec.text <= step
 }
 
-func (c *rowChart) fill(r row) string {
+func (c *rowChart) fill(r row) Colour {
 	if r.highlight {
 		return c.f.th.accent
 	}
@@ -402,18 +402,17 @@ func (c *rowChart) fill(r row) string {
 
 // insideColour is the colour for value text inside a bar of this fill:
 // white, or else the text colour, whichever meets WCAG 2.x's 4.5:1 for
-// text; "" when neither does and the value must sit outside.
-func (c *rowChart) insideColour(fill string) string {
-	bar, err := palette.ParseHex(fill)
-	if err != nil {
-		return ""
+// text; None when neither does and the value must sit outside.
+func (c *rowChart) insideColour(fill Colour) Colour {
+	if fill.IsNone() {
+		return None
 	}
-	for _, t := range []string{c.f.th.inside, c.f.th.text} {
-		if tc, err := palette.ParseHex(t); err == nil && palette.Contrast(bar, tc) >= palette.MinTextContrast {
+	for _, t := range []Colour{c.f.th.inside, c.f.th.text} {
+		if palette.Contrast(fill.SRGB(), t.SRGB()) >= palette.MinTextContrast {
 			return t
 		}
 	}
-	return ""
+	return None
 }
 
 // layoutRows draws horizontal bars or dots, one row per category, and
@@ -574,7 +573,7 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 	k := (g.x1 - g.x0) / (c.d1 - c.d0)
 	changed := false
 	for i, r := range c.rows {
-		if math.Abs(r.value)*k >= vw[i]+2*sp.gap && c.insideColour(c.fill(r)) != "" {
+		if math.Abs(r.value)*k >= vw[i]+2*sp.gap && !c.insideColour(c.fill(r)).IsNone() {
 			inside[i], changed = true, true
 		}
 	}
@@ -596,7 +595,7 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	for i, t := range c.ticks.Values {
 		x := round2(g.xs.Map(t))
 		if !(t == 0 && !c.dots) {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1})
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
 		}
 		f.text(x, bottom+sp.gap+asc, labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
 	}
@@ -607,7 +606,7 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	}
 	f.scene.Add(Mark{Kind: GroupEnd})
 	if !c.dots {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
 	}
 	return axisBottom
 }
@@ -625,7 +624,7 @@ func (c *rowChart) markAttrs(r row) []Attr {
 }
 
 // labelFill is the colour of a category label: muted for the Other row.
-func (c *rowChart) labelFill(r row) string {
+func (c *rowChart) labelFill(r row) Colour {
 	if r.other > 0 {
 		return c.f.th.muted
 	}
@@ -655,7 +654,7 @@ func (c *rowChart) drawRow(g *rowGeom, i int, r row, lines []string, vtext strin
 	}
 	xv := round2(g.xs.Map(r.value))
 	if c.dots {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{g.x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Dash: "1 3"})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{g.x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Join: JoinRound, Cap: CapRound, Dash: []float64{1, 3}})
 		f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark", X: xv, Y: cy, R: g.radius, Fill: c.fill(r), Attrs: c.markAttrs(r)})
 		f.text(xv+g.radius+sp.gap, textY, vtext, sp.text, false, f.th.text, "plumb-value", Start)
 		return
@@ -810,13 +809,13 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	for i, t := range c.ticks.Values {
 		y := round2(ys.Map(t))
 		if t != 0 {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1})
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
 		}
 		f.text(plotL-sp.gap, y+(asc-desc)/2, labels[i], sp.text, false, f.th.muted, "plumb-tick", End)
 	}
 	f.scene.Add(Mark{Kind: GroupEnd})
 	zero := round2(ys.Map(0))
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
 
 	vtext, vw := c.valueTexts()
 	tooWide := func(w float64) bool { return w > band-2 }

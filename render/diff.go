@@ -43,12 +43,12 @@ func Diff(w io.Writer, x, a, b []float64, opt DiffOptions) ([]Note, error) {
 // scale, matched in lightness and no red/green pair. The areas are light
 // enough for text in the Text colour (7:1) and stay over 30 CIEDE2000
 // apart under all four visions (checked in diff_test.go).
-func diffColors() (areaA, areaB, lineA, lineB string) {
+func diffColors() (areaA, areaB, lineA, lineB Colour) {
 	p, err := palette.Diverging(7)
 	if err != nil || len(p) != 7 {
-		return palette.Accent().Hex(), palette.Neutral().Hex(), palette.Accent().Hex(), palette.Neutral().Hex()
+		return RGB(palette.Accent()), RGB(palette.Neutral()), RGB(palette.Accent()), RGB(palette.Neutral())
 	}
-	return p[4].Hex(), p[2].Hex(), p[5].Hex(), p[1].Hex()
+	return RGB(p[4]), RGB(p[2]), RGB(p[5]), RGB(p[1])
 }
 
 // DiffScene builds the difference chart's scene without writing it.
@@ -144,7 +144,7 @@ func (c *diffChart) layout() (float64, error) {
 	labelW := 0.0
 	if c.opt.Context {
 		yw = math.Max(yw, f.yLabelWidth(lvLo, lvHi, lk))
-		labels, labelW = f.directLabels([]string{c.opt.AName, c.opt.BName}, []string{lineA, lineB}, (f.width-2*sp.pad)*0.3)
+		labels, labelW = f.directLabels([]string{c.opt.AName, c.opt.BName}, []Colour{lineA, lineB}, (f.width-2*sp.pad)*0.3)
 	}
 	left, w, _, ax := f.fitPanelsX(math.Ceil(sp.pad+yw+sp.gap), labelW, 1, 0, xlo, xhi, xk)
 	if w < sp.text*8 {
@@ -222,7 +222,7 @@ func (c *diffChart) layout() (float64, error) {
 		f.scene.Add(Mark{Kind: GroupEnd})
 		for i, p := range []scale.Polyline{pa, pb} {
 			d := g.screen(p, ys)
-			f.addSeries("plumb-mark", series[i].Name, p, d, []string{lineA, lineB}[i], lw, c.opt.Time)
+			f.addSeries("plumb-mark", series[i].Name, p, d, []Colour{lineA, lineB}[i], lw, c.opt.Time)
 			if pt, ok := d.last(); ok {
 				labels[i].ex, labels[i].ey = pt.X, pt.Y
 			}
@@ -294,7 +294,7 @@ func (c *diffChart) layout() (float64, error) {
 	if len(neg) > 0 {
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-b", Lines: neg, Closed: true, Fill: areaB, Attrs: []Attr{{"series", c.opt.BName + " above " + c.opt.AName}}})
 	}
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{0, base}, {w, base}}}, Stroke: f.th.baseline, StrokeWidth: lw * 0.75})
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{0, base}, {w, base}}}, Stroke: f.th.baseline, StrokeWidth: lw * 0.75, Join: JoinRound, Cap: CapRound})
 	var dl [][]Point
 	for _, run := range pts {
 		var l []Point
@@ -335,7 +335,10 @@ func (c *diffChart) layout() (float64, error) {
 }
 
 // keyItem is one colour of a difference chart and what it means.
-type keyItem struct{ fill, above, below string }
+type keyItem struct {
+	fill         Colour
+	above, below string
+}
 
 // areaKey draws the key for the colours whose meaning no region label
 // gives, one row each under the axis from y; it returns the y under it.

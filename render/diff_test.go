@@ -18,10 +18,10 @@ func TestDiffColoursSurviveCVD(t *testing.T) {
 	// deutan and tritan vision (Machado, Oliveira & Fernandes 2009, full
 	// severity), and the labels on the areas keep 4.5:1 (WCAG 2.x).
 	areaA, areaB, lineA, lineB := diffColors()
-	for _, pair := range [][2]string{{areaA, areaB}, {lineA, lineB}} {
-		a, err := palette.ParseHex(pair[0])
+	for _, pair := range [][2]Colour{{areaA, areaB}, {lineA, lineB}} {
+		a, err := palette.ParseHex(pair[0].Hex())
 		require.NoError(t, err)
-		b, err := palette.ParseHex(pair[1])
+		b, err := palette.ParseHex(pair[1].Hex())
 		require.NoError(t, err)
 		for _, v := range palette.Visions {
 			d := palette.DeltaE2000(palette.SRGBToLab(palette.Simulate(a, v, 1)), palette.SRGBToLab(palette.Simulate(b, v, 1)))
@@ -29,8 +29,8 @@ func TestDiffColoursSurviveCVD(t *testing.T) {
 		}
 	}
 	text := palette.Text()
-	for _, h := range []string{areaA, areaB} {
-		c, _ := palette.ParseHex(h)
+	for _, h := range []Colour{areaA, areaB} {
+		c, _ := palette.ParseHex(h.Hex())
 		assert.GreaterOrEqual(t, palette.Contrast(text, c), 4.5, "label text on %s", h)
 	}
 }

@@ -69,7 +69,7 @@ type textLine struct {
 	text    string
 	size    float64
 	bold    bool
-	fill    string
+	fill    Colour
 	class   string
 	y       float64 // baseline, relative to its block
 	tooltip string
@@ -96,6 +96,7 @@ func newFrame(c Common) (*frame, error) {
 	f.scene = &Scene{Width: spec.width, Title: c.Title, Notes: slices.Clone(c.Notes)}
 	reg := f.fonts.Face(false)
 	f.scene.Font.Family = reg.Family() + ", sans-serif"
+	f.scene.Font.Faces = layout.Fonts{Regular: reg, Bold: f.fonts.Face(true)}
 	if c.EmbedFont {
 		f.scene.Font.Data = reg.Data()
 		f.scene.Font.Format = reg.Format()
@@ -124,7 +125,7 @@ func newFrame(c Common) (*frame, error) {
 }
 
 // block wraps text into lines below y and returns the y under the last line.
-func (f *frame) block(dst *[]textLine, y float64, text string, size float64, bold bool, fill, class string, width float64, maxLines int) float64 {
+func (f *frame) block(dst *[]textLine, y float64, text string, size float64, bold bool, fill Colour, class string, width float64, maxLines int) float64 {
 	if text == "" {
 		return y
 	}
@@ -181,7 +182,7 @@ func (f *frame) textMark(x, y float64, l textLine, a Anchor) Mark {
 }
 
 // text adds one line of text to the scene.
-func (f *frame) text(x, y float64, s string, size float64, bold bool, fill, class string, a Anchor) {
+func (f *frame) text(x, y float64, s string, size float64, bold bool, fill Colour, class string, a Anchor) {
 	f.scene.Add(Mark{Kind: Text, Class: class, X: x, Y: y, Text: s, Size: size, Bold: bold, Fill: fill, Anchor: a})
 }
 

@@ -465,9 +465,9 @@ func xValueText(x float64, k xKind) string {
 
 // seriesColors gives each series its colour: one series in Neutral, a few
 // in the categorical palette.
-func (c *lineChart) seriesColors() []string {
+func (c *lineChart) seriesColors() []Colour {
 	n := len(c.series)
-	out := make([]string, n)
+	out := make([]Colour, n)
 	if n == 1 {
 		out[0] = c.f.th.neutral
 		return out
@@ -480,7 +480,7 @@ func (c *lineChart) seriesColors() []string {
 			out[i] = c.f.th.neutral
 			continue
 		}
-		out[i] = p[i].Hex()
+		out[i] = RGB(p[i])
 	}
 	return out
 }
@@ -489,8 +489,8 @@ func (c *lineChart) seriesColors() []string {
 type endLabel struct {
 	lines  []string
 	full   string
-	color  string // the series colour
-	text   string // the text colour: the series' hue, darkened until it reads at 4.5:1
+	color  Colour // the series colour
+	text   Colour // the text colour: the series' hue, darkened until it reads at 4.5:1
 	ex, ey float64
 }
 
@@ -498,7 +498,7 @@ type endLabel struct {
 // right of the plot. Each label takes its series' hue, darkened in OKLCH
 // lightness until it meets the 4.5:1 text contrast of WCAG 2.x on the white
 // background, so that label and line read as one.
-func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, float64) {
+func (f *frame) directLabels(names []string, colors []Colour, maxW float64) ([]endLabel, float64) {
 	sp := f.spec
 	labels := make([]endLabel, len(names))
 	width := 0.0
@@ -509,10 +509,8 @@ func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, 
 			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
 		}
 		txt := f.th.text
-		if col, err := palette.ParseHex(colors[i]); err == nil {
-			if dark, ok := palette.DarkenToContrast(col, white, 4.5); ok {
-				txt = dark.Hex()
-			}
+		if dark, ok := palette.DarkenToContrast(colors[i].SRGB(), white, 4.5); ok {
+			txt = RGB(dark)
 		}
 		labels[i] = endLabel{lines: lines, full: n, color: colors[i], text: txt}
 		for _, l := range lines {
@@ -565,7 +563,7 @@ func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool 
 	for i, l := range labels {
 		y := got[i]
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(right + sp.gap/2), round2(l.ey)}, {round2(x - sp.gap/2), round2(y)}}},
-			Stroke: f.th.muted, StrokeWidth: 0.75, Attrs: []Attr{{"series", l.full}}})
+			Stroke: f.th.muted, StrokeWidth: 0.75, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", l.full}}})
 		tip := ""
 		if strings.Join(l.lines, " ") != l.full {
 			tip = l.full
@@ -590,7 +588,7 @@ func (f *frame) legend(labels []endLabel, left, y float64) float64 {
 	y += sp.gap
 	for _, l := range labels {
 		cy := y + lh/2
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2, Join: JoinRound, Cap: CapRound})
 		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sp.text*1.5 + sp.gap, Y: cy + (asc-desc)/2, Text: l.full, Size: sp.text, Fill: l.text,
 			Attrs: []Attr{{"series", l.full}}})
 		y += lh
@@ -603,7 +601,7 @@ func (f *frame) legend(labels []endLabel, left, y float64) float64 {
 // path, and every piece of a single point (a value between two missing
 // ones, which a path would not show) as a dot as wide as the line, with
 // the value it stands for.
-func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, color string, width float64, isTime bool) {
+func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, color Colour, width float64, isTime bool) {
 	width = round2(width)
 	var lines [][]Point
 	var dots []Mark
@@ -617,7 +615,7 @@ func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, col
 			Attrs: []Attr{{"series", name}, {"x", xData(p.X[j], isTime)}, {"value", dataNumber(p.Y[j])}}})
 	}
 	if len(lines) > 0 {
-		f.scene.Add(Mark{Kind: Path, Class: class, Lines: lines, Stroke: color, StrokeWidth: width, Attrs: []Attr{{"series", name}}})
+		f.scene.Add(Mark{Kind: Path, Class: class, Lines: lines, Stroke: color, StrokeWidth: width, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", name}}})
 	}
 	f.scene.Add(dots...)
 }
@@ -697,7 +695,7 @@ func (c *lineChart) drawBase(ys scale.Linear, left, right float64) {
 		return
 	}
 	y := round2(ys.Map(100))
-	c.f.scene.Add(Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: c.f.th.baseline, StrokeWidth: 1,
+	c.f.scene.Add(Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: c.f.th.baseline, StrokeWidth: 1, Join: JoinRound, Cap: CapRound,
 		Attrs: []Attr{{"label", "index base"}, {"value", "100"}}})
 }
 

@@ -280,15 +280,15 @@ func TestLinesLabelsMatchTheirLines(t *testing.T) {
 	}
 	s, err := LinesScene(series, LinesOptions{})
 	require.NoError(t, err)
-	lineColor := map[string]string{}
+	lineColor := map[string]Colour{}
 	for _, m := range marksOf(s, "plumb-mark") {
 		lineColor[dataAttr(m, "series")] = m.Stroke
 	}
 	white := palette.SRGB{R: 1, G: 1, B: 1}
 	for _, l := range marksOf(s, "plumb-label") {
-		fill, err := palette.ParseHex(l.Fill)
+		fill, err := palette.ParseHex(l.Fill.Hex())
 		require.NoError(t, err)
-		line, err := palette.ParseHex(lineColor[dataAttr(l, "series")])
+		line, err := palette.ParseHex(lineColor[dataAttr(l, "series")].Hex())
 		require.NoError(t, err)
 		// WCAG 2.x text contrast.
 		assert.GreaterOrEqual(t, palette.Contrast(fill, white), 4.5, "%s in %s", l.Text, l.Fill)
