@@ -16,34 +16,18 @@ import (
 // values at the bar ends, every category unless the values are parts of a
 // whole (then at most DefaultTop bars, the rest summed into Other).
 type BarsOptions struct {
-	Common
-	Order     Order     // ByValue (default), ByLabel or ByData
-	Top       int       // most bars to draw; 0 chooses (see Other), negative draws all
-	Other     OtherMode // what becomes of the categories beyond Top; OtherAuto by default
-	Additive  bool      // the values are parts of a whole (counts, sums), so Other may sum them
-	Vertical  bool      // stand the bars up; labels then sit under narrow columns
-	Percent   bool      // show each value as a share of the total
-	Highlight []string  // labels drawn in the accent colour
-	From, To  *float64  // widen the value domain; bars always include zero
-	Unit      string    // "%", "kg": said once, in the axis title and on the first value label; a currency sign leads every value ("$5")
-	ValueName string    // what the values measure, for the axis and the description
-	LabelName string    // what the categories are, for the description
-	Averages  bool      // values are means, medians or extremes: never Additive, and an automatic Other averages them
+	RowOptions
+	Additive bool // the values are parts of a whole (counts, sums), so Other may sum them
+	Vertical bool // stand the bars up; labels then sit under narrow columns
+	Percent  bool // show each value as a share of the total
 }
 
 // DotsOptions configures a dot plot: like bars, but values are positions, so
-// the domain fits the data and need not include zero.
+// the domain fits the data and need not include zero. From and To set the
+// domain but may not hide any value; Top 0 means DefaultDotsTop; OtherSum
+// is refused, for a dot is a position, not an amount.
 type DotsOptions struct {
-	Common
-	Order     Order
-	Top       int       // most dots to draw; 0 means DefaultDotsTop, negative draws all
-	Other     OtherMode // OtherAuto and OtherNone leave the rest out with a note; OtherMean folds them; OtherSum is refused: a dot is a position, not an amount
-	Highlight []string
-	From, To  *float64 // set the domain; they may not hide any value
-	Unit      string
-	ValueName string
-	LabelName string
-	Averages  bool // as for bars: an Other dot (OtherMean) is always a mean
+	RowOptions
 }
 
 // Bars draws a bar chart of values by label and writes it as SVG to w. It
@@ -255,24 +239,40 @@ func (c *rowChart) rowsThatFit() int {
 
 // toShares turns values into percentages of their total.
 func (c *rowChart) toShares() error {
+	// Values near the largest float64 overflow their total to +Inf (and
+	// every share to NaN): then sum them scaled by the largest.
+	big, plain := 1.0, 0.0
+	for _, r := range c.rows {
+		plain += r.value
+	}
+	if math.IsInf(plain, 0) {
+		for _, r := range c.rows {
+			big = math.Max(big, math.Abs(r.value))
+		}
+	}
 	total := 0.0
 	for _, r := range c.rows {
 		if r.value < 0 {
-			return &refusal{
-				reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
-				instead: "shares need values of one sign; drop --percent to draw the values themselves",
+			return &RefusalError{
+				Reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
+				Instead: "shares need values of one sign; drop --percent to draw the values themselves",
 			}
 		}
-		total += r.value
+		total += r.value / big
 	}
 	if total == 0 {
-		return &refusal{reason: "cannot show shares: the values add up to zero", instead: "drop --percent"}
+		return &RefusalError{Reason: "cannot show shares: the values add up to zero", Instead: "drop --percent"}
 	}
 	for i := range c.rows {
-		c.rows[i].value = 100 * c.rows[i].value / total
+		c.rows[i].value = 100 * (c.rows[i].value / big) / total
 	}
+	total *= big
 	c.unit = "%"
-	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", scale.ValueFormat([]float64{total}, "").Format(total)))
+	totalText := scale.ValueFormat([]float64{total}, "").Format(total)
+	if math.IsInf(total, 0) {
+		totalText = fmt.Sprintf("more than %.1e", math.MaxFloat64)
+	}
+	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", totalText))
 	return nil
 }
 
@@ -287,17 +287,17 @@ func (c *rowChart) domain() error {
 		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
 		if c.from != nil && *c.from > lo {
 			why := fmt.Sprintf("a bar chart starting at %s would cut %s", c.numText(*c.from), c.cutWhat(lo))
-			return &refusal{reason: why, instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}
+			return &RefusalError{Reason: why, Instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}
 		}
 		if c.to != nil && *c.to < hi {
-			return &refusal{reason: fmt.Sprintf("--to %s would cut bars that reach %s", c.numText(*c.to), c.numText(hi)), instead: "give --to at or beyond the largest value, or leave it out"}
+			return &RefusalError{Reason: fmt.Sprintf("--to %s would cut bars that reach %s", c.numText(*c.to), c.numText(hi)), Instead: "give --to at or beyond the largest value, or leave it out"}
 		}
 	} else {
 		if c.from != nil && *c.from > lo {
-			return &refusal{reason: fmt.Sprintf("--from %s would hide values down to %s", c.numText(*c.from), c.numText(lo)), instead: "give --from at or below the smallest value, or leave it out"}
+			return &RefusalError{Reason: fmt.Sprintf("--from %s would hide values down to %s", c.numText(*c.from), c.numText(lo)), Instead: "give --from at or below the smallest value, or leave it out"}
 		}
 		if c.to != nil && *c.to < hi {
-			return &refusal{reason: fmt.Sprintf("--to %s would hide values up to %s", c.numText(*c.to), c.numText(hi)), instead: "give --to at or above the largest value, or leave it out"}
+			return &RefusalError{Reason: fmt.Sprintf("--to %s would hide values up to %s", c.numText(*c.to), c.numText(hi)), Instead: "give --to at or above the largest value, or leave it out"}
 		}
 	}
 	if c.from != nil {

@@ -45,7 +45,7 @@ func TestBarsDrawEveryMedian(t *testing.T) {
 	}
 	// On a slide the canvas is fixed: the largest that fit, and the rest
 	// named in a note and under the chart.
-	s, err = BarsScene(labels, values, BarsOptions{Common: Common{Medium: Slide}})
+	s, err = BarsScene(labels, values, BarsOptions{RowOptions: RowOptions{Common: Common{Medium: Slide}}})
 	require.NoError(t, err)
 	drawn := countClass(s, Rect, "plumb-mark")
 	assert.Less(t, drawn, 200)
@@ -68,11 +68,11 @@ func TestOtherModes(t *testing.T) {
 		wantLeftOn bool
 	}{
 		{BarsOptions{}, 20, false, false},
-		{BarsOptions{Top: 5}, 5, false, true},
-		{BarsOptions{Top: 5, Other: OtherMean}, 5, true, false},
+		{BarsOptions{RowOptions: RowOptions{Top: 5}}, 5, false, true},
+		{BarsOptions{RowOptions: RowOptions{Top: 5, Other: OtherMean}}, 5, true, false},
 		{BarsOptions{Additive: true}, DefaultTop, true, false},
-		{BarsOptions{Additive: true, Other: OtherNone}, 20, false, false},
-		{BarsOptions{Top: 5, Highlight: []string{labels[0], labels[1], labels[2], labels[3], labels[4], labels[5]}}, 6, false, true},
+		{BarsOptions{RowOptions: RowOptions{Other: OtherNone}, Additive: true}, 20, false, false},
+		{BarsOptions{RowOptions: RowOptions{Top: 5, Highlight: []string{labels[0], labels[1], labels[2], labels[3], labels[4], labels[5]}}}, 6, false, true},
 	} {
 		s, err := BarsScene(labels, values, tc.opt)
 		require.NoError(t, err)
@@ -85,7 +85,7 @@ func TestOtherModes(t *testing.T) {
 		assert.Equal(t, tc.other, other, "%+v", tc.opt)
 		assert.Equal(t, tc.wantLeftOn, left, "%+v", tc.opt)
 	}
-	_, err := DotsScene(labels, values, DotsOptions{Other: OtherSum})
+	_, err := DotsScene(labels, values, DotsOptions{RowOptions: RowOptions{Other: OtherSum}})
 	assert.Error(t, err, "dots are positions, never summed")
 }
 
@@ -155,7 +155,7 @@ func TestAxisTitleSaysUnitOnce(t *testing.T) {
 
 func TestDotsOnSlideLeaveOutWhatDoesNotFit(t *testing.T) {
 	labels, values := medians(60)
-	s, err := DotsScene(labels, values, DotsOptions{Common: Common{Medium: Slide}})
+	s, err := DotsScene(labels, values, DotsOptions{RowOptions: RowOptions{Common: Common{Medium: Slide}}})
 	require.NoError(t, err)
 	drawn := countClass(s, Circle, "plumb-mark")
 	assert.Less(t, drawn, DefaultDotsTop)
@@ -178,7 +178,7 @@ func TestColumnsKeepTheirValues(t *testing.T) {
 	// A small value beside six-digit ones: in full ("$118,750") the labels
 	// are wider than the columns, and a shared k would print it "$1k".
 	values[11] = 950
-	s, err := BarsScene(labels, values, BarsOptions{Vertical: true, Order: ByData, Unit: "$"})
+	s, err := BarsScene(labels, values, BarsOptions{RowOptions: RowOptions{Order: ByData, Unit: "$"}, Vertical: true})
 	require.NoError(t, err)
 	var texts []string
 	for _, m := range s.Marks {

@@ -17,11 +17,11 @@ func ExampleBars() {
 	revenue := []float64{120, 340, 95, 410}
 
 	var svg bytes.Buffer
-	notes, err := render.Bars(&svg, regions, revenue, render.BarsOptions{
+	notes, err := render.Bars(&svg, regions, revenue, render.BarsOptions{RowOptions: render.RowOptions{
 		Common:    render.Common{Title: "Revenue by region", Source: "Quarterly report"},
 		ValueName: "revenue",
 		LabelName: "region",
-	})
+	}})
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -34,7 +34,7 @@ func ExampleBars() {
 // alternative in the message.
 func ExampleBars_refused() {
 	from := 80.0
-	_, err := render.Bars(os.Stdout, []string{"a", "b"}, []float64{90, 100}, render.BarsOptions{From: &from})
+	_, err := render.Bars(os.Stdout, []string{"a", "b"}, []float64{90, 100}, render.BarsOptions{RowOptions: render.RowOptions{From: &from}})
 	fmt.Println(errors.Is(err, render.ErrRefused))
 	fmt.Println(err)
 	// Output:
@@ -49,14 +49,14 @@ func ExampleBars_other() {
 	values := []float64{60, 50, 40, 3, 2, 1}
 	var svg bytes.Buffer
 	// Counts are parts of a whole: the smallest may be summed into Other.
-	notes, err := render.Bars(&svg, labels, values, render.BarsOptions{Top: 4, Additive: true})
+	notes, err := render.Bars(&svg, labels, values, render.BarsOptions{RowOptions: render.RowOptions{Top: 4}, Additive: true})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	fmt.Println(notes[0])
 	// Medians are not: the smallest are left out, and the chart says so.
-	notes, err = render.Bars(&svg, labels, values, render.BarsOptions{Top: 4})
+	notes, err = render.Bars(&svg, labels, values, render.BarsOptions{RowOptions: render.RowOptions{Top: 4}})
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -72,7 +72,7 @@ func ExampleBars_other() {
 func ExampleDots() {
 	routes := []string{"Harbour", "Point", "Sound"}
 	onTime := []float64{91.5, 88, 96.2}
-	s, err := render.DotsScene(routes, onTime, render.DotsOptions{Unit: "%", ValueName: "on time"})
+	s, err := render.DotsScene(routes, onTime, render.DotsOptions{RowOptions: render.RowOptions{Unit: "%", ValueName: "on time"}})
 	if err != nil {
 		fmt.Println(err)
 		return

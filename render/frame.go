@@ -34,13 +34,6 @@ type Common struct {
 // chart, so that callers can tell a refusal from bad input with errors.Is.
 var ErrRefused = errors.New("refused")
 
-// refusal is a chart plumb will not draw, with the reason and the honest
-// alternative.
-type refusal struct{ reason, instead string }
-
-func (r *refusal) Error() string { return r.reason + "; " + r.instead }
-func (r *refusal) Unwrap() error { return ErrRefused }
-
 // frame lays out the parts every chart has: title and subtitle above,
 // source and note below, the plot in between.
 type frame struct {

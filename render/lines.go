@@ -116,8 +116,8 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	c.kinds()
 	multiples := len(series) > MaxTogether && !c.opt.Together
 	if multiples && len(series) > MaxPanels {
-		return nil, &refusal{reason: fmt.Sprintf("%d series are too many to compare, on one panel or in a grid of %d small multiples (at most %d panels)", len(series), len(series), MaxPanels),
-			instead: "highlight a few: draw the ones that matter (--y, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
+		return nil, &RefusalError{Reason: fmt.Sprintf("%d series are too many to compare, on one panel or in a grid of %d small multiples (at most %d panels)", len(series), len(series), MaxPanels),
+			Instead: "highlight a few: draw the ones that matter (--y, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
 	}
 	switch {
 	case multiples:
@@ -381,17 +381,17 @@ func indexBase(s Series, at *float64, isTime bool) (float64, error) {
 	} else {
 		base = interpolateAt(s, *at)
 		if math.IsNaN(base) {
-			return 0, &refusal{reason: fmt.Sprintf("series %q has no value at the index point (outside its range, or missing there)", s.Name),
-				instead: "choose an index point inside every series where both neighbours have values"}
+			return 0, &RefusalError{Reason: fmt.Sprintf("series %q has no value at the index point (outside its range, or missing there)", s.Name),
+				Instead: "choose an index point inside every series where both neighbours have values"}
 		}
 	}
 	if base == 0 || math.IsNaN(base) {
-		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q to 100 at a value of %v", s.Name, base),
-			instead: "index at a point where every series is non-zero (--index-at), or compare the values themselves"}
+		return 0, &RefusalError{Reason: fmt.Sprintf("cannot index series %q to 100 at a value of %v", s.Name, base),
+			Instead: "index at a point where every series is non-zero (--index-at), or compare the values themselves"}
 	}
 	if base < 0 {
-		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q at a negative value: the index would run backwards", s.Name),
-			instead: "index at a point where every series is positive, or plot the differences with plumb diff"}
+		return 0, &RefusalError{Reason: fmt.Sprintf("cannot index series %q at a negative value: the index would run backwards", s.Name),
+			Instead: "index at a point where every series is positive, or plot the differences with plumb diff"}
 	}
 	return base, nil
 }
@@ -671,9 +671,9 @@ func (c *lineChart) reduceWithin(g lineGeom, limit int) ([]scale.Polyline, int, 
 		before, after, bridged = before+len(s.X), after+len(polys[i].X), bridged+b
 	}
 	if after > limit {
-		return nil, 0, &refusal{reason: fmt.Sprintf("%s series draw %s points even after reduction to the pixel columns, more than the %s one figure draws",
+		return nil, 0, &RefusalError{Reason: fmt.Sprintf("%s series draw %s points even after reduction to the pixel columns, more than the %s one figure draws",
 			scale.Format{Group: true}.Format(float64(len(c.series))), scale.Format{Group: true}.Format(float64(after)), scale.Format{Group: true}.Format(float64(limit))),
-			instead: "aggregate the series (a mean or median per x), filter to the few that matter, or draw groups of them in separate figures"}
+			Instead: "aggregate the series (a mean or median per x), filter to the few that matter, or draw groups of them in separate figures"}
 	}
 	if after < before {
 		c.f.scene.Note("reduced", false, reduceNote(before, after))

@@ -90,8 +90,8 @@ func TestCombineTail(t *testing.T) {
 func TestRefusals(t *testing.T) {
 	from, to := 50.0, 10.0
 	for name, opt := range map[string]BarsOptions{
-		"from cuts bars":      {From: &from},
-		"to cuts bars":        {To: &to},
+		"from cuts bars":      {RowOptions: RowOptions{From: &from}},
+		"to cuts bars":        {RowOptions: RowOptions{To: &to}},
 		"percent of negative": {Percent: true},
 	} {
 		t.Run(name, func(t *testing.T) {
@@ -100,7 +100,7 @@ func TestRefusals(t *testing.T) {
 			assert.True(t, errors.Is(err, ErrRefused), "%v", err)
 		})
 	}
-	_, err := DotsScene([]string{"a", "b"}, []float64{60, 40}, DotsOptions{From: &from})
+	_, err := DotsScene([]string{"a", "b"}, []float64{60, 40}, DotsOptions{RowOptions: RowOptions{From: &from}})
 	assert.True(t, errors.Is(err, ErrRefused), "dots may not hide values: %v", err)
 }
 
@@ -117,7 +117,7 @@ func TestBadInput(t *testing.T) {
 		_, err := BarsScene(tc.labels, tc.values, BarsOptions{})
 		assert.Error(t, err, name)
 	}
-	_, err := BarsScene([]string{"North"}, []float64{1}, BarsOptions{Highlight: []string{"Nroth"}})
+	_, err := BarsScene([]string{"North"}, []float64{1}, BarsOptions{RowOptions: RowOptions{Highlight: []string{"Nroth"}}})
 	require.Error(t, err)
 	assert.Contains(t, err.Error(), `did you mean "North"`)
 }
@@ -128,7 +128,7 @@ func TestTextSizesPerMedium(t *testing.T) {
 	minimum := map[Medium]float64{Print: 7 * 96.0 / 72, Screen: 12, Slide: 24}
 	labels := []string{"Saltmarrow Point to Kettlewick Harbour via Little Osk", "b", "c"}
 	for m, least := range minimum {
-		s, err := BarsScene(labels, []float64{3, 2, -1}, BarsOptions{Common: Common{Medium: m, Title: "T", Subtitle: "S", Source: "src", Note: "n"}})
+		s, err := BarsScene(labels, []float64{3, 2, -1}, BarsOptions{RowOptions: RowOptions{Common: Common{Medium: m, Title: "T", Subtitle: "S", Source: "src", Note: "n"}}})
 		require.NoError(t, err)
 		for _, mk := range s.Marks {
 			if mk.Kind == Text {
@@ -143,7 +143,7 @@ func TestTextSizesPerMedium(t *testing.T) {
 }
 
 func TestEmbedFont(t *testing.T) {
-	s, err := BarsScene([]string{"a"}, []float64{1}, BarsOptions{Common: Common{EmbedFont: true}})
+	s, err := BarsScene([]string{"a"}, []float64{1}, BarsOptions{RowOptions: RowOptions{Common: Common{EmbedFont: true}}})
 	require.NoError(t, err)
 	require.NotEmpty(t, s.Font.Data)
 	var b strings.Builder

@@ -53,11 +53,11 @@ func TestSVGFragment(t *testing.T) {
 // ids when they sit on one page; the same chart twice gives the same id.
 func TestSceneIDsDifferWhenAnyMarkDiffers(t *testing.T) {
 	labels := []string{"a", "b", "c"}
-	s1, err := BarsScene(labels, []float64{3, 2, 1}, BarsOptions{Order: ByData})
+	s1, err := BarsScene(labels, []float64{3, 2, 1}, BarsOptions{RowOptions: RowOptions{Order: ByData}})
 	require.NoError(t, err)
-	s2, err := BarsScene(labels, []float64{3, 2.5, 1}, BarsOptions{Order: ByData})
+	s2, err := BarsScene(labels, []float64{3, 2.5, 1}, BarsOptions{RowOptions: RowOptions{Order: ByData}})
 	require.NoError(t, err)
-	s3, err := BarsScene(labels, []float64{3, 2, 1}, BarsOptions{Order: ByData})
+	s3, err := BarsScene(labels, []float64{3, 2, 1}, BarsOptions{RowOptions: RowOptions{Order: ByData}})
 	require.NoError(t, err)
 	id1 := sceneIDOf(t, encode(t, SVGEncoder{}, s1))
 	id2 := sceneIDOf(t, encode(t, SVGEncoder{}, s2))
@@ -66,7 +66,7 @@ func TestSceneIDsDifferWhenAnyMarkDiffers(t *testing.T) {
 	assert.Equal(t, id1, id3)
 
 	// The same chart for two media differs too.
-	p, err := BarsScene(labels, []float64{3, 2, 1}, BarsOptions{Order: ByData, Common: Common{Medium: Print}})
+	p, err := BarsScene(labels, []float64{3, 2, 1}, BarsOptions{RowOptions: RowOptions{Order: ByData, Common: Common{Medium: Print}}})
 	require.NoError(t, err)
 	assert.NotEqual(t, id1, sceneIDOf(t, encode(t, SVGEncoder{}, p)))
 
@@ -76,7 +76,7 @@ func TestSceneIDsDifferWhenAnyMarkDiffers(t *testing.T) {
 
 // A page declares an embedded font once and has each chart refer to it.
 func TestSVGSharedFontDeclaration(t *testing.T) {
-	s, err := BarsScene([]string{"a"}, []float64{1}, BarsOptions{Common: Common{EmbedFont: true}})
+	s, err := BarsScene([]string{"a"}, []float64{1}, BarsOptions{RowOptions: RowOptions{Common: Common{EmbedFont: true}}})
 	require.NoError(t, err)
 	out := encode(t, SVGEncoder{Fragment: true, FontDeclared: true}, s)
 	assert.NotContains(t, out, "@font-face")

@@ -88,17 +88,13 @@ func runRows(chart string, args []string, stdin io.Reader, stdout, stderr io.Wri
 	// single value per label may be a median or a rate, which never adds.
 	additive := f.percent || (aggGiven && !averages) || (f.agg == "sum" && len(d.repeated) > 0)
 	return emit(chart, &f.shared, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
-		if dots {
-			return render.Dots(w, d.labels, d.values, render.DotsOptions{
-				Common: c, Order: render.Order(f.order), Top: f.top, Other: render.OtherMode(f.other), Highlight: f.highlight,
-				From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name, LabelName: d.labelCol, Averages: averages,
-			})
+		row := render.RowOptions{
+			Common: c, Order: render.Order(f.order), Top: f.top, Other: render.OtherMode(f.other), Highlight: f.highlight,
+			From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name, LabelName: d.labelCol, Averages: averages,
 		}
-		return render.Bars(w, d.labels, d.values, render.BarsOptions{
-			Common: c, Order: render.Order(f.order), Top: f.top, Other: render.OtherMode(f.other), Additive: additive,
-			Vertical: f.vertical, Percent: f.percent,
-			Highlight: f.highlight, From: f.from.v, To: f.to.v, Unit: f.unit, ValueName: name,
-			LabelName: d.labelCol, Averages: averages,
-		})
+		if dots {
+			return render.Dots(w, d.labels, d.values, render.DotsOptions{RowOptions: row})
+		}
+		return render.Bars(w, d.labels, d.values, render.BarsOptions{RowOptions: row, Additive: additive, Vertical: f.vertical, Percent: f.percent})
 	})
 }

@@ -54,12 +54,12 @@ func TestChartsProperty(t *testing.T) {
 		switch kind {
 		case 0:
 			other := []render.OtherMode{render.OtherAuto, render.OtherSum, render.OtherMean, render.OtherNone}[rng.IntN(4)]
-			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Percent: !negative && rng.IntN(3) == 0,
-				Top: []int{-1, 0, 0, 2, 3, 5, 8, 12}[rng.IntN(8)], Other: other, Additive: rng.IntN(2) == 0})
+			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Percent: !negative && rng.IntN(3) == 0,
+				RowOptions: render.RowOptions{Common: c, Top: []int{-1, 0, 0, 2, 3, 5, 8, 12}[rng.IntN(8)], Other: other}, Additive: rng.IntN(2) == 0})
 		case 1:
-			_, err = render.Bars(&svg, labels, values, render.BarsOptions{Common: c, Vertical: true, Top: 6})
+			_, err = render.Bars(&svg, labels, values, render.BarsOptions{RowOptions: render.RowOptions{Common: c, Top: 6}, Vertical: true})
 		default:
-			_, err = render.Dots(&svg, labels, values, render.DotsOptions{Common: c})
+			_, err = render.Dots(&svg, labels, values, render.DotsOptions{RowOptions: render.RowOptions{Common: c}})
 		}
 		if err != nil {
 			// Only a figure too small for its rows may be declined.
