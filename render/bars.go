@@ -99,6 +99,9 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	if err := checkRows(labels, values); err != nil {
 		return nil, err
 	}
+	if err := firstError(checkFinite("From", c.from), checkFinite("To", c.to)); err != nil {
+		return nil, err
+	}
 	f, err := newFrame(c.Common)
 	if err != nil {
 		return nil, err

@@ -73,8 +73,11 @@ func newFrame(c Common) (*frame, error) {
 	if err != nil {
 		return nil, err
 	}
-	if c.Width < 0 || c.Height < 0 || math.IsNaN(c.Width) || math.IsNaN(c.Height) {
-		return nil, fmt.Errorf("size %gx%g: width and height must be positive", c.Width, c.Height)
+	if err := checkSize("Width", c.Width); err != nil {
+		return nil, err
+	}
+	if err := checkSize("Height", c.Height); err != nil {
+		return nil, err
 	}
 	if c.Width > 0 {
 		spec.width = c.Width

@@ -18,8 +18,9 @@ import (
 // Series is one line of a line chart: Y over X, in X order. A NaN in Y is a
 // missing value: the line breaks there and is never joined across.
 type Series struct {
-	Name string
-	X, Y []float64
+	Name  string
+	X, Y  []float64
+	times bool // X holds instants as Unix seconds: made by TimeSeries
 }
 
 // LinesOptions configures a line chart. The zero value draws the honest
@@ -28,7 +29,7 @@ type Series struct {
 type LinesOptions struct {
 	Common
 	// Time says X holds instants as Unix seconds (UTC): the x axis then gets
-	// calendar ticks.
+	// calendar ticks. Series made by TimeSeries need no flag.
 	Time bool
 	// Aspect chooses the plot's height for its width: "" banks to 45° by
 	// median absolute slope (Cleveland, McGill & McGill 1988),
@@ -87,7 +88,13 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	if err != nil {
 		return nil, err
 	}
+	if err := checkFinite("IndexAt", c.opt.IndexAt); err != nil {
+		return nil, err
+	}
 	c.bank = banking{method: method, forced: forced}
+	if c.opt.Time, err = timeAxis(c.opt.Time, in...); err != nil {
+		return nil, err
+	}
 	series, notes, err := cleanSeries(in)
 	if err != nil {
 		return nil, err
@@ -100,6 +107,9 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	f.scene.Notes = append(f.scene.Notes, notes...)
 	c.series = series
 	c.xk = xKindOf(c.xs(), c.opt.Time)
+	if c.opt.Time {
+		f.noteMilliseconds(dataRange(c.xs()...))
+	}
 	if c.opt.Index || c.opt.IndexAt != nil {
 		if series, err = c.rebase(series); err != nil {
 			return nil, err
@@ -357,6 +367,13 @@ func (c *lineChart) rebase(series []Series) ([]Series, error) {
 		y := make([]float64, len(s.Y))
 		for j, v := range s.Y {
 			y[j] = 100 * v / base
+			if math.IsInf(y[j], 0) { // 100 * v overflowed, or v / base did
+				y[j] = 100 * (v / base)
+			}
+			if math.IsInf(y[j], 0) {
+				return nil, &RefusalError{Reason: fmt.Sprintf("cannot index series %q at %v: its values reach more than %.1e times that base, beyond the range of numbers", s.Name, base, math.MaxFloat64/100),
+					Instead: "index at a larger value of the series (IndexAt), or compare the values themselves"}
+			}
 		}
 		out[i] = Series{Name: s.Name, X: s.X, Y: y}
 	}

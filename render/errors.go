@@ -1,0 +1,81 @@
+package render
+
+import (
+	"errors"
+	"fmt"
+	"math"
+)
+
+// A RefusalError is a chart plumb will not draw because it would mislead,
+// with the reason and the honest alternative. It unwraps to ErrRefused, so
+// that errors.Is(err, ErrRefused) tells a refusal from bad input, and
+// errors.As gives a caller the two parts to show separately.
+type RefusalError struct {
+	Reason  string // what is wrong with the request, with the numbers involved
+	Instead string // what to draw or ask for instead
+}
+
+func (r *RefusalError) Error() string { return r.Reason + "; " + r.Instead }
+
+// Unwrap returns ErrRefused.
+func (r *RefusalError) Unwrap() error { return ErrRefused }
+
+// An OptionError is an option whose value cannot be drawn: a size that is
+// not a finite positive number, a bound that is NaN. Option is the name of
+// the options field as a Go caller writes it ("Width", "IndexAt"), so that a
+// front end can map it to its own spelling, such as a command-line flag.
+type OptionError struct {
+	Option string // the Go field name, e.g. "Width"
+	Err    error  // what is wrong with its value
+}
+
+func (e *OptionError) Error() string { return "option " + e.Option + ": " + e.Err.Error() }
+
+// Unwrap returns the cause.
+func (e *OptionError) Unwrap() error { return e.Err }
+
+// ErrNotFinite is the cause of an OptionError for a NaN or infinite number.
+var ErrNotFinite = errors.New("must be a finite number")
+
+// ErrNegative is the cause of an OptionError for a negative size.
+var ErrNegative = errors.New("must not be negative")
+
+// ErrTooLarge is the cause of an OptionError for a size beyond MaxSize.
+var ErrTooLarge = fmt.Errorf("must be at most %d px", MaxSize)
+
+// MaxSize is the largest canvas side in pixels: far beyond any screen or
+// poster at print resolution, and small enough that every coordinate keeps
+// its two decimals in a float64.
+const MaxSize = 100000
+
+// checkSize validates a size in pixels where 0 means "choose".
+func checkSize(name string, v float64) error {
+	switch {
+	case math.IsNaN(v) || math.IsInf(v, 0):
+		return &OptionError{Option: name, Err: fmt.Errorf("%v %w", v, ErrNotFinite)}
+	case v < 0:
+		return &OptionError{Option: name, Err: fmt.Errorf("%v %w", v, ErrNegative)}
+	case v > MaxSize:
+		return &OptionError{Option: name, Err: fmt.Errorf("%v %w", v, ErrTooLarge)}
+	}
+	return nil
+}
+
+// checkFinite validates an optional number such as a domain bound.
+func checkFinite(name string, v *float64) error {
+	if v != nil && (math.IsNaN(*v) || math.IsInf(*v, 0)) {
+		return &OptionError{Option: name, Err: fmt.Errorf("%v %w", *v, ErrNotFinite)}
+	}
+	return nil
+}
+
+// firstError returns the first error that is not nil, so that validation
+// reports one option at a time, in the order the options are documented.
+func firstError(errs ...error) error {
+	for _, err := range errs {
+		if err != nil {
+			return err
+		}
+	}
+	return nil
+}
