@@ -99,7 +99,7 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	if err := checkRows(labels, values); err != nil {
 		return nil, err
 	}
-	if err := firstError(checkFinite("From", c.from), checkFinite("To", c.to)); err != nil {
+	if err := firstError(checkFinite("From", c.from), checkFinite("To", c.to), checkSpan("values and bounds", values, bounds(c.from, c.to))); err != nil {
 		return nil, err
 	}
 	f, err := newFrame(c.Common)
@@ -267,7 +267,11 @@ func (c *rowChart) toShares() error {
 		return &RefusalError{Reason: "cannot show shares: the values add up to zero", Instead: "drop --percent"}
 	}
 	for i := range c.rows {
-		c.rows[i].value = 100 * (c.rows[i].value / big) / total
+		share := 100 * (c.rows[i].value / big) / total
+		if math.IsInf(share, 0) { // 100 * value overflowed
+			share = 100 * (c.rows[i].value / big / total)
+		}
+		c.rows[i].value = share
 	}
 	total *= big
 	c.unit = "%"
@@ -388,7 +392,7 @@ func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
 	if span <= 0 {
 		return true
 	}
-	step := length * (t.Values[1] - t.Values[0]) / span
+	step := length * ((t.Values[1] - t.Values[0]) / span) // a step near 1e308 times length overflows
 	widest := 0.0
 	for _, l := range labels {
 		widest = math.Max(widest, c.f.measure(l, c.f.spec.text, false))

@@ -79,6 +79,9 @@ func DiffScene(a, b Series, opt DiffOptions) (*Scene, error) {
 	d := make([]float64, len(x))
 	for i := range x {
 		d[i] = av[i] - bv[i] // NaN when either is missing: a gap
+		if math.IsInf(d[i], 0) {
+			return nil, fmt.Errorf("%s − %s at x = %g is beyond the largest number (%.1e): divide both series by a power of ten first", opt.aName, opt.bName, x[i], math.MaxFloat64)
+		}
 	}
 	if _, _, ok := dataRange(d); !ok {
 		return nil, fmt.Errorf("no x has both %s and %s: nothing to subtract", opt.aName, opt.bName)
@@ -95,6 +98,9 @@ func DiffScene(a, b Series, opt DiffOptions) (*Scene, error) {
 	}
 	if opt.Time {
 		f.noteMilliseconds(dataRange(x))
+	}
+	if err := firstError(checkSpan("x values", x), checkSpan("values of "+opt.aName+" and "+opt.bName, av, bv)); err != nil {
+		return nil, err
 	}
 	c := &diffChart{opt: opt, f: f, x: x, a: av, b: bv, d: d, missing: countMissing([]Series{{Y: d}}), xk: xKindOf([][]float64{x}, opt.Time)}
 	bottom, err := c.layout()

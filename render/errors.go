@@ -69,6 +69,17 @@ func checkFinite(name string, v *float64) error {
 	return nil
 }
 
+// bounds lists the bounds that are set, for checkSpan.
+func bounds(b ...*float64) []float64 {
+	var out []float64
+	for _, v := range b {
+		if v != nil {
+			out = append(out, *v)
+		}
+	}
+	return out
+}
+
 // firstError returns the first error that is not nil, so that validation
 // reports one option at a time, in the order the options are documented.
 func firstError(errs ...error) error {
@@ -76,6 +87,17 @@ func firstError(errs ...error) error {
 		if err != nil {
 			return err
 		}
+	}
+	return nil
+}
+
+// checkSpan refuses data whose range is wider than the largest float64:
+// such an axis has no finite length per unit, and every position on it
+// would be NaN or infinite. what names the values ("y values of the
+// series").
+func checkSpan(what string, vs ...[]float64) error {
+	if lo, hi, ok := dataRange(vs...); ok && math.IsInf(hi-lo, 0) {
+		return fmt.Errorf("the %s run from %g to %g, a range wider than the largest number (%.1e): divide them by a power of ten first", what, lo, hi, math.MaxFloat64)
 	}
 	return nil
 }

@@ -122,6 +122,9 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 		return nil, fmt.Errorf("no values to draw: every value is missing")
 	}
 	c.xlo, c.xhi, _ = dataRange(c.xs()...)
+	if err := firstError(checkSpan("y values", c.ys()...), checkSpan("x values", c.xs()...)); err != nil {
+		return nil, err
+	}
 	c.missing = countMissing(series)
 	c.kinds()
 	multiples := len(series) > MaxTogether && !c.opt.Together
@@ -1011,7 +1014,13 @@ func describeSeries(s Series, vf scale.Format, k xKind) string {
 		change = "down " + vf.Format(-d)
 	}
 	if d != 0 && s.Y[first] != 0 {
-		change += fmt.Sprintf(" (%+.0f%%)", 100*d/math.Abs(s.Y[first]))
+		pct := 100 * d / math.Abs(s.Y[first])
+		if math.IsInf(pct, 0) { // 100 * d overflowed, or the ratio did
+			pct = 100 * (d / math.Abs(s.Y[first]))
+		}
+		if !math.IsInf(pct, 0) {
+			change += fmt.Sprintf(" (%+.0f%%)", pct)
+		}
 	}
 	return fmt.Sprintf("%s: %s at %s, %s at %s, %s; highest %s at %s, lowest %s at %s.", s.Name,
 		vf.Format(s.Y[first]), xValueText(s.X[first], k), vf.Format(s.Y[last]), xValueText(s.X[last], k), change,
