@@ -43,10 +43,10 @@ var ErrNegative = errors.New("must not be negative")
 // ErrTooLarge is the cause of an OptionError for a size beyond MaxSize.
 var ErrTooLarge = fmt.Errorf("must be at most %d px", MaxSize)
 
-// MaxSize is the largest canvas side in pixels: far beyond any screen or
-// poster at print resolution, and small enough that every coordinate keeps
-// its two decimals in a float64.
-const MaxSize = 100000
+// MaxSize is the largest canvas side in pixels, the limit the command line
+// has always set on --size: beyond any screen, and a metre-wide poster at
+// 300 dpi (11,811 px) still fits.
+const MaxSize = 20000
 
 // checkSize validates a size in pixels where 0 means "choose".
 func checkSize(name string, v float64) error {
