@@ -161,6 +161,14 @@ func TestOptionErrors(t *testing.T) {
 			_, err := DotsScene(labels, values, DotsOptions{RowOptions: RowOptions{To: &inf}})
 			return err
 		}},
+		{"unknown medium", "Medium", nil, func() error {
+			_, err := BarsScene(labels, values, BarsOptions{RowOptions: RowOptions{Common: Common{Medium: "poster"}}})
+			return err
+		}},
+		{"bad aspect", "Aspect", nil, func() error {
+			_, err := LinesScene([]Series{{X: x, Y: values}}, LinesOptions{Aspect: "NaN:1"})
+			return err
+		}},
 		{"NaN index point", "IndexAt", ErrNotFinite, func() error {
 			_, err := LinesScene([]Series{{X: x, Y: values}}, LinesOptions{IndexAt: &nan})
 			return err
@@ -172,7 +180,9 @@ func TestOptionErrors(t *testing.T) {
 			var oe *OptionError
 			require.True(t, errors.As(err, &oe), "%v is not an *OptionError", err)
 			assert.Equal(t, tc.option, oe.Option)
-			assert.ErrorIs(t, err, tc.cause)
+			if tc.cause != nil {
+				assert.ErrorIs(t, err, tc.cause)
+			}
 			assert.Contains(t, err.Error(), tc.option)
 			assert.False(t, errors.Is(err, ErrRefused), "bad input, not a refusal")
 		})

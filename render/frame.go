@@ -71,7 +71,7 @@ type textLine struct {
 func newFrame(c Common) (*frame, error) {
 	spec, err := c.Medium.spec()
 	if err != nil {
-		return nil, err
+		return nil, &OptionError{Option: "Medium", Err: err}
 	}
 	if err := checkSize("Width", c.Width); err != nil {
 		return nil, err

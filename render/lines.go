@@ -86,7 +86,7 @@ type lineChart struct {
 func (c *lineChart) build(in []Series) (*Scene, error) {
 	method, forced, err := parseAspect(c.opt.Aspect)
 	if err != nil {
-		return nil, err
+		return nil, &OptionError{Option: "Aspect", Err: err}
 	}
 	if err := checkFinite("IndexAt", c.opt.IndexAt); err != nil {
 		return nil, err
