@@ -16,7 +16,8 @@ import (
 )
 
 // Series is one line of a line chart: Y over X, in X order. A NaN in Y is a
-// missing value: the line breaks there and is never joined across.
+// missing value: the line breaks there and is never joined across. Make a
+// series over time with TimeSeries.
 type Series struct {
 	Name  string
 	X, Y  []float64
