@@ -82,3 +82,12 @@ func TestSceneCarriesMeasuringFaces(t *testing.T) {
 	sheet := PaletteSheet("p", []palette.SRGB{{R: 1}})
 	assert.NotNil(t, sheet.Font.Faces.Regular)
 }
+
+// TestSVGNamesOnlyTheSceneFont checks that the writer adds no font of its
+// own: the family is the scene's, and a scene without one names none.
+func TestSVGNamesOnlyTheSceneFont(t *testing.T) {
+	out := encode(t, SVGEncoder{}, &Scene{Width: 1, Height: 1})
+	assert.NotContains(t, out, "font-family")
+	out = encode(t, SVGEncoder{}, &Scene{Width: 1, Height: 1, Font: Font{Family: "Go, serif"}})
+	assert.Contains(t, out, `font-family="Go, serif"`)
+}

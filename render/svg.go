@@ -65,19 +65,15 @@ func (e SVGEncoder) Encode(w io.Writer, s *Scene) error {
 	doc := svg.New(&head)
 	doc.Decimals = 2
 	id := e.sceneID(s, body.Bytes())
-	family := s.Font.Family
-	if family == "" {
-		family = "Go, sans-serif"
-	}
-	if s.Font.Data != nil {
-		family = FontFamilyName(s.Font) + ", " + family
-	}
-	doc.Start(round2(s.Width), round2(s.Height),
+	root := []string{
 		fmt.Sprintf(`viewBox="0 0 %s %s"`, num(s.Width), num(s.Height)),
 		`role="img"`,
 		fmt.Sprintf(`aria-labelledby="%s-title %s-desc"`, id, id),
-		attr("font-family", family),
-	)
+	}
+	if family := fontFamily(s.Font); family != "" {
+		root = append(root, attr("font-family", family))
+	}
+	doc.Start(round2(s.Width), round2(s.Height), root...)
 	h := head.Bytes()
 	if e.Fragment {
 		h = h[bytes.Index(h, []byte("<svg")):]
@@ -96,6 +92,16 @@ func (e SVGEncoder) Encode(w io.Writer, s *Scene) error {
 	bw.Write(body.Bytes())
 	bw.WriteString("</svg>\n")
 	return bw.Flush()
+}
+
+// fontFamily is the CSS font-family list of the scene's font: the embedded
+// face first when there is one, then the family the scene names.
+func fontFamily(f Font) string {
+	family := f.Family
+	if f.Data != nil {
+		family = strings.TrimSuffix(FontFamilyName(f)+", "+family, ", ")
+	}
+	return family
 }
 
 // FontFamilyName is the CSS family under which an embedded font is declared:

@@ -66,7 +66,7 @@ func PaletteSheet(title string, colors []palette.SRGB) *Scene {
 	}
 	labelW := measure("#000000", sheetText, false) + sheetColGap
 
-	s := &Scene{Title: title, Font: Font{Faces: layout.Fonts{Regular: fonts.Face(false), Bold: fonts.Face(true)}}}
+	s := &Scene{Title: title, Font: Font{Family: fonts.Face(false).Family() + ", sans-serif", Faces: layout.Fonts{Regular: fonts.Face(false), Bold: fonts.Face(true)}}}
 	if s.Title == "" {
 		s.Title = "Palette"
 	}
