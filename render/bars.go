@@ -569,6 +569,12 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 					rr = math.Max(rr, lastHalf)
 					continue
 				}
+				// A bound far below zero (a first label like "−1000×10²⁷")
+				// beside short category labels reaches past the left edge.
+				if firstHalf := f.measure(labels[0], sp.text, false) / 2; g.x0-firstHalf < sp.pad {
+					rl = math.Max(rl, sp.pad+firstHalf-g.plotL)
+					continue
+				}
 			}
 			break
 		}

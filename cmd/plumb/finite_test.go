@@ -45,7 +45,7 @@ func TestExtremeTablesThroughCLI(t *testing.T) {
 		"huge difference": "x,a,b\n1,1.7e308,-1.7e308\n2,1,2\n3,2,1\n",
 	}
 	charts := map[string][][]string{
-		"bars":  {nil, {"--percent"}, {"--vertical"}, {"--from", "-1"}},
+		"bars":  {nil, {"--percent"}, {"--vertical"}, {"--from", "-1"}, {"--from", "-1e30"}},
 		"dots":  {nil, {"--for", "print"}},
 		"lines": {nil, {"--index"}, {"--together"}},
 		"diff":  {nil, {"--context"}},
