@@ -537,7 +537,7 @@ func (f *frame) drawYAxis(a yAxis, ys scale.Linear, left, right float64, labels 
 	asc, desc := f.fonts.Face(false).Ascent(sp.text), f.fonts.Face(false).Descent(sp.text)
 	for _, t := range a.ticks {
 		y := round2(ys.Map(t))
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: f.th.grid, StrokeWidth: 1})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
 		if labels {
 			f.text(left-sp.gap, y+(asc-desc)/2, a.format.Format(t), sp.text, false, f.th.muted, "plumb-tick", End)
 		}
@@ -560,7 +560,7 @@ func (f *frame) drawXAxis(a xAxis, left float64, w int, bottom float64, labels b
 	top := f.xLabelTop(bottom)
 	for i, t := range a.ticks {
 		x := round2(xs.Map(t))
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-tick-mark", Lines: [][]Point{{{x, bottom}, {x, bottom + 4}}}, Stroke: f.th.muted, StrokeWidth: 1})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-tick-mark", Lines: [][]Point{{{x, bottom}, {x, bottom + 4}}}, Stroke: f.th.muted, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
 		if labels && a.labels[i] != "" {
 			f.text(x, top+f.fonts.Face(false).Ascent(sp.text), a.labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
 		}

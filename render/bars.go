@@ -105,6 +105,9 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	if err := checkRows(labels, values); err != nil {
 		return nil, err
 	}
+	if err := firstError(checkFinite("From", c.opt.From), checkFinite("To", c.opt.To), checkSpan("values and bounds", values, bounds(c.opt.From, c.opt.To))); err != nil {
+		return nil, err
+	}
 	f, err := newFrame(c.opt.Common)
 	if err != nil {
 		return nil, err
@@ -249,24 +252,44 @@ func (c *rowChart) rowsThatFit() int {
 
 // toShares turns values into percentages of their total.
 func (c *rowChart) toShares() error {
+	// Values near the largest float64 overflow their total to +Inf (and
+	// every share to NaN): then sum them scaled by the largest.
+	big, plain := 1.0, 0.0
+	for _, r := range c.rows {
+		plain += r.value
+	}
+	if math.IsInf(plain, 0) {
+		for _, r := range c.rows {
+			big = math.Max(big, math.Abs(r.value))
+		}
+	}
 	total := 0.0
 	for _, r := range c.rows {
 		if r.value < 0 {
-			return &refusal{
-				reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
-				instead: "shares need values of one sign; drop " + c.opt.name("Percent") + " to draw the values themselves",
+			return &RefusalError{
+				Reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
+				Instead: "shares need values of one sign; drop " + c.opt.name("Percent") + " to draw the values themselves",
 			}
 		}
-		total += r.value
+		total += r.value / big
 	}
 	if total == 0 {
-		return &refusal{reason: "cannot show shares: the values add up to zero", instead: "drop " + c.opt.name("Percent")}
+		return &RefusalError{Reason: "cannot show shares: the values add up to zero", Instead: "drop " + c.opt.name("Percent")}
 	}
 	for i := range c.rows {
-		c.rows[i].value = 100 * c.rows[i].value / total
+		share := 100 * (c.rows[i].value / big) / total
+		if math.IsInf(share, 0) { // 100 * value overflowed
+			share = 100 * (c.rows[i].value / big / total)
+		}
+		c.rows[i].value = share
 	}
+	total *= big
 	c.opt.Unit = "%"
-	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", scale.ValueFormat([]float64{total}, "").Format(total)))
+	totalText := scale.ValueFormat([]float64{total}, "").Format(total)
+	if math.IsInf(total, 0) {
+		totalText = fmt.Sprintf("more than %.1e", math.MaxFloat64)
+	}
+	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", totalText))
 	return nil
 }
 
@@ -280,8 +303,8 @@ func (c *rowChart) domain() error {
 	if !c.dots {
 		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
 		if c.opt.From != nil && *c.opt.From > lo {
-			return &OptionError{Option: "From", Value: strconv.FormatFloat(*c.opt.From, 'g', -1, 64), Err: &refusal{reason: "would cut " + c.cutWhat(lo),
-				instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}}
+			return &OptionError{Option: "From", Value: strconv.FormatFloat(*c.opt.From, 'g', -1, 64), Err: &RefusalError{Reason: "would cut " + c.cutWhat(lo),
+				Instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}}
 		}
 		if c.opt.To != nil && *c.opt.To < hi {
 			return c.domainError("To", *c.opt.To, "would cut bars that reach "+c.numText(hi), "at or beyond the largest value")
@@ -309,7 +332,7 @@ func (c *rowChart) domain() error {
 // naming the option, wrapping the refusal.
 func (c *rowChart) domainError(option string, v float64, why, where string) error {
 	return &OptionError{Option: option, Value: strconv.FormatFloat(v, 'g', -1, 64),
-		Err: &refusal{reason: why, instead: fmt.Sprintf("give %s %s, or leave it out", c.opt.name(option), where)}}
+		Err: &RefusalError{Reason: why, Instead: fmt.Sprintf("give %s %s, or leave it out", c.opt.name(option), where)}}
 }
 
 func (c *rowChart) cutWhat(lo float64) string {
@@ -386,7 +409,7 @@ func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
 	if span <= 0 {
 		return true
 	}
-	step := length * (t.Values[1] - t.Values[0]) / span
+	step := length * ((t.Values[1] - t.Values[0]) / span) // a step near 1e308 times length overflows
 	widest := 0.0
 	for _, l := range labels {
 		widest = math.Max(widest, c.f.measure(l, c.f.spec.text, false))
@@ -394,7 +417,7 @@ func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
 	return widest+c.f.spec.text <= step
 }
 
-func (c *rowChart) fill(r row) string {
+func (c *rowChart) fill(r row) Colour {
 	if r.highlight {
 		return c.f.th.accent
 	}
@@ -403,18 +426,17 @@ func (c *rowChart) fill(r row) string {
 
 // insideColour is the colour for value text inside a bar of this fill:
 // white, or else the text colour, whichever meets WCAG 2.x's 4.5:1 for
-// text; "" when neither does and the value must sit outside.
-func (c *rowChart) insideColour(fill string) string {
-	bar, err := palette.ParseHex(fill)
-	if err != nil {
-		return ""
+// text; None when neither does and the value must sit outside.
+func (c *rowChart) insideColour(fill Colour) Colour {
+	if fill.IsNone() {
+		return None
 	}
-	for _, t := range []string{c.f.th.inside, c.f.th.text} {
-		if tc, err := palette.ParseHex(t); err == nil && palette.Contrast(bar, tc) >= palette.MinTextContrast {
+	for _, t := range []Colour{c.f.th.inside, c.f.th.text} {
+		if palette.Contrast(fill.SRGB(), t.SRGB()) >= palette.MinTextContrast {
 			return t
 		}
 	}
-	return ""
+	return None
 }
 
 // layoutRows draws horizontal bars or dots, one row per category, and
@@ -564,6 +586,12 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 					rr = math.Max(rr, lastHalf)
 					continue
 				}
+				// A bound far below zero (a first label like "−1000×10²⁷")
+				// beside short category labels reaches past the left edge.
+				if firstHalf := f.measure(labels[0], sp.text, false) / 2; g.x0-firstHalf < sp.pad {
+					rl = math.Max(rl, sp.pad+firstHalf-g.plotL)
+					continue
+				}
 			}
 			break
 		}
@@ -575,7 +603,7 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 	k := (g.x1 - g.x0) / (c.d1 - c.d0)
 	changed := false
 	for i, r := range c.rows {
-		if math.Abs(r.value)*k >= vw[i]+2*sp.gap && c.insideColour(c.fill(r)) != "" {
+		if math.Abs(r.value)*k >= vw[i]+2*sp.gap && !c.insideColour(c.fill(r)).IsNone() {
 			inside[i], changed = true, true
 		}
 	}
@@ -597,7 +625,7 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	for i, t := range c.ticks.Values {
 		x := round2(g.xs.Map(t))
 		if !(t == 0 && !c.dots) {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1})
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
 		}
 		f.text(x, bottom+sp.gap+asc, labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
 	}
@@ -608,7 +636,7 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	}
 	f.scene.Add(Mark{Kind: GroupEnd})
 	if !c.dots {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
 	}
 	return axisBottom
 }
@@ -626,7 +654,7 @@ func (c *rowChart) markAttrs(r row) []Attr {
 }
 
 // labelFill is the colour of a category label: muted for the Other row.
-func (c *rowChart) labelFill(r row) string {
+func (c *rowChart) labelFill(r row) Colour {
 	if r.other > 0 {
 		return c.f.th.muted
 	}
@@ -656,7 +684,7 @@ func (c *rowChart) drawRow(g *rowGeom, i int, r row, lines []string, vtext strin
 	}
 	xv := round2(g.xs.Map(r.value))
 	if c.dots {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{g.x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Dash: "1 3"})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{g.x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Join: JoinRound, Cap: CapRound, Dash: []float64{1, 3}})
 		f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark", X: xv, Y: cy, R: g.radius, Fill: c.fill(r), Attrs: c.markAttrs(r)})
 		f.text(xv+g.radius+sp.gap, textY, vtext, sp.text, false, f.th.text, "plumb-value", Start)
 		return
@@ -811,13 +839,13 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	for i, t := range c.ticks.Values {
 		y := round2(ys.Map(t))
 		if t != 0 {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1})
+			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
 		}
 		f.text(plotL-sp.gap, y+(asc-desc)/2, labels[i], sp.text, false, f.th.muted, "plumb-tick", End)
 	}
 	f.scene.Add(Mark{Kind: GroupEnd})
 	zero := round2(ys.Map(0))
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5})
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
 
 	vtext, vw := c.valueTexts()
 	tooWide := func(w float64) bool { return w > band-2 }

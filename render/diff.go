@@ -17,21 +17,22 @@ import (
 // that stay apart under colour vision deficiency.
 type DiffOptions struct {
 	Common
-	Time         bool   // x holds instants as Unix seconds (UTC)
-	AName, BName string // the two series' names; "" means "a" and "b"
+	Time bool // x holds instants as Unix seconds (UTC); series made by TimeSeries need no flag
 	// Context adds a panel above the difference with both series on the
 	// same x scale, so that the reader sees the levels too.
 	Context bool
 	Unit    string // unit of a and b
 	XName   string // what x is
+
+	aName, bName string // the two series' names, set by DiffScene
 }
 
-// Diff draws the difference chart of a − b over x and writes it as SVG
+// Diff draws the difference chart of a − b over their x and writes it as SVG
 // to w. Readers judge the gap between two curves by their shortest
 // distance rather than the vertical one (Cleveland & McGill 1984), so the
 // difference itself is plotted. It returns the notes.
-func Diff(w io.Writer, x, a, b []float64, opt DiffOptions) ([]Note, error) {
-	s, err := DiffScene(x, a, b, opt)
+func Diff(w io.Writer, a, b Series, opt DiffOptions) ([]Note, error) {
+	s, err := DiffScene(a, b, opt)
 	if err != nil {
 		return nil, err
 	}
@@ -43,39 +44,47 @@ func Diff(w io.Writer, x, a, b []float64, opt DiffOptions) ([]Note, error) {
 // scale, matched in lightness and no red/green pair. The areas are light
 // enough for text in the Text colour (7:1) and stay over 30 CIEDE2000
 // apart under all four visions (checked in diff_test.go).
-func diffColors() (areaA, areaB, lineA, lineB string) {
+func diffColors() (areaA, areaB, lineA, lineB Colour) {
 	p, err := palette.Diverging(7)
 	if err != nil || len(p) != 7 {
-		return palette.Accent().Hex(), palette.Neutral().Hex(), palette.Accent().Hex(), palette.Neutral().Hex()
+		return RGB(palette.Accent()), RGB(palette.Neutral()), RGB(palette.Accent()), RGB(palette.Neutral())
 	}
-	return p[4].Hex(), p[2].Hex(), p[5].Hex(), p[1].Hex()
+	return RGB(p[4]), RGB(p[2]), RGB(p[5]), RGB(p[1])
 }
 
-// DiffScene builds the difference chart's scene without writing it.
-func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
-	if len(x) != len(a) || len(x) != len(b) {
-		return nil, fmt.Errorf("%d x values, %d a values and %d b values: give one a and one b per x", len(x), len(a), len(b))
+// DiffScene builds the difference chart's scene without writing it. The
+// series' names name the two sides ("" means "a" and "b"). Their x values
+// are matched exactly: the difference is drawn at every x that both series
+// have, and x values only one of them has are left out with a note.
+func DiffScene(a, b Series, opt DiffOptions) (*Scene, error) {
+	if a.Name == "" {
+		a.Name = "a"
 	}
-	if opt.AName == "" {
-		opt.AName = "a"
+	if b.Name == "" {
+		b.Name = "b"
 	}
-	if opt.BName == "" {
-		opt.BName = "b"
+	opt.aName, opt.bName = a.Name, b.Name
+	var err error
+	if opt.Time, err = timeAxis(opt.Time, a, b); err != nil {
+		return nil, err
 	}
-	series, notes, err := cleanSeries([]Series{{Name: opt.AName, X: x, Y: a}, {Name: opt.BName, X: x, Y: b}})
+	series, notes, err := cleanSeries([]Series{a, b})
 	if err != nil {
 		return nil, err
 	}
 	if len(series) < 2 { // one of them has no values at all
-		return nil, fmt.Errorf("no x has both %s and %s: nothing to subtract", opt.AName, opt.BName)
+		return nil, fmt.Errorf("no x has both %s and %s: nothing to subtract", opt.aName, opt.bName)
 	}
-	x, a, b = series[0].X, series[0].Y, series[1].Y
+	x, av, bv, onlyA, onlyB := matchX(series[0], series[1])
 	d := make([]float64, len(x))
 	for i := range x {
-		d[i] = a[i] - b[i] // NaN when either is missing: a gap
+		d[i] = av[i] - bv[i] // NaN when either is missing: a gap
+		if math.IsInf(d[i], 0) {
+			return nil, fmt.Errorf("%s − %s at x = %g is beyond the largest number (%.1e): divide both series by a power of ten first", opt.aName, opt.bName, x[i], math.MaxFloat64)
+		}
 	}
 	if _, _, ok := dataRange(d); !ok {
-		return nil, fmt.Errorf("no x has both %s and %s: nothing to subtract", opt.AName, opt.BName)
+		return nil, fmt.Errorf("no x has both %s and %s: nothing to subtract", opt.aName, opt.bName)
 	}
 	f, err := newFrame(opt.Common)
 	if err != nil {
@@ -84,7 +93,16 @@ func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
 	for _, n := range notes[:min(len(notes), 1)] {
 		f.scene.Notes = append(f.scene.Notes, n)
 	}
-	c := &diffChart{opt: opt, f: f, x: x, a: a, b: b, d: d, missing: countMissing([]Series{{Y: d}}), xk: xKindOf([][]float64{x}, opt.Time)}
+	if onlyA+onlyB > 0 {
+		f.scene.Note("unmatched-x", true, fmt.Sprintf("drew the difference at the %d x values both series have; left out %d x values only %s has and %d only %s has", len(x), onlyA, opt.aName, onlyB, opt.bName))
+	}
+	if opt.Time {
+		f.noteMilliseconds(dataRange(x))
+	}
+	if err := firstError(checkSpan("x values", x), checkSpan("values of "+opt.aName+" and "+opt.bName, av, bv)); err != nil {
+		return nil, err
+	}
+	c := &diffChart{opt: opt, f: f, x: x, a: av, b: bv, d: d, missing: countMissing([]Series{{Y: d}}), xk: xKindOf([][]float64{x}, opt.Time)}
 	bottom, err := c.layout()
 	if err != nil {
 		return nil, err
@@ -92,9 +110,33 @@ func DiffScene(x, a, b []float64, opt DiffOptions) (*Scene, error) {
 	f.scene.Desc = c.describe()
 	if f.scene.Title == "" {
 		// Untitled figures still need an accessible name.
-		f.scene.Title = "Difference between " + opt.AName + " and " + opt.BName
+		f.scene.Title = "Difference between " + opt.aName + " and " + opt.bName
 	}
 	return f.finish(bottom), nil
+}
+
+// matchX pairs the values of a and b (each sorted by x, one value per x)
+// at the x values both have, and counts the x values only one has.
+func matchX(a, b Series) (x, av, bv []float64, onlyA, onlyB int) {
+	if slices.Equal(a.X, b.X) {
+		return a.X, a.Y, b.Y, 0, 0
+	}
+	i, j := 0, 0
+	for i < len(a.X) && j < len(b.X) {
+		switch {
+		case a.X[i] < b.X[j]:
+			onlyA++
+			i++
+		case a.X[i] > b.X[j]:
+			onlyB++
+			j++
+		default:
+			x, av, bv = append(x, a.X[i]), append(av, a.Y[i]), append(bv, b.Y[j])
+			i++
+			j++
+		}
+	}
+	return x, av, bv, onlyA + len(a.X) - i, onlyB + len(b.X) - j
 }
 
 type diffChart struct {
@@ -144,7 +186,7 @@ func (c *diffChart) layout() (float64, error) {
 	labelW := 0.0
 	if c.opt.Context {
 		yw = math.Max(yw, f.yLabelWidth(lvLo, lvHi, lk))
-		labels, labelW = f.directLabels([]string{c.opt.AName, c.opt.BName}, []string{lineA, lineB}, (f.width-2*sp.pad)*0.3)
+		labels, labelW = f.directLabels([]string{c.opt.aName, c.opt.bName}, []Colour{lineA, lineB}, (f.width-2*sp.pad)*0.3)
 	}
 	left, w, _, ax := f.fitPanelsX(math.Ceil(sp.pad+yw+sp.gap), labelW, 1, 0, xlo, xhi, xk)
 	if w < sp.text*8 {
@@ -156,7 +198,7 @@ func (c *diffChart) layout() (float64, error) {
 
 	// Bank both panels first: a medium of fixed height shares its room
 	// between them.
-	series := []Series{{Name: c.opt.AName, X: c.x, Y: c.a}, {Name: c.opt.BName, X: c.x, Y: c.b}}
+	series := []Series{{Name: c.opt.aName, X: c.x, Y: c.a}, {Name: c.opt.bName, X: c.x, Y: c.b}}
 	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
 	var pa, pb scale.Polyline
 	var hc float64
@@ -182,8 +224,8 @@ func (c *diffChart) layout() (float64, error) {
 	// Panel titles name both series, which may be long: up to two lines
 	// across the figure, then shortened with the full text in a tooltip.
 	inner := f.width - 2*sp.pad
-	ctxTitle := f.axisTitle(c.opt.AName+" and "+c.opt.BName+c.unitSuffix(), inner)
-	diffTitle := f.axisTitle("difference, "+c.opt.AName+" − "+c.opt.BName+c.unitSuffix(), inner)
+	ctxTitle := f.axisTitle(c.opt.aName+" and "+c.opt.bName+c.unitSuffix(), inner)
+	diffTitle := f.axisTitle("difference, "+c.opt.aName+" − "+c.opt.bName+c.unitSuffix(), inner)
 	panelTop := diffTitle.height(lh) + sp.gap + half
 	if fb := f.fixedPlotBottom(); fb > 0 {
 		room := fb - y - panelTop - (f.xLabelTop(0) + lh) - 2*lh - sp.gap // a key of up to two rows under the axis
@@ -222,7 +264,7 @@ func (c *diffChart) layout() (float64, error) {
 		f.scene.Add(Mark{Kind: GroupEnd})
 		for i, p := range []scale.Polyline{pa, pb} {
 			d := g.screen(p, ys)
-			f.addSeries("plumb-mark", series[i].Name, p, d, []string{lineA, lineB}[i], lw, c.opt.Time)
+			f.addSeries("plumb-mark", series[i].Name, p, d, []Colour{lineA, lineB}[i], lw, c.opt.Time)
 			if pt, ok := d.last(); ok {
 				labels[i].ex, labels[i].ey = pt.X, pt.Y
 			}
@@ -289,12 +331,12 @@ func (c *diffChart) layout() (float64, error) {
 		}
 	}
 	if len(pos) > 0 {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-a", Lines: pos, Closed: true, Fill: areaA, Attrs: []Attr{{"series", c.opt.AName + " above " + c.opt.BName}}})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-a", Lines: pos, Closed: true, Fill: areaA, Attrs: []Attr{{"series", c.opt.aName + " above " + c.opt.bName}}})
 	}
 	if len(neg) > 0 {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-b", Lines: neg, Closed: true, Fill: areaB, Attrs: []Attr{{"series", c.opt.BName + " above " + c.opt.AName}}})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-b", Lines: neg, Closed: true, Fill: areaB, Attrs: []Attr{{"series", c.opt.bName + " above " + c.opt.aName}}})
 	}
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{0, base}, {w, base}}}, Stroke: f.th.baseline, StrokeWidth: lw * 0.75})
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{0, base}, {w, base}}}, Stroke: f.th.baseline, StrokeWidth: lw * 0.75, Join: JoinRound, Cap: CapRound})
 	var dl [][]Point
 	for _, run := range pts {
 		var l []Point
@@ -316,18 +358,18 @@ func (c *diffChart) layout() (float64, error) {
 		}
 	}
 	placed := [2]bool{
-		c.regionLabel(largest[0], c.opt.AName, c.opt.BName, xs, ys, segs, true),
-		c.regionLabel(largest[1], c.opt.BName, c.opt.AName, xs, ys, segs, false),
+		c.regionLabel(largest[0], c.opt.aName, c.opt.bName, xs, ys, segs, true),
+		c.regionLabel(largest[1], c.opt.bName, c.opt.aName, xs, ys, segs, false),
 	}
 	// Say once what each colour means: in its region's label, or, for a
 	// colour whose regions are all too thin for a label, in a key under
 	// the axis.
 	var key []keyItem
 	if !placed[0] && len(pos) > 0 {
-		key = append(key, keyItem{areaA, c.opt.AName, c.opt.BName})
+		key = append(key, keyItem{areaA, c.opt.aName, c.opt.bName})
 	}
 	if !placed[1] && len(neg) > 0 {
-		key = append(key, keyItem{areaB, c.opt.BName, c.opt.AName})
+		key = append(key, keyItem{areaB, c.opt.bName, c.opt.aName})
 	}
 	bottom = f.areaKey(key, 0, w, bottom)
 	f.scene.Add(Mark{Kind: GroupEnd})
@@ -335,7 +377,10 @@ func (c *diffChart) layout() (float64, error) {
 }
 
 // keyItem is one colour of a difference chart and what it means.
-type keyItem struct{ fill, above, below string }
+type keyItem struct {
+	fill         Colour
+	above, below string
+}
 
 // areaKey draws the key for the colours whose meaning no region label
 // gives, one row each under the axis from y; it returns the y under it.
@@ -596,9 +641,9 @@ func (c *diffChart) describe() string {
 	var b strings.Builder
 	over := overText(c.opt.XName, c.opt.Time)
 	xlo, xhi, _ := dataRange(c.x)
-	fmt.Fprintf(&b, "Difference chart of %s minus %s %s, from %s to %s, against a zero line.", c.opt.AName, c.opt.BName, over,
+	fmt.Fprintf(&b, "Difference chart of %s minus %s %s, from %s to %s, against a zero line.", c.opt.aName, c.opt.bName, over,
 		xValueText(xlo, c.xk), xValueText(xhi, c.xk))
-	series := []Series{{Name: c.opt.AName, X: c.x, Y: c.a}, {Name: c.opt.BName, X: c.x, Y: c.b}, {X: c.x, Y: c.d}}
+	series := []Series{{Name: c.opt.aName, X: c.x, Y: c.a}, {Name: c.opt.bName, X: c.x, Y: c.b}, {X: c.x, Y: c.d}}
 	vf := scale.ValueFormat(shownValues(series), c.opt.Unit)
 	_, _, lo, hi := extremes(c.d)
 	above, below := 0, 0
@@ -609,7 +654,7 @@ func (c *diffChart) describe() string {
 			below++
 		}
 	}
-	fmt.Fprintf(&b, " %s is above %s at %d of %d points and below at %d.", c.opt.AName, c.opt.BName, above, len(c.d), below)
+	fmt.Fprintf(&b, " %s is above %s at %d of %d points and below at %d.", c.opt.aName, c.opt.bName, above, len(c.d), below)
 	fmt.Fprintf(&b, " Largest difference: %s at %s; smallest: %s at %s.", vf.Format(c.d[hi]), xValueText(c.x[hi], c.xk), vf.Format(c.d[lo]), xValueText(c.x[lo], c.xk))
 	for _, s := range series[:2] {
 		b.WriteString(" " + describeSeries(s, vf, c.xk))

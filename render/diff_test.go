@@ -18,10 +18,10 @@ func TestDiffColoursSurviveCVD(t *testing.T) {
 	// deutan and tritan vision (Machado, Oliveira & Fernandes 2009, full
 	// severity), and the labels on the areas keep 4.5:1 (WCAG 2.x).
 	areaA, areaB, lineA, lineB := diffColors()
-	for _, pair := range [][2]string{{areaA, areaB}, {lineA, lineB}} {
-		a, err := palette.ParseHex(pair[0])
+	for _, pair := range [][2]Colour{{areaA, areaB}, {lineA, lineB}} {
+		a, err := palette.ParseHex(pair[0].Hex())
 		require.NoError(t, err)
-		b, err := palette.ParseHex(pair[1])
+		b, err := palette.ParseHex(pair[1].Hex())
 		require.NoError(t, err)
 		for _, v := range palette.Visions {
 			d := palette.DeltaE2000(palette.SRGBToLab(palette.Simulate(a, v, 1)), palette.SRGBToLab(palette.Simulate(b, v, 1)))
@@ -29,8 +29,8 @@ func TestDiffColoursSurviveCVD(t *testing.T) {
 		}
 	}
 	text := palette.Text()
-	for _, h := range []string{areaA, areaB} {
-		c, _ := palette.ParseHex(h)
+	for _, h := range []Colour{areaA, areaB} {
+		c, _ := palette.ParseHex(h.Hex())
 		assert.GreaterOrEqual(t, palette.Contrast(text, c), 4.5, "label text on %s", h)
 	}
 }
@@ -59,7 +59,7 @@ func TestDiffScene(t *testing.T) {
 	a := []float64{1, 3, 5, 1, 0, 2}
 	b := []float64{2, 1, 1, 3, 4, 1}
 	for _, ctx := range []bool{false, true} {
-		s, err := DiffScene(x, a, b, DiffOptions{AName: "north", BName: "south", Context: ctx})
+		s, err := DiffScene(Series{Name: "north", X: x, Y: a}, Series{Name: "south", X: x, Y: b}, DiffOptions{Context: ctx})
 		require.NoError(t, err)
 		assertNoOverlap(t, s)
 		assert.Equal(t, 1, classCount(s, "plumb-area-a"))
@@ -70,9 +70,9 @@ func TestDiffScene(t *testing.T) {
 			assert.Equal(t, 2, classCount(s, "plumb-panel"))
 		}
 	}
-	_, err := DiffScene(x, a[:2], b, DiffOptions{})
+	_, err := DiffScene(Series{X: x, Y: a[:2]}, Series{X: x, Y: b}, DiffOptions{})
 	assert.Error(t, err)
-	_, err = DiffScene([]float64{1, 2}, []float64{math.NaN(), 1}, []float64{1, math.NaN()}, DiffOptions{})
+	_, err = DiffScene(Series{X: []float64{1, 2}, Y: []float64{math.NaN(), 1}}, Series{X: []float64{1, 2}, Y: []float64{1, math.NaN()}}, DiffOptions{})
 	assert.Error(t, err)
 }
 
@@ -90,7 +90,7 @@ func TestDiffLongNamesFit(t *testing.T) {
 	}
 	for _, c := range []Common{{Medium: Screen, Width: 336}, {Medium: Print}, {Medium: Slide}} {
 		for _, ctx := range []bool{false, true} {
-			s, err := DiffScene(x, a, b, DiffOptions{Common: c, AName: long + " east", BName: long + " west", Context: ctx})
+			s, err := DiffScene(Series{Name: long + " east", X: x, Y: a}, Series{Name: long + " west", X: x, Y: b}, DiffOptions{Common: c, Context: ctx})
 			require.NoError(t, err)
 			assertNoOverlap(t, s)
 			labels := 0

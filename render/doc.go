@@ -11,14 +11,25 @@
 //	Lines, LinesScene  change over time or order: banked to 45°, direct labels
 //	Diff, DiffScene    the difference of two series against a zero line
 //
+// Bars and dots share RowOptions, so a caller whose bars are refused passes
+// the same options on to a dot plot. Lines and Diff take Series; a series
+// over time is made from time.Time values with TimeSeries.
+//
 // Builders measure every piece of text with real font metrics (package
 // layout) before placing it, so labels never overlap or leave the canvas.
 // Every decision taken for the caller (categories combined, rows left out,
 // the aspect ratio chosen) is a Note in Scene.Notes, also written into the
 // SVG's <metadata>; a Note's Changed field says whether what is drawn differs
 // from the data given. A chart that would mislead (bars that do not start at
-// zero) is refused with an error that wraps ErrRefused and names the honest
-// alternative.
+// zero) is refused with a *RefusalError that wraps ErrRefused and carries the
+// reason and the honest alternative. An option whose value cannot be drawn
+// (a NaN bound, a negative width) is an *OptionError naming the option's
+// field.
+//
+// A Scene decides everything a backend needs: positions, typed colours
+// (Colour), stroke joins, caps and dashes, and the faces its text was
+// measured with (Font.Faces), so that a raster backend draws exactly what
+// was measured.
 //
 // WriteSVG writes a standalone document; an SVGEncoder writes fragments for
 // inline HTML, with an id prefix and a font declared once per page.

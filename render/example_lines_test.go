@@ -28,8 +28,10 @@ func ExampleLines() {
 // A difference chart: north − south against zero, crossings interpolated.
 func ExampleDiff() {
 	x := []float64{0, 1, 2, 3, 4}
-	notes, err := render.Diff(io.Discard, x, []float64{3, 5, 4, 2, 1}, []float64{2, 2, 3, 4, 3},
-		render.DiffOptions{AName: "north", BName: "south"})
+	notes, err := render.Diff(io.Discard,
+		render.Series{Name: "north", X: x, Y: []float64{3, 5, 4, 2, 1}},
+		render.Series{Name: "south", X: x, Y: []float64{2, 2, 3, 4, 3}},
+		render.DiffOptions{})
 	if err != nil {
 		fmt.Println(err)
 		return

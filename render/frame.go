@@ -37,13 +37,6 @@ type Common struct {
 // chart, so that callers can tell a refusal from bad input with errors.Is.
 var ErrRefused = errors.New("refused")
 
-// refusal is a chart plumb will not draw, with the reason and the honest
-// alternative.
-type refusal struct{ reason, instead string }
-
-func (r *refusal) Error() string { return r.reason + "; " + r.instead }
-func (r *refusal) Unwrap() error { return ErrRefused }
-
 // frame lays out the parts every chart has: title and subtitle above,
 // source and note below, the plot in between.
 type frame struct {
@@ -72,7 +65,7 @@ type textLine struct {
 	text    string
 	size    float64
 	bold    bool
-	fill    string
+	fill    Colour
 	class   string
 	y       float64 // baseline, relative to its block
 	tooltip string
@@ -81,10 +74,13 @@ type textLine struct {
 func newFrame(c Common) (*frame, error) {
 	spec, err := c.Medium.spec()
 	if err != nil {
+		return nil, &OptionError{Option: "Medium", Err: err}
+	}
+	if err := checkSize("Width", c.Width); err != nil {
 		return nil, err
 	}
-	if c.Width < 0 || c.Height < 0 || math.IsNaN(c.Width) || math.IsNaN(c.Height) {
-		return nil, fmt.Errorf("size %gx%g: width and height must be positive", c.Width, c.Height)
+	if err := checkSize("Height", c.Height); err != nil {
+		return nil, err
 	}
 	if c.Width > 0 {
 		spec.width = c.Width
@@ -99,6 +95,7 @@ func newFrame(c Common) (*frame, error) {
 	f.scene = &Scene{Width: spec.width, Title: c.Title, Notes: slices.Clone(c.Notes)}
 	reg := f.fonts.Face(false)
 	f.scene.Font.Family = reg.Family() + ", sans-serif"
+	f.scene.Font.Faces = layout.Fonts{Regular: reg, Bold: f.fonts.Face(true)}
 	if c.EmbedFont {
 		f.scene.Font.Data = reg.Data()
 		f.scene.Font.Format = reg.Format()
@@ -127,7 +124,7 @@ func newFrame(c Common) (*frame, error) {
 }
 
 // block wraps text into lines below y and returns the y under the last line.
-func (f *frame) block(dst *[]textLine, y float64, text string, size float64, bold bool, fill, class string, width float64, maxLines int) float64 {
+func (f *frame) block(dst *[]textLine, y float64, text string, size float64, bold bool, fill Colour, class string, width float64, maxLines int) float64 {
 	if text == "" {
 		return y
 	}
@@ -184,7 +181,7 @@ func (f *frame) textMark(x, y float64, l textLine, a Anchor) Mark {
 }
 
 // text adds one line of text to the scene.
-func (f *frame) text(x, y float64, s string, size float64, bold bool, fill, class string, a Anchor) {
+func (f *frame) text(x, y float64, s string, size float64, bold bool, fill Colour, class string, a Anchor) {
 	f.scene.Add(Mark{Kind: Text, Class: class, X: x, Y: y, Text: s, Size: size, Bold: bold, Fill: fill, Anchor: a})
 }
 

@@ -16,10 +16,12 @@ import (
 )
 
 // Series is one line of a line chart: Y over X, in X order. A NaN in Y is a
-// missing value: the line breaks there and is never joined across.
+// missing value: the line breaks there and is never joined across. Make a
+// series over time with TimeSeries.
 type Series struct {
-	Name string
-	X, Y []float64
+	Name  string
+	X, Y  []float64
+	times bool // X holds instants as Unix seconds: made by TimeSeries
 }
 
 // LinesOptions configures a line chart. The zero value draws the honest
@@ -28,7 +30,7 @@ type Series struct {
 type LinesOptions struct {
 	Common
 	// Time says X holds instants as Unix seconds (UTC): the x axis then gets
-	// calendar ticks.
+	// calendar ticks. Series made by TimeSeries need no flag.
 	Time bool
 	// Aspect chooses the plot's height for its width: "" banks to 45° by
 	// median absolute slope (Cleveland, McGill & McGill 1988),
@@ -87,7 +89,13 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	if err != nil {
 		return nil, err
 	}
+	if err := checkFinite("IndexAt", c.opt.IndexAt); err != nil {
+		return nil, err
+	}
 	c.bank = banking{method: method, forced: forced}
+	if c.opt.Time, err = timeAxis(c.opt.Time, in...); err != nil {
+		return nil, err
+	}
 	series, notes, err := cleanSeries(in)
 	if err != nil {
 		return nil, err
@@ -100,6 +108,9 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	f.scene.Notes = append(f.scene.Notes, notes...)
 	c.series = series
 	c.xk = xKindOf(c.xs(), c.opt.Time)
+	if c.opt.Time {
+		f.noteMilliseconds(dataRange(c.xs()...))
+	}
 	if c.opt.Index || c.opt.IndexAt != nil {
 		if series, err = c.rebase(series); err != nil {
 			return nil, err
@@ -112,12 +123,15 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 		return nil, fmt.Errorf("no values to draw: every value is missing")
 	}
 	c.xlo, c.xhi, _ = dataRange(c.xs()...)
+	if err := firstError(checkSpan("y values", c.ys()...), checkSpan("x values", c.xs()...)); err != nil {
+		return nil, err
+	}
 	c.missing = countMissing(series)
 	c.kinds()
 	multiples := len(series) > MaxTogether && !c.opt.Together
 	if multiples && len(series) > MaxPanels {
-		return nil, &refusal{reason: fmt.Sprintf("%d series are too many to compare, on one panel or in a grid of %d small multiples (at most %d panels)", len(series), len(series), MaxPanels),
-			instead: "highlight a few: draw the ones that matter (choose the series, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
+		return nil, &RefusalError{Reason: fmt.Sprintf("%d series are too many to compare, on one panel or in a grid of %d small multiples (at most %d panels)", len(series), len(series), MaxPanels),
+			Instead: "highlight a few: draw the ones that matter (choose the series, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
 	}
 	switch {
 	case multiples:
@@ -357,6 +371,13 @@ func (c *lineChart) rebase(series []Series) ([]Series, error) {
 		y := make([]float64, len(s.Y))
 		for j, v := range s.Y {
 			y[j] = 100 * v / base
+			if math.IsInf(y[j], 0) { // 100 * v overflowed, or v / base did
+				y[j] = 100 * (v / base)
+			}
+			if math.IsInf(y[j], 0) {
+				return nil, &RefusalError{Reason: fmt.Sprintf("cannot index series %q at %v: its values reach more than %.1e times that base, beyond the range of numbers", s.Name, base, math.MaxFloat64/100),
+					Instead: "index at a larger value of the series (IndexAt), or compare the values themselves"}
+			}
 		}
 		out[i] = Series{Name: s.Name, X: s.X, Y: y}
 	}
@@ -381,17 +402,17 @@ func indexBase(s Series, at *float64, isTime bool) (float64, error) {
 	} else {
 		base = interpolateAt(s, *at)
 		if math.IsNaN(base) {
-			return 0, &refusal{reason: fmt.Sprintf("series %q has no value at the index point (outside its range, or missing there)", s.Name),
-				instead: "choose an index point inside every series where both neighbours have values"}
+			return 0, &RefusalError{Reason: fmt.Sprintf("series %q has no value at the index point (outside its range, or missing there)", s.Name),
+				Instead: "choose an index point inside every series where both neighbours have values"}
 		}
 	}
 	if base == 0 || math.IsNaN(base) {
-		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q to 100 at a value of %v", s.Name, base),
-			instead: "index at a point where every series is non-zero, or compare the values themselves"}
+		return 0, &RefusalError{Reason: fmt.Sprintf("cannot index series %q to 100 at a value of %v", s.Name, base),
+			Instead: "index at a point where every series is non-zero, or compare the values themselves"}
 	}
 	if base < 0 {
-		return 0, &refusal{reason: fmt.Sprintf("cannot index series %q at a negative value: the index would run backwards", s.Name),
-			instead: "index at a point where every series is positive, or plot the differences with plumb diff"}
+		return 0, &RefusalError{Reason: fmt.Sprintf("cannot index series %q at a negative value: the index would run backwards", s.Name),
+			Instead: "index at a point where every series is positive, or plot the differences with plumb diff"}
 	}
 	return base, nil
 }
@@ -465,9 +486,9 @@ func xValueText(x float64, k xKind) string {
 
 // seriesColors gives each series its colour: one series in Neutral, a few
 // in the categorical palette.
-func (c *lineChart) seriesColors() []string {
+func (c *lineChart) seriesColors() []Colour {
 	n := len(c.series)
-	out := make([]string, n)
+	out := make([]Colour, n)
 	if n == 1 {
 		out[0] = c.f.th.neutral
 		return out
@@ -480,7 +501,7 @@ func (c *lineChart) seriesColors() []string {
 			out[i] = c.f.th.neutral
 			continue
 		}
-		out[i] = p[i].Hex()
+		out[i] = RGB(p[i])
 	}
 	return out
 }
@@ -489,8 +510,8 @@ func (c *lineChart) seriesColors() []string {
 type endLabel struct {
 	lines  []string
 	full   string
-	color  string // the series colour
-	text   string // the text colour: the series' hue, darkened until it reads at 4.5:1
+	color  Colour // the series colour
+	text   Colour // the text colour: the series' hue, darkened until it reads at 4.5:1
 	ex, ey float64
 }
 
@@ -498,7 +519,7 @@ type endLabel struct {
 // right of the plot. Each label takes its series' hue, darkened in OKLCH
 // lightness until it meets the 4.5:1 text contrast of WCAG 2.x on the white
 // background, so that label and line read as one.
-func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, float64) {
+func (f *frame) directLabels(names []string, colors []Colour, maxW float64) ([]endLabel, float64) {
 	sp := f.spec
 	labels := make([]endLabel, len(names))
 	width := 0.0
@@ -509,10 +530,8 @@ func (f *frame) directLabels(names, colors []string, maxW float64) ([]endLabel, 
 			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
 		}
 		txt := f.th.text
-		if col, err := palette.ParseHex(colors[i]); err == nil {
-			if dark, ok := palette.DarkenToContrast(col, white, 4.5); ok {
-				txt = dark.Hex()
-			}
+		if dark, ok := palette.DarkenToContrast(colors[i].SRGB(), white, 4.5); ok {
+			txt = RGB(dark)
 		}
 		labels[i] = endLabel{lines: lines, full: n, color: colors[i], text: txt}
 		for _, l := range lines {
@@ -565,7 +584,7 @@ func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool 
 	for i, l := range labels {
 		y := got[i]
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(right + sp.gap/2), round2(l.ey)}, {round2(x - sp.gap/2), round2(y)}}},
-			Stroke: f.th.muted, StrokeWidth: 0.75, Attrs: []Attr{{"series", l.full}}})
+			Stroke: f.th.muted, StrokeWidth: 0.75, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", l.full}}})
 		tip := ""
 		if strings.Join(l.lines, " ") != l.full {
 			tip = l.full
@@ -590,7 +609,7 @@ func (f *frame) legend(labels []endLabel, left, y float64) float64 {
 	y += sp.gap
 	for _, l := range labels {
 		cy := y + lh/2
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2, Join: JoinRound, Cap: CapRound})
 		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sp.text*1.5 + sp.gap, Y: cy + (asc-desc)/2, Text: l.full, Size: sp.text, Fill: l.text,
 			Attrs: []Attr{{"series", l.full}}})
 		y += lh
@@ -603,7 +622,7 @@ func (f *frame) legend(labels []endLabel, left, y float64) float64 {
 // path, and every piece of a single point (a value between two missing
 // ones, which a path would not show) as a dot as wide as the line, with
 // the value it stands for.
-func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, color string, width float64, isTime bool) {
+func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, color Colour, width float64, isTime bool) {
 	width = round2(width)
 	var lines [][]Point
 	var dots []Mark
@@ -617,7 +636,7 @@ func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, col
 			Attrs: []Attr{{"series", name}, {"x", xData(p.X[j], isTime)}, {"value", dataNumber(p.Y[j])}}})
 	}
 	if len(lines) > 0 {
-		f.scene.Add(Mark{Kind: Path, Class: class, Lines: lines, Stroke: color, StrokeWidth: width, Attrs: []Attr{{"series", name}}})
+		f.scene.Add(Mark{Kind: Path, Class: class, Lines: lines, Stroke: color, StrokeWidth: width, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", name}}})
 	}
 	f.scene.Add(dots...)
 }
@@ -673,9 +692,9 @@ func (c *lineChart) reduceWithin(g lineGeom, limit int) ([]scale.Polyline, int, 
 		before, after, bridged = before+len(s.X), after+len(polys[i].X), bridged+b
 	}
 	if after > limit {
-		return nil, 0, &refusal{reason: fmt.Sprintf("%s series draw %s points even after reduction to the pixel columns, more than the %s one figure draws",
+		return nil, 0, &RefusalError{Reason: fmt.Sprintf("%s series draw %s points even after reduction to the pixel columns, more than the %s one figure draws",
 			scale.Format{Group: true}.Format(float64(len(c.series))), scale.Format{Group: true}.Format(float64(after)), scale.Format{Group: true}.Format(float64(limit))),
-			instead: "aggregate the series (a mean or median per x), filter to the few that matter, or draw groups of them in separate figures"}
+			Instead: "aggregate the series (a mean or median per x), filter to the few that matter, or draw groups of them in separate figures"}
 	}
 	if after < before {
 		c.f.scene.Note("reduced", false, reduceNote(before, after))
@@ -697,7 +716,7 @@ func (c *lineChart) drawBase(ys scale.Linear, left, right float64) {
 		return
 	}
 	y := round2(ys.Map(100))
-	c.f.scene.Add(Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: c.f.th.baseline, StrokeWidth: 1,
+	c.f.scene.Add(Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: c.f.th.baseline, StrokeWidth: 1, Join: JoinRound, Cap: CapRound,
 		Attrs: []Attr{{"label", "index base"}, {"value", "100"}}})
 }
 
@@ -996,7 +1015,13 @@ func describeSeries(s Series, vf scale.Format, k xKind) string {
 		change = "down " + vf.Format(-d)
 	}
 	if d != 0 && s.Y[first] != 0 {
-		change += fmt.Sprintf(" (%+.0f%%)", 100*d/math.Abs(s.Y[first]))
+		pct := 100 * d / math.Abs(s.Y[first])
+		if math.IsInf(pct, 0) { // 100 * d overflowed, or the ratio did
+			pct = 100 * (d / math.Abs(s.Y[first]))
+		}
+		if !math.IsInf(pct, 0) {
+			change += fmt.Sprintf(" (%+.0f%%)", pct)
+		}
 	}
 	return fmt.Sprintf("%s: %s at %s, %s at %s, %s; highest %s at %s, lowest %s at %s.", s.Name,
 		vf.Format(s.Y[first]), xValueText(s.X[first], k), vf.Format(s.Y[last]), xValueText(s.X[last], k), change,

@@ -280,15 +280,15 @@ func TestLinesLabelsMatchTheirLines(t *testing.T) {
 	}
 	s, err := LinesScene(series, LinesOptions{})
 	require.NoError(t, err)
-	lineColor := map[string]string{}
+	lineColor := map[string]Colour{}
 	for _, m := range marksOf(s, "plumb-mark") {
 		lineColor[dataAttr(m, "series")] = m.Stroke
 	}
 	white := palette.SRGB{R: 1, G: 1, B: 1}
 	for _, l := range marksOf(s, "plumb-label") {
-		fill, err := palette.ParseHex(l.Fill)
+		fill, err := palette.ParseHex(l.Fill.Hex())
 		require.NoError(t, err)
-		line, err := palette.ParseHex(lineColor[dataAttr(l, "series")])
+		line, err := palette.ParseHex(lineColor[dataAttr(l, "series")].Hex())
 		require.NoError(t, err)
 		// WCAG 2.x text contrast.
 		assert.GreaterOrEqual(t, palette.Contrast(fill, white), 4.5, "%s in %s", l.Text, l.Fill)
@@ -423,7 +423,7 @@ func TestLinesDescriptionNamesX(t *testing.T) {
 	require.NoError(t, err)
 	assert.Contains(t, s.Desc, "over time")
 	assert.NotContains(t, s.Desc, "over x")
-	d, err := DiffScene(x, x, []float64{3, 2, 1}, DiffOptions{XName: "week"})
+	d, err := DiffScene(Series{X: x, Y: x}, Series{X: x, Y: []float64{3, 2, 1}}, DiffOptions{XName: "week"})
 	require.NoError(t, err)
 	assert.Contains(t, d.Desc, "over week")
 }
@@ -449,7 +449,7 @@ func TestDiffIsolatedValuesDrawn(t *testing.T) {
 	x := []float64{1, 2, 3, 4, 5, 6, 7}
 	a := []float64{5, nan, 7, nan, 3, 4, 6}
 	b := []float64{4, 4, 4, 4, nan, 2, 2}
-	s, err := DiffScene(x, a, b, DiffOptions{})
+	s, err := DiffScene(Series{X: x, Y: a}, Series{X: x, Y: b}, DiffOptions{})
 	require.NoError(t, err)
 	var dots []Mark
 	for _, m := range marksOf(s, "plumb-mark") {

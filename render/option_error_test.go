@@ -136,8 +136,8 @@ func TestLibraryMessagesNameNoFlags(t *testing.T) {
 	keep(LinesScene(big, LinesOptions{}))
 	keep(LinesScene(big, LinesOptions{Index: true, Aspect: "3:1"}))
 	keep(LinesScene(big, LinesOptions{Common: Common{Width: 40}}))
-	keep(DiffScene(xs, big[0].Y, big[1].Y, DiffOptions{Common: small}))
-	keep(DiffScene(xs, big[0].Y, big[1].Y, DiffOptions{Common: Common{Width: 30}}))
+	keep(DiffScene(Series{Name: "a", X: xs, Y: big[0].Y}, Series{Name: "b", X: xs, Y: big[1].Y}, DiffOptions{Common: small}))
+	keep(DiffScene(Series{Name: "a", X: xs, Y: big[0].Y}, Series{Name: "b", X: xs, Y: big[1].Y}, DiffOptions{Common: Common{Width: 30}}))
 	require.Greater(t, len(msgs), 15)
 	for _, m := range msgs {
 		assert.NotContains(t, m, "--", m)

@@ -1,5 +1,7 @@
 package render
 
+import "plumb/layout"
+
 // A Scene is a flat, ordered display list: everything a backend needs to draw
 // a figure and nothing it would have to decide. Builders measure and place;
 // backends only serialise. The zero Scene is an empty 0x0 figure.
@@ -14,10 +16,14 @@ type Scene struct {
 
 // Font names the typeface the scene was measured with. When Data is set the
 // SVG backend embeds it, so that any viewer draws what layout measured.
+// Faces are the parsed faces themselves: a raster backend draws Text marks
+// with Faces.Face(mark.Bold) and so sets exactly the widths the builder
+// measured.
 type Font struct {
-	Family string // CSS font-family list, e.g. "Go, sans-serif"
-	Data   []byte // TTF/OTF bytes to embed, or nil
-	Format string // "truetype" or "opentype" when Data is set
+	Family string       // CSS font-family list, e.g. "Go, sans-serif"
+	Data   []byte       // TTF/OTF bytes to embed, or nil
+	Format string       // "truetype" or "opentype" when Data is set
+	Faces  layout.Fonts // the regular and bold faces every text was measured with
 }
 
 // Kind says which primitive a Mark is.
@@ -55,7 +61,8 @@ type Point struct{ X, Y float64 }
 //	Rect:       X, Y, W, H, Fill
 //	Circle:     X, Y (centre), R, Fill, Stroke
 //	Path:       Lines (each inner slice one polyline, drawn with M then L),
-//	            Closed to close every polyline (areas), Fill, Stroke, StrokeWidth
+//	            Closed to close every polyline (areas), Fill, Stroke,
+//	            StrokeWidth, Join, Cap, Dash
 //	Text:       X, Y (baseline), Text, Size, Bold, Anchor, Fill
 //	GroupStart: DX, DY (translate), Class
 //
@@ -73,11 +80,13 @@ type Mark struct {
 	Size        float64
 	Bold        bool
 	Anchor      Anchor
-	Fill        string // "#rrggbb"; empty means none
-	Stroke      string // "#rrggbb"; empty means none
+	Fill        Colour // the zero Colour means none
+	Stroke      Colour // the zero Colour means none
 	StrokeWidth float64
-	Opacity     float64 // 0 means fully opaque
-	Dash        string  // stroke-dasharray, e.g. "3 2"
+	Join        LineJoin  // corners of the stroke; the zero value is a mitre
+	Cap         LineCap   // ends of the stroke; the zero value is butt
+	Opacity     float64   // 0 means fully opaque
+	Dash        []float64 // dash and gap lengths in px, repeated; nil is solid
 	Attrs       []Attr
 	Tooltip     string
 }

@@ -65,19 +65,15 @@ func (e SVGEncoder) Encode(w io.Writer, s *Scene) error {
 	doc := svg.New(&head)
 	doc.Decimals = 2
 	id := e.sceneID(s, body.Bytes())
-	family := s.Font.Family
-	if family == "" {
-		family = "Go, sans-serif"
-	}
-	if s.Font.Data != nil {
-		family = FontFamilyName(s.Font) + ", " + family
-	}
-	doc.Start(round2(s.Width), round2(s.Height),
+	root := []string{
 		fmt.Sprintf(`viewBox="0 0 %s %s"`, num(s.Width), num(s.Height)),
 		`role="img"`,
 		fmt.Sprintf(`aria-labelledby="%s-title %s-desc"`, id, id),
-		attr("font-family", family),
-	)
+	}
+	if family := fontFamily(s.Font); family != "" {
+		root = append(root, attr("font-family", family))
+	}
+	doc.Start(round2(s.Width), round2(s.Height), root...)
 	h := head.Bytes()
 	if e.Fragment {
 		h = h[bytes.Index(h, []byte("<svg")):]
@@ -96,6 +92,16 @@ func (e SVGEncoder) Encode(w io.Writer, s *Scene) error {
 	bw.Write(body.Bytes())
 	bw.WriteString("</svg>\n")
 	return bw.Flush()
+}
+
+// fontFamily is the CSS font-family list of the scene's font: the embedded
+// face first when there is one, then the family the scene names.
+func fontFamily(f Font) string {
+	family := f.Family
+	if f.Data != nil {
+		family = strings.TrimSuffix(FontFamilyName(f)+", "+family, ", ")
+	}
+	return family
 }
 
 // FontFamilyName is the CSS family under which an embedded font is declared:
@@ -177,21 +183,26 @@ func markAttrs(m *Mark) []string {
 		a = append(a, attr("class", m.Class))
 	}
 	if m.Kind != GroupStart && m.Kind != GroupEnd {
-		fill := m.Fill
-		if fill == "" {
-			fill = "none"
+		a = append(a, attr("fill", m.Fill.Hex()))
+		if m.Fill.A != 0 && m.Fill.A != 255 {
+			a = append(a, fmt.Sprintf(`fill-opacity="%s"`, alpha(m.Fill.A)))
 		}
-		a = append(a, attr("fill", fill))
-		if m.Stroke != "" {
-			a = append(a, attr("stroke", m.Stroke))
+		if !m.Stroke.IsNone() {
+			a = append(a, attr("stroke", m.Stroke.Hex()))
+			if m.Stroke.A != 255 {
+				a = append(a, fmt.Sprintf(`stroke-opacity="%s"`, alpha(m.Stroke.A)))
+			}
 			if m.StrokeWidth > 0 {
 				a = append(a, fmt.Sprintf(`stroke-width="%s"`, num(m.StrokeWidth)))
 			}
-			if m.Kind == Path {
-				a = append(a, `stroke-linejoin="round"`, `stroke-linecap="round"`)
+			if j := joinName(m.Join); j != "" {
+				a = append(a, `stroke-linejoin="`+j+`"`)
 			}
-			if m.Dash != "" {
-				a = append(a, attr("stroke-dasharray", m.Dash))
+			if c := capName(m.Cap); c != "" {
+				a = append(a, `stroke-linecap="`+c+`"`)
+			}
+			if len(m.Dash) > 0 {
+				a = append(a, attr("stroke-dasharray", dashArray(m.Dash)))
 			}
 		}
 		if m.Opacity > 0 && m.Opacity < 1 {
@@ -202,6 +213,42 @@ func markAttrs(m *Mark) []string {
 		a = append(a, attr("data-"+d.Name, d.Value))
 	}
 	return a
+}
+
+// joinName and capName spell the joins and caps that differ from SVG's
+// defaults; the defaults (and unknown values) are left unwritten.
+func joinName(j LineJoin) string {
+	switch j {
+	case JoinRound:
+		return "round"
+	case JoinBevel:
+		return "bevel"
+	}
+	return ""
+}
+
+func capName(c LineCap) string {
+	switch c {
+	case CapRound:
+		return "round"
+	case CapSquare:
+		return "square"
+	}
+	return ""
+}
+
+// alpha writes an 8-bit alpha as an opacity with at most three decimals.
+func alpha(a uint8) string {
+	return strconv.FormatFloat(math.Round(float64(a)/255*1000)/1000, 'f', -1, 64)
+}
+
+// dashArray writes dash lengths separated by spaces.
+func dashArray(d []float64) string {
+	parts := make([]string, len(d))
+	for i, v := range d {
+		parts[i] = num(v)
+	}
+	return strings.Join(parts, " ")
 }
 
 // pathData writes polylines with absolute M and L commands only, so that

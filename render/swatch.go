@@ -41,7 +41,7 @@ func PaletteSheet(title string, colors []palette.SRGB) *Scene {
 		return fonts.Face(bold).Width(s, size) * sheetSlack
 	}
 	p := palette.Palette(colors)
-	text, muted := palette.Text().Hex(), palette.Muted().Hex()
+	text, muted := RGB(palette.Text()), RGB(palette.Muted())
 
 	type column struct {
 		v    palette.Vision
@@ -66,7 +66,7 @@ func PaletteSheet(title string, colors []palette.SRGB) *Scene {
 	}
 	labelW := measure("#000000", sheetText, false) + sheetColGap
 
-	s := &Scene{Title: title}
+	s := &Scene{Title: title, Font: Font{Family: fonts.Face(false).Family() + ", sans-serif", Faces: layout.Fonts{Regular: fonts.Face(false), Bold: fonts.Face(true)}}}
 	if s.Title == "" {
 		s.Title = "Palette"
 	}
@@ -88,7 +88,7 @@ func PaletteSheet(title string, colors []palette.SRGB) *Scene {
 			seen := palette.Simulate(col, c.v, 1)
 			s.Add(Mark{Kind: Rect, Class: "plumb-mark plumb-swatch",
 				X: x, Y: sheetHeaderH + float64(r)*(sheetSwatchH+sheetRowGap),
-				W: colW - sheetColGap, H: sheetSwatchH, Fill: seen.Hex(),
+				W: colW - sheetColGap, H: sheetSwatchH, Fill: RGB(seen),
 				Attrs: []Attr{{"label", col.Hex()}, {"value", seen.Hex()}, {"series", c.v.String()}}})
 		}
 		y := sheetHeaderH + rowsH + sheetText

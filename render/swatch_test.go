@@ -33,7 +33,7 @@ func TestPaletteSheet(t *testing.T) {
 		switch {
 		case m.Kind == Rect:
 			rects++
-			if len(m.Attrs) < 2 || m.Attrs[0].Name != "label" || m.Attrs[1].Name != "value" || m.Attrs[1].Value != m.Fill {
+			if len(m.Attrs) < 2 || m.Attrs[0].Name != "label" || m.Attrs[1].Name != "value" || m.Attrs[1].Value != m.Fill.Hex() {
 				t.Errorf("swatch attrs %v fill %s", m.Attrs, m.Fill)
 			}
 		case strings.Contains(m.Class, "plumb-distance"):
@@ -48,7 +48,7 @@ func TestPaletteSheet(t *testing.T) {
 	for _, m := range s.Marks {
 		if m.Kind == Rect && len(m.Attrs) > 2 && m.Attrs[2].Value == "deutan" && m.Attrs[0].Value == "#cc3333" {
 			found = true
-			if m.Fill == "#cc3333" {
+			if m.Fill.Hex() == "#cc3333" {
 				t.Error("deutan swatch not simulated")
 			}
 		}

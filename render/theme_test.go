@@ -16,7 +16,7 @@ func TestThemeContrast(t *testing.T) {
 	white := palette.SRGB{R: 1, G: 1, B: 1}
 	tests := []struct {
 		name   string
-		hex    string
+		hex    Colour
 		lo, hi float64 // contrast on white
 	}{
 		{"grid", th.grid, 1.1, 1.5},
@@ -28,7 +28,7 @@ func TestThemeContrast(t *testing.T) {
 		{"muted", th.muted, palette.MinTextContrast, 21},
 	}
 	for _, tc := range tests {
-		c, err := palette.ParseHex(tc.hex)
+		c, err := palette.ParseHex(tc.hex.Hex())
 		if err != nil {
 			t.Fatalf("theme colour %s %q: %v", tc.name, tc.hex, err)
 		}
@@ -45,7 +45,7 @@ func TestThemeIsDerived(t *testing.T) {
 	th := defaultTheme()
 	tests := []struct {
 		name string
-		got  string
+		got  Colour
 		want palette.SRGB
 	}{
 		{"neutral", th.neutral, palette.Neutral()},
@@ -57,7 +57,7 @@ func TestThemeIsDerived(t *testing.T) {
 		{"muted", th.muted, palette.Muted()},
 	}
 	for _, tc := range tests {
-		if tc.got != tc.want.Hex() {
+		if tc.got.Hex() != tc.want.Hex() {
 			t.Errorf("theme %s = %s, want the generated %s", tc.name, tc.got, tc.want.Hex())
 		}
 	}

@@ -704,6 +704,9 @@ func steppedTicks(lo, hi float64, con constraint) (Ticks, bool) {
 	v := make([]float64, int(n))
 	for i := range v {
 		v[i] = (i0 + float64(i)) * step
+		if !isFinite(v[i]) { // the next step beyond ±1.8e308 overflows
+			return Ticks{}, false
+		}
 	}
 	d, _ := exactDecimals(v, 1, maxTickDecimals)
 	return Ticks{Values: v, Step: step, Decimals: d}, true

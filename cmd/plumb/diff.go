@@ -12,7 +12,8 @@ import (
 type diffRun struct {
 	shared
 	xFlags
-	opt render.DiffOptions
+	opt  render.DiffOptions
+	a, b string // the columns of the two series, which become their names
 }
 
 func newDiff() *diffRun {
@@ -26,44 +27,44 @@ func (r *diffRun) base() *shared { return &r.shared }
 func (r *diffRun) flags() []flagDef {
 	o := &r.opt
 	defs := append(r.xFlags.flags(&o.Unit, &o.XName),
-		flagDef{name: "a", sets: []string{"AName"}, arg: "COLUMN", usage: "COLUMN of the first series (default: the first numeric column after x)", value: stringValue{&o.AName}},
-		flagDef{name: "b", sets: []string{"BName"}, arg: "COLUMN", usage: "COLUMN of the second series, subtracted from a (default: the next numeric column)", value: stringValue{&o.BName}},
+		flagDef{name: "a", arg: "COLUMN", usage: "COLUMN of the first series (default: the first numeric column after x)", value: stringValue{&r.a}},
+		flagDef{name: "b", arg: "COLUMN", usage: "COLUMN of the second series, subtracted from a (default: the next numeric column)", value: stringValue{&r.b}},
 		flagDef{name: "context", sets: []string{"Context"}, usage: "add a panel above with both series on the same x scale", value: boolValue{&o.Context}},
 	)
 	return append(defs, r.shared.flags()...)
 }
 
 func (r *diffRun) load(path string, stdin io.Reader, _ func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
-	x, a, b, notes, err := r.read(path, stdin)
+	a, b, notes, err := r.read(path, stdin)
 	if err != nil {
 		return nil, nil, err
 	}
-	return notes, func(w io.Writer) ([]render.Note, error) { return render.Diff(w, x, a, b, r.opt) }, nil
+	return notes, func(w io.Writer) ([]render.Note, error) { return render.Diff(w, a, b, r.opt) }, nil
 }
 
 // read reads the x, a and b columns, in x order, and finishes the options
 // from the data: the columns chosen, the x kind, the unit, the x name.
-func (r *diffRun) read(path string, stdin io.Reader) (x, a, b []float64, notes []render.Note, err error) {
+func (r *diffRun) read(path string, stdin io.Reader) (a, b render.Series, notes []render.Note, err error) {
 	opt := &r.opt
 	var want []string
-	if r.x != "" && opt.AName != "" && opt.BName != "" {
-		want = []string{r.x, opt.AName, opt.BName}
+	if r.x != "" && r.a != "" && r.b != "" {
+		want = []string{r.x, r.a, r.b}
 	}
 	t, notes, err := readData(path, r.readOptions(), want, stdin)
 	if err != nil {
-		return nil, nil, nil, nil, err
+		return a, b, nil, err
 	}
 	if t.Len() == 0 {
-		return nil, nil, nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+		return a, b, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
 	xcol := r.x
 	if xcol == "" && len(t.Header) > 0 {
 		xcol = t.Header[0]
 	}
 	if !t.Has(xcol) {
-		return nil, nil, nil, nil, t.missingColumn(xcol, 1)
+		return a, b, nil, t.missingColumn(xcol, 1)
 	}
-	acol, bcol := opt.AName, opt.BName
+	acol, bcol := r.a, r.b
 	if acol == "" || bcol == "" {
 		nums, first := t.NumericColumns(xcol, []string{acol, bcol}, 2, false)
 		if acol == "" && len(nums) > 0 {
@@ -74,41 +75,41 @@ func (r *diffRun) read(path string, stdin io.Reader) (x, a, b []float64, notes [
 		}
 		if acol == "" || bcol == "" {
 			if first != nil {
-				return nil, nil, nil, nil, first // a bad cell in a column that was likely meant
+				return a, b, nil, first // a bad cell in a column that was likely meant
 			}
-			return nil, nil, nil, nil, tooFewColumns(t, "a difference needs two numeric columns; name them with --a and --b")
+			return a, b, nil, tooFewColumns(t, "a difference needs two numeric columns; name them with --a and --b")
 		}
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("drawing %q minus %q over %q (choose with --x, --a and --b)", acol, bcol, xcol)})
 	}
 	xc, xn, err := readX(t, xcol, r.xFormat)
 	if err != nil {
-		return nil, nil, nil, nil, err
+		return a, b, nil, err
 	}
 	notes = append(notes, xn...)
 	av, _, err := t.Numbers(acol)
 	if err != nil {
-		return nil, nil, nil, nil, err
+		return a, b, nil, err
 	}
 	bv, _, err := t.Numbers(bcol)
 	if err != nil {
-		return nil, nil, nil, nil, err
+		return a, b, nil, err
 	}
 	rows, err := orderRows(t, xcol, xc.values, allRows(t.Len()))
 	if err != nil {
-		return nil, nil, nil, nil, err
+		return a, b, nil, err
 	}
-	x = xc.values
+	x := xc.values
 	if rows != nil {
 		x, av, bv = pick(x, rows), pick(av, rows), pick(bv, rows)
 		notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
 	}
 	notes = append(notes, t.numberNotes(acol, bcol)...)
-	opt.Time, opt.AName, opt.BName = xc.time, acol, bcol
+	opt.Time = xc.time
 	if opt.Unit == "" {
 		opt.Unit = t.unitOf(acol, bcol)
 	}
 	if opt.XName == "" && !xc.time {
 		opt.XName = xcol
 	}
-	return x, av, bv, notes, nil
+	return render.Series{Name: acol, X: x, Y: av}, render.Series{Name: bcol, X: x, Y: bv}, notes, nil
 }

@@ -64,7 +64,7 @@ func randomLines(t *testing.T, rng *rand.Rand, diff bool) ([]byte, render.Common
 	var svg bytes.Buffer
 	var err error
 	if diff {
-		_, err = render.Diff(&svg, xs, series[0].Y, series[1].Y, render.DiffOptions{Common: c, Time: isTime, Context: rng.IntN(2) == 0, AName: "north route", BName: "south route"})
+		_, err = render.Diff(&svg, render.Series{Name: "north route", X: xs, Y: series[0].Y}, render.Series{Name: "south route", X: xs, Y: series[1].Y}, render.DiffOptions{Common: c, Time: isTime, Context: rng.IntN(2) == 0})
 	} else {
 		_, err = render.Lines(&svg, series, render.LinesOptions{Common: c, Time: isTime, Index: rng.IntN(5) == 0 && gaps == 0})
 	}

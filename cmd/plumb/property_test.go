@@ -113,7 +113,7 @@ func TestLinesProperty(t *testing.T) {
 		var svg bytes.Buffer
 		var err error
 		if trial%3 == 2 && k >= 2 {
-			_, err = render.Diff(&svg, xs, series[0].Y, series[1].Y, render.DiffOptions{Common: c, Time: isTime, Context: rng.IntN(2) == 0, AName: series[0].Name, BName: series[1].Name})
+			_, err = render.Diff(&svg, series[0], series[1], render.DiffOptions{Common: c, Time: isTime, Context: rng.IntN(2) == 0})
 		} else {
 			_, err = render.Lines(&svg, series, render.LinesOptions{Common: c, Time: isTime, Index: rng.IntN(4) == 0})
 		}

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
@@ -132,8 +133,25 @@ func textBoxes(t *testing.T, root *svgNode) ([]layout.Box, []string) {
 
 // checkFigure asserts what every figure must satisfy: an accessible root,
 // a description, no text overlapping other text or leaving the canvas.
+// notFinite matches how Go writes numbers that are not finite ("NaN",
+// "+Inf", "-Inf", and "−Inf" with the minus our number formats use), where
+// no letter touches them, so that words like "Info" pass.
+var notFinite = regexp.MustCompile(`(^|[^\pL])(NaN|[+\-−]Inf)([^\pL]|$)`)
+
+// checkNoNaN fails when a figure carries a number that is not finite
+// anywhere: an attribute such as width="+Inf", a path through NaN, a
+// "NaN%" label, or a description or note quoting one.
+func checkNoNaN(t *testing.T, data []byte) {
+	t.Helper()
+	if loc := notFinite.FindIndex(data); loc != nil {
+		lo, hi := max(0, loc[0]-120), min(len(data), loc[1]+60)
+		t.Errorf("the figure holds a number that is not finite: …%s…", data[lo:hi])
+	}
+}
+
 func checkFigure(t *testing.T, data []byte) *svgNode {
 	t.Helper()
+	checkNoNaN(t, data)
 	root := parseSVG(t, data)
 	if root.Attr["role"] != "img" {
 		t.Errorf(`root has role=%q, want "img"`, root.Attr["role"])
