@@ -40,9 +40,10 @@ func defaultTheme() theme {
 // text against the bar. Dark is tried first because every other text on
 // the figure is dark on light: the label keeps the figure's polarity
 // wherever the bar allows it. The hue ties the label to its bar, as a
-// tint of the bar rather than a white hole in it. ok is false when
-// neither direction reaches 4.5:1 (a bar of middle luminance), and the
-// label must then stay outside the bar.
+// tint of the bar rather than a white hole in it. One direction always
+// reaches 4.5:1: black and white end every hue, and against any colour
+// one of them has at least √21 = 4.58:1 (their contrasts multiply to 21).
+// ok is false only for a fill that is not a colour.
 func insideLabel(fill string) (string, bool) {
 	bar, err := palette.ParseHex(fill)
 	if err != nil {
