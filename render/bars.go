@@ -9,7 +9,6 @@ import (
 	"strconv"
 	"strings"
 
-	"plumb/palette"
 	"plumb/scale"
 )
 
@@ -237,10 +236,7 @@ func (c *rowChart) rowsThatFit() int {
 	}
 	sp := f.spec
 	lh := lineHeight(sp.text)
-	axisH := sp.gap + lh
-	if c.axisTitle() != "" {
-		axisH += lh
-	}
+	axisH := sp.gap + lh + c.unitLineH()
 	// The note line under the chart takes one small line when rows are left out.
 	room := f.fixedPlotBottom() - lineHeight(sp.small) - axisH - f.plotTop()
 	n := int(room / (lh + sp.gap/2))
@@ -424,19 +420,12 @@ func (c *rowChart) fill(r row) Colour {
 	return c.f.th.neutral
 }
 
-// insideColour is the colour for value text inside a bar of this fill:
-// white, or else the text colour, whichever meets WCAG 2.x's 4.5:1 for
-// text; None when neither does and the value must sit outside.
+// insideColour is the colour for value text inside a bar of this fill,
+// derived from the bar's hue with 4.5:1 against it (insideLabel); None when
+// no such colour exists and the value must sit outside.
 func (c *rowChart) insideColour(fill Colour) Colour {
-	if fill.IsNone() {
-		return None
-	}
-	for _, t := range []Colour{c.f.th.inside, c.f.th.text} {
-		if palette.Contrast(fill.SRGB(), t.SRGB()) >= palette.MinTextContrast {
-			return t
-		}
-	}
-	return None
+	col, _ := insideLabel(fill)
+	return col
 }
 
 // layoutRows draws horizontal bars or dots, one row per category, and
@@ -444,11 +433,9 @@ func (c *rowChart) insideColour(fill Colour) Colour {
 func (c *rowChart) layoutRows() (float64, error) {
 	f, sp := c.f, c.f.spec
 	lh := lineHeight(sp.text)
-	top := f.plotTop()
+	unit := c.unitLine()
+	top := f.plotTop() + c.unitLineH()
 	axisH := sp.gap + lh
-	if c.axisTitle() != "" {
-		axisH += lh
-	}
 	// Rows: two lines of label where height allows, else one.
 	maxLines, band := 2, 0.0
 	if fb := f.fixedPlotBottom(); fb > 0 {
@@ -476,6 +463,7 @@ func (c *rowChart) layoutRows() (float64, error) {
 	g.xs = scale.Linear{D0: c.d0, D1: c.d1, R0: g.x0, R1: g.x1}
 	g.zero = round2(g.xs.Map(0))
 	bottom := top + float64(len(c.rows))*band
+	c.drawUnitLine(&g, unit)
 	axisBottom := c.drawAxisBelow(&g, bottom)
 	for i, r := range c.rows {
 		c.drawRow(&g, i, r, wrapped[i], vtext[i], inside[i])
@@ -600,17 +588,88 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 	if c.dots {
 		return inside
 	}
-	k := (g.x1 - g.x0) / (c.d1 - c.d0)
-	changed := false
-	for i, r := range c.rows {
-		if math.Abs(r.value)*k >= vw[i]+2*sp.gap && !c.insideColour(c.fill(r)).IsNone() {
-			inside[i], changed = true, true
+	// Value labels sit outside the bar ends, in the text colour: the bar
+	// keeps its full length and one colour, and the label reads as text on
+	// the page like every other label. Only when the room they take would
+	// cost the bars more than a quarter of their row (maxLabelShare) do the
+	// labels of the bars long enough to hold them move inside, which gives
+	// that room back where it is taken: at the longest bars.
+	row := right - g.plotL
+	for {
+		rl, rr := reserve()
+		if row <= 0 || rl+rr <= maxLabelShare*row {
+			return inside
 		}
-	}
-	if changed {
+		// The labels that set the room on the side taking more of it go
+		// in, if their bars hold them: the fewest labels move, and a label
+		// that cannot move leaves the others outside.
+		side := math.Max(rl, rr)
+		k := (g.x1 - g.x0) / (c.d1 - c.d0)
+		var move []int
+		for i, r := range c.rows {
+			if inside[i] || (r.value < 0) != (rl > rr) || vw[i]+sp.gap < side-1e-9 {
+				continue
+			}
+			if math.Abs(r.value)*k < vw[i]+2*sp.gap || c.insideColour(c.fill(r)).IsNone() {
+				return inside
+			}
+			move = append(move, i)
+		}
+		if len(move) == 0 {
+			return inside
+		}
+		for _, i := range move {
+			inside[i] = true
+		}
 		place()
 	}
-	return inside
+}
+
+// maxLabelShare is the most of a bar row the value labels outside the bars
+// may take. The row's length is the bar chart's resolution: every pixel
+// given to labels shortens every bar and the differences between them by
+// the same factor. A quarter is the trade plumb makes (its own choice): at
+// 640 px a label of eight characters stays outside; on a narrow canvas the
+// labels move inside rather than shrink the bars further.
+const maxLabelShare = 0.25
+
+// unitLine is the value axis title (what is measured, in what unit) of a
+// chart with horizontal rows, wrapped to the room right of the widest
+// category label column (38% of the inner width, see layoutRows).
+func (c *rowChart) unitLine() axisTitleText {
+	title := c.axisTitle()
+	if title == "" {
+		return axisTitleText{}
+	}
+	sp := c.f.spec
+	return c.f.axisTitle(title, (c.f.width-2*sp.pad)*0.62-sp.gap*1.5)
+}
+
+// unitLineH is the height the unit line takes above the rows, with the gap
+// that joins it to them.
+func (c *rowChart) unitLineH() float64 {
+	t := c.unitLine()
+	if len(t.lines) == 0 {
+		return 0
+	}
+	return t.height(lineHeight(c.f.spec.text)) + c.f.spec.gap
+}
+
+// drawUnitLine sets the unit line above the rows, starting where the value
+// axis starts: it is read before the data, as the heading of the bars'
+// column, and it names the axis whose ticks run below. A line longer than
+// the room right of that point moves left, never past the plot's edge.
+func (c *rowChart) drawUnitLine(g *rowGeom, t axisTitleText) {
+	if len(t.lines) == 0 {
+		return
+	}
+	f, sp := c.f, c.f.spec
+	widest := 0.0
+	for _, l := range t.lines {
+		widest = math.Max(widest, f.measure(l, sp.text, false))
+	}
+	x := math.Max(math.Min(g.x0, f.width-sp.pad-widest), math.Min(g.plotL, f.width-sp.pad-widest))
+	f.drawAxisTitle(t, round2(math.Max(x, sp.pad)), f.plotTop())
 }
 
 // drawAxisBelow draws the grid, the tick labels under the rows, the axis
@@ -630,10 +689,6 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 		f.text(x, bottom+sp.gap+asc, labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
 	}
 	axisBottom := bottom + sp.gap + lh
-	if title := c.axisTitle(); title != "" {
-		f.text((g.x0+g.x1)/2, axisBottom+asc, title, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
-		axisBottom += lh
-	}
 	f.scene.Add(Mark{Kind: GroupEnd})
 	if !c.dots {
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})

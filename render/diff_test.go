@@ -95,7 +95,7 @@ func TestDiffLongNamesFit(t *testing.T) {
 			assertNoOverlap(t, s)
 			labels := 0
 			for _, mk := range s.Marks {
-				if mk.Kind == Text && mk.Class == "plumb-label" && strings.Contains(mk.Tooltip, " above ") {
+				if mk.Kind == Text && mk.Class == "plumb-label" && strings.Contains(mk.Text+mk.Tooltip, " above ") {
 					labels++
 					assert.Contains(t, mk.Text, " above ", "the shortened label still says which is above")
 				}

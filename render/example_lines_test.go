@@ -22,7 +22,7 @@ func ExampleLines() {
 		fmt.Println(n)
 	}
 	// Output:
-	// banked to 45° by median absolute slope (Cleveland, McGill & McGill 1988): plot 525 × 630 px
+	// banked to 45° by median absolute slope (Cleveland, McGill & McGill 1988): plot 530 × 636 px
 }
 
 // A difference chart: north − south against zero, crossings interpolated.
@@ -38,5 +38,5 @@ func ExampleDiff() {
 	}
 	fmt.Println(len(notes), "note:", notes[0])
 	// Output:
-	// 1 note: banked to 45° by median absolute slope (Cleveland, McGill & McGill 1988): plot 574 × 359 px
+	// 1 note: banked to 45° by median absolute slope (Cleveland, McGill & McGill 1988): plot 578 × 361 px
 }

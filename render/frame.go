@@ -13,10 +13,10 @@ import (
 // medium and the fonts. Its zero value draws an untitled screen figure set in
 // the Go fonts.
 type Common struct {
-	Title    string // above the plot, bold
-	Subtitle string // under the title: what is measured, in what unit
-	Source   string // under the plot: where the numbers come from
-	Note     string // under the source: anything else the reader must know
+	Title    string // above everything: what the figure is
+	Subtitle string // under the title: what is measured, as a sentence
+	Source   string // last line of the figure: where the numbers come from
+	Note     string // under the plot, before the source: what else the reader must know
 
 	Medium        Medium  // print, screen (default) or slide
 	Width, Height float64 // canvas size in pixels; 0 takes the medium's
@@ -55,7 +55,8 @@ type frame struct {
 	slack float64
 
 	head  []textLine // title and subtitle lines, relative to the top pad
-	foot  []textLine // source and note lines, relative to the footer top
+	foot  []textLine // note and source lines, relative to the footer top
+	notes []string   // notes the chart added under the plot (addNote)
 	headH float64
 	footH float64
 }
@@ -104,23 +105,43 @@ func newFrame(c Common) (*frame, error) {
 	if inner < 4*spec.text {
 		return nil, fmt.Errorf("width %g is too narrow for text of %g px", spec.width, spec.text)
 	}
+	// The title block follows the order in which a figure is read: what
+	// it is (the title), what is measured (the subtitle, then the unit
+	// line the chart sets above its plot), the data, and last what
+	// qualifies it and where it comes from (notes, then the source). See
+	// "Theme" in DEVELOPERS.md for each choice and its reason.
 	y := 0.0
-	y = f.block(&f.head, y, c.Title, spec.title, true, f.th.text, "plumb-title", inner, 3)
-	y = f.block(&f.head, y, c.Subtitle, spec.text, false, f.th.muted, "plumb-subtitle", inner, 3)
+	y = f.block(&f.head, y, c.Title, spec.title, false, f.th.text, "plumb-title", inner, 3)
+	y = f.block(&f.head, y, c.Subtitle, spec.subtitle, false, f.th.text, "plumb-subtitle", inner, 3)
 	if y > 0 {
-		y += spec.gap * 2
+		y += f.blockGap()
 	}
 	f.headH = y
-	y = 0
-	if c.Source != "" {
-		y = f.block(&f.foot, y, "Source: "+c.Source, spec.small, false, f.th.muted, "plumb-note", inner, 3)
+	f.layoutFoot()
+	return f, nil
+}
+
+// blockGap is the space between the title block, the plot and the footer:
+// one em of the text step, more than any space inside a block (the 0.25 em
+// between lines, the gap between a label and its mark), so that by
+// proximity the three read as separate groups with no rule drawn.
+func (f *frame) blockGap() float64 { return f.spec.text }
+
+// layoutFoot lays out the footer: the caller's note and the notes the chart
+// adds (what the reader cannot see in the plot) come first, next to the
+// data they qualify; the source ends the figure, as a citation ends a quote.
+func (f *frame) layoutFoot() {
+	sp := f.spec
+	inner := f.width - 2*sp.pad
+	f.foot = f.foot[:0]
+	y := f.block(&f.foot, 0, f.c.Note, sp.small, false, f.th.muted, "plumb-note", inner, 4)
+	for _, n := range f.notes {
+		y = f.block(&f.foot, y, n, sp.small, false, f.th.muted, "plumb-note", inner, 2)
 	}
-	y = f.block(&f.foot, y, c.Note, spec.small, false, f.th.muted, "plumb-note", inner, 4)
-	if y > 0 {
-		y += spec.gap
+	if f.c.Source != "" {
+		y = f.block(&f.foot, y, "Source: "+f.c.Source, sp.small, false, f.th.muted, "plumb-note plumb-source", inner, 3)
 	}
 	f.footH = y
-	return f, nil
 }
 
 // block wraps text into lines below y and returns the y under the last line.
@@ -152,7 +173,7 @@ func (f *frame) finish(plotBottom float64) *Scene {
 	for _, l := range f.head {
 		f.scene.Add(f.textMark(s.pad, s.pad+l.y, l, Start))
 	}
-	top := plotBottom + s.gap*2
+	top := plotBottom + f.blockGap()
 	for _, l := range f.foot {
 		f.scene.Add(f.textMark(s.pad, top+l.y, l, Start))
 	}
@@ -173,9 +194,8 @@ func (f *frame) fixedPlotBottom() float64 {
 	if f.spec.height == 0 {
 		return 0
 	}
-	return f.spec.height - f.spec.pad - f.footH - f.spec.gap*2
+	return f.spec.height - f.spec.pad - f.footH - f.blockGap()
 }
-
 func (f *frame) textMark(x, y float64, l textLine, a Anchor) Mark {
 	return Mark{Kind: Text, Class: l.class, X: x, Y: y, Text: l.text, Size: l.size, Bold: l.bold, Fill: l.fill, Anchor: a, Tooltip: l.tooltip}
 }
@@ -199,14 +219,10 @@ func (f *frame) wrap(text string, size float64, bold bool, width float64, maxLin
 	return layout.Wrap(f.fonts.Face(bold), text, size, width/f.slack, maxLines)
 }
 
-// addNote adds a line under the chart, below the source and note, for what
+// addNote adds a line under the chart, after the note and before the source, for what
 // the reader cannot see in the plot (categories left out). Call it before
 // laying out the plot: on a fixed canvas the plot's height depends on it.
 func (f *frame) addNote(text string) {
-	y := f.footH
-	if y > 0 {
-		y -= f.spec.gap
-	}
-	y = f.block(&f.foot, y, text, f.spec.small, false, f.th.muted, "plumb-note", f.width-2*f.spec.pad, 2)
-	f.footH = y + f.spec.gap
+	f.notes = append(f.notes, text)
+	f.layoutFoot()
 }
