@@ -361,12 +361,38 @@ func (c *rowChart) fitTicks(length float64, horizontal bool) {
 	for m := target - 1; horizontal && m >= floor && len(c.ticks.Values) >= 2 && !c.ticksFit(c.ticks, length); m-- {
 		c.ticks = c.ticksFor(m, floor)
 	}
+	// The tick search keeps zero and nice steps, so on a very short axis
+	// its fewest ticks may still be too many to label: then every k-th tick
+	// keeps its label and grid line, counted from zero (or the first tick),
+	// so that labels never overlap.
+	base := c.ticks
+	for k := 2; horizontal && k <= len(base.Values) && len(c.ticks.Values) > 1 && !c.ticksFit(c.ticks, length); k++ {
+		c.ticks = thinTicks(base, k)
+	}
 	if c.opt.From == nil && len(c.ticks.Values) > 0 {
 		c.d0 = math.Min(c.d0, c.ticks.Values[0])
 	}
 	if c.opt.To == nil && len(c.ticks.Values) > 0 {
 		c.d1 = math.Max(c.d1, c.ticks.Values[len(c.ticks.Values)-1])
 	}
+}
+
+// thinTicks keeps every k-th value of t, counted from zero when t labels
+// it and from the first value otherwise.
+func thinTicks(t scale.Ticks, k int) scale.Ticks {
+	anchor := 0
+	for i, v := range t.Values {
+		if v == 0 {
+			anchor = i
+		}
+	}
+	var out []float64
+	for i, v := range t.Values {
+		if (i-anchor)%k == 0 {
+			out = append(out, v)
+		}
+	}
+	return scale.Ticks{Values: out, Step: t.Step * float64(k), Decimals: t.Decimals}
 }
 
 // ticksFor computes ticks with about m values (at least floor) for the

@@ -197,3 +197,32 @@ func TestColumnsKeepTheirValues(t *testing.T) {
 		assert.NotEqual(t, "value-labels-dropped", n.Code)
 	}
 }
+
+// On canvases too narrow for the fewest nice ticks that keep zero, tick
+// labels are thinned rather than overlapped.
+func TestNarrowBarAxisThinsTicks(t *testing.T) {
+	labels := []string{"a", "b", "c", "d"}
+	values := []float64{-121, 1502, 800, 300}
+	for w := 120.0; w <= 400; w += 10 {
+		for _, dots := range []bool{false, true} {
+			var s *Scene
+			var err error
+			if dots {
+				s, err = DotsScene(labels, values, DotsOptions{Common: Common{Width: w}})
+			} else {
+				s, err = BarsScene(labels, values, BarsOptions{Common: Common{Width: w}})
+			}
+			require.NoError(t, err)
+			ticks := 0
+			for _, m := range s.Marks {
+				if m.Kind == Text && m.Class == "plumb-tick" {
+					ticks++
+				}
+			}
+			if w >= 160 {
+				assert.GreaterOrEqual(t, ticks, 2, "width %g: at least two labelled ticks", w)
+			}
+			assertNoOverlap(t, s)
+		}
+	}
+}
