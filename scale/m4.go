@@ -67,13 +67,7 @@ func M4(dst []int, xs, ys []float64, x0, x1 float64, w int) []int {
 		inGap = false
 		c := PixelColumn(x, x0, x1, w)
 		if open && c == g.col {
-			g.last = i
-			if y < ys[g.min] {
-				g.min = i
-			}
-			if y > ys[g.max] {
-				g.max = i
-			}
+			g.add(i, y, ys)
 			continue
 		}
 		if open {
@@ -92,6 +86,17 @@ func M4(dst []int, xs, ys []float64, x0, x1 float64, w int) []int {
 type m4Group struct {
 	col                   int
 	first, last, min, max int
+}
+
+// add folds point i, of value y, into the group.
+func (g *m4Group) add(i int, y float64, ys []float64) {
+	g.last = i
+	if y < ys[g.min] {
+		g.min = i
+	}
+	if y > ys[g.max] {
+		g.max = i
+	}
 }
 
 // flush appends the group's distinct indices in increasing order. first is
@@ -151,13 +156,7 @@ func M4Columns(dst []int, xs, ys []float64, x0, x1 float64, w int) (kept []int, 
 		if open && c == g.col {
 			bridged += gapCount
 			gapAt, gapCount = -1, 0
-			g.last = i
-			if y < ys[g.min] {
-				g.min = i
-			}
-			if y > ys[g.max] {
-				g.max = i
-			}
+			g.add(i, y, ys)
 			continue
 		}
 		if open {

@@ -2,7 +2,6 @@ package main
 
 import (
 	"bytes"
-	"os"
 	"path/filepath"
 	"testing"
 )
@@ -41,20 +40,7 @@ func TestBarsFixtures(t *testing.T) {
 			if fx.args[0] == "bars" {
 				checkBars(t, root)
 			}
-			golden := filepath.Join("..", "..", "golden", "fixture-bars-"+fx.name+".svg")
-			if *update {
-				if err := os.WriteFile(golden, out.Bytes(), 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			want, err := os.ReadFile(golden)
-			if err != nil {
-				t.Fatalf("no golden file (run go test ./cmd/plumb -update and review it): %v", err)
-			}
-			if !bytes.Equal(out.Bytes(), want) {
-				t.Errorf("%s differs from %s; view both as pictures, then accept with -update", fx.name, golden)
-			}
+			matchGolden(t, filepath.Join(goldenDir, "fixture-bars-"+fx.name+".svg"), out.Bytes())
 		})
 	}
 }

@@ -39,20 +39,7 @@ func TestGolden(t *testing.T) {
 				checkBars(t, root)
 			}
 			renderable(t, path)
-			golden := filepath.Join(goldenDir, name)
-			if *update {
-				if err := os.WriteFile(golden, got, 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			want, err := os.ReadFile(golden)
-			if err != nil {
-				t.Fatalf("no golden file (run go test ./cmd/plumb -update and review it): %v", err)
-			}
-			if !bytes.Equal(got, want) {
-				t.Errorf("%s differs from the golden file; view both as pictures, then accept with -update if the change is intended", name)
-			}
+			matchGolden(t, filepath.Join(goldenDir, name), got)
 		})
 	}
 }
@@ -71,5 +58,24 @@ func renderable(t *testing.T, path string) {
 	}
 	if st, err := os.Stat(out); err != nil || st.Size() == 0 {
 		t.Fatalf("rsvg-convert wrote no image for %s", filepath.Base(path))
+	}
+}
+
+// matchGolden compares a figure with its golden file, or rewrites the file
+// under -update.
+func matchGolden(t *testing.T, golden string, got []byte) {
+	t.Helper()
+	if *update {
+		if err := os.WriteFile(golden, got, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(golden)
+	if err != nil {
+		t.Fatalf("no golden file (run go test ./cmd/plumb -update and review it): %v", err)
+	}
+	if !bytes.Equal(got, want) {
+		t.Errorf("%s differs from the golden file; view both as pictures, then accept with -update if the change is intended", filepath.Base(golden))
 	}
 }

@@ -41,20 +41,7 @@ func TestLineFixturesGolden(t *testing.T) {
 			}
 			checkFigure(t, got)
 			renderable(t, out)
-			golden := filepath.Join(goldenDir, fx.name+".svg")
-			if *update {
-				if err := os.WriteFile(golden, got, 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			want, err := os.ReadFile(golden)
-			if err != nil {
-				t.Fatalf("no golden file (run go test ./cmd/plumb -update and review it): %v", err)
-			}
-			if !bytes.Equal(got, want) {
-				t.Errorf("%s differs from the golden file; view both as pictures, then accept with -update if the change is intended", fx.name)
-			}
+			matchGolden(t, filepath.Join(goldenDir, fx.name+".svg"), got)
 		})
 	}
 }
