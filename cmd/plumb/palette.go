@@ -58,7 +58,7 @@ func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
 			palette.MaxCategorical, palette.MaxCategorical, palette.MinRamp, palette.MaxRamp), value: intValue{n}},
 		{name: "hue", arg: "NAME", usage: "sequential: " + strings.Join(palette.SequentialHues(), ", ") +
 			"; diverging: " + strings.Join(palette.DivergingHues(), ", "), value: stringValue{hue}},
-		{name: "json", usage: `print {"kind": ..., "colors": [...]} instead of a swatch sheet`, value: boolValue{asJSON}},
+		{name: "json", usage: `print {"kind", "colors", "worst_case_de2000", "min_contrast_on_white"} instead of a swatch sheet`, value: boolValue{asJSON}},
 		{name: "o", arg: "FILE", usage: "output FILE (.svg, or any name with --json); default standard output", value: stringValue{out}},
 		{name: "quiet", usage: "accepted for symmetry with the charts: palettes print no notes", value: boolValue{hush}},
 	}, stderr)
@@ -113,10 +113,16 @@ func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
 	write := func(w io.Writer) error { return render.WritePaletteSheet(w, title, p) }
 	if *asJSON {
 		write = func(w io.Writer) error {
+			// The two numbers a reader checks a palette by: the smallest
+			// CIEDE2000 distance between any two colours under normal,
+			// protan, deutan and tritan vision, and the lowest contrast
+			// against white.
 			return writeJSON(w, struct {
-				Kind   string   `json:"kind"`
-				Colors []string `json:"colors"`
-			}{kind, p.Hex()})
+				Kind        string   `json:"kind"`
+				Colors      []string `json:"colors"`
+				WorstCase   float64  `json:"worst_case_de2000"`
+				MinContrast float64  `json:"min_contrast_on_white"`
+			}{kind, p.Hex(), math.Round(p.WorstCase()*100) / 100, math.Round(p.MinContrast(palette.SRGB{R: 1, G: 1, B: 1})*100) / 100})
 		}
 	}
 	if err := writeOutput(*out, stdout, write); err != nil {

@@ -9,6 +9,9 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+
 	"plumb/palette"
 )
 
@@ -172,4 +175,22 @@ func TestPaletteUsageErrors(t *testing.T) {
 	if code, _, _ := runP("check", "-h"); code != exitOK {
 		t.Errorf("-h exit %d", code)
 	}
+}
+
+// The categorical palette's JSON carries the numbers it is checked by:
+// a worst case of at least 14 over the four visions (the target set for
+// the annealed palette) and every colour at 3:1 on white (WCAG 2.x
+// non-text contrast).
+func TestPaletteJSONCarriesItsNumbers(t *testing.T) {
+	code, out, stderr := runP("categorical", "--json")
+	require.Equal(t, exitOK, code, stderr)
+	var v struct {
+		Colors      []string `json:"colors"`
+		WorstCase   float64  `json:"worst_case_de2000"`
+		MinContrast float64  `json:"min_contrast_on_white"`
+	}
+	require.NoError(t, json.Unmarshal([]byte(out), &v))
+	assert.Len(t, v.Colors, 8)
+	assert.GreaterOrEqual(t, v.WorstCase, 14.0)
+	assert.GreaterOrEqual(t, v.MinContrast, 3.0)
 }
