@@ -698,28 +698,19 @@ func (c *rowChart) drawUnitLine(g *rowGeom, t axisTitleText) {
 	f.drawAxisTitle(t, round2(math.Max(x, sp.pad)), f.plotTop())
 }
 
-// drawAxisBelow draws the grid, the tick labels under the rows, the axis
-// title and the zero baseline, and returns the y under the axis. The grid
-// comes first so that marks draw over it.
+// drawAxisBelow draws the grid, the tick labels under the rows and the
+// zero baseline, and returns the y under the axis. The grid comes first so
+// that marks draw over it.
 func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	f, sp := c.f, c.f.spec
-	lh := lineHeight(sp.text)
-	asc := f.fonts.Face(false).Ascent(sp.text)
-	labels := c.tickLabels(c.ticks.Values)
+	d := axisDraw{pos: g.xs, from: g.top, to: bottom, labelAt: bottom + sp.gap + f.fonts.Face(false).Ascent(sp.text), labels: true, baseline: !c.dots}
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	for i, t := range c.ticks.Values {
-		x := round2(g.xs.Map(t))
-		if !(t == 0 && !c.dots) {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
-		}
-		f.text(x, bottom+sp.gap+asc, labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
-	}
-	axisBottom := bottom + sp.gap + lh
+	f.draw(axis{ticks: c.ticks.Values, labels: c.tickLabels(c.ticks.Values)}, d)
 	f.scene.Add(Mark{Kind: GroupEnd})
 	if !c.dots {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
+		f.drawBaseline(d)
 	}
-	return axisBottom
+	return bottom + sp.gap + lineHeight(sp.text)
 }
 
 // markAttrs are the data attributes of a row's mark.
@@ -916,17 +907,12 @@ func (c *rowChart) layoutColumns() (float64, error) {
 	ys := scale.Linear{D0: c.d0, D1: c.d1, R0: y0, R1: y1}
 	bottom := top + plotH
 
+	ad := axisDraw{vertical: true, pos: ys, from: plotL, to: plotR, labelAt: plotL - sp.gap, labels: true, baseline: true}
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	for i, t := range c.ticks.Values {
-		y := round2(ys.Map(t))
-		if t != 0 {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
-		}
-		f.text(plotL-sp.gap, y+(asc-desc)/2, labels[i], sp.text, false, f.th.muted, "plumb-tick", End)
-	}
+	f.draw(axis{ticks: c.ticks.Values, labels: labels}, ad)
 	f.scene.Add(Mark{Kind: GroupEnd})
+	f.drawBaseline(ad)
 	zero := round2(ys.Map(0))
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
 
 	vtext, vw := c.valueTexts()
 	tooWide := func(w float64) bool { return w > band-2 }

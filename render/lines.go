@@ -841,7 +841,7 @@ func (c *lineChart) layoutMultiples() (float64, error) {
 	hgap0 := math.Ceil(sp.text * 2)
 	cols := min(n, int(math.Ceil(math.Sqrt(float64(n)))))
 	var left, w, hgap float64
-	var ax xAxis
+	var ax axis
 	for ; ; cols-- {
 		left, w, hgap, ax = f.fitPanelsX(left0, 0, cols, hgap0, c.xlo, c.xhi, c.xk)
 		if cols == 1 || w >= sp.text*minPanelChars {
