@@ -17,6 +17,10 @@ type axis struct {
 	d0, d1 float64
 	ticks  []float64
 	labels []string
+	// label writes the labels of a set of ticks, so that an axis thinned
+	// to fewer ticks is written again at their precision and, on a
+	// calendar, with the context its kept ticks need.
+	label func([]float64) []string
 }
 
 // axisKind says what an axis's values are, which decides its ticks and
@@ -98,7 +102,7 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) axis {
 	var best axis
 	bestScore := math.Inf(-1)
 	for _, a := range xCandidates(lo, hi, k, target) {
-		if len(a.ticks) == 0 || !f.xLabelsFit(a, length) {
+		if len(a.ticks) == 0 || !f.labelsFit(a, length) {
 			continue
 		}
 		n := len(a.ticks)
@@ -123,7 +127,7 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) axis {
 		for m := target + 1; m <= 4*target+8; m++ {
 			dense := xTicks(lo, hi, k, m)
 			for stride := 2; len(dense.ticks) >= floor*stride-stride+1; stride++ {
-				if a := thinXBy(dense, stride); f.xLabelsFit(a, length) {
+				if a := thin(dense, stride); f.labelsFit(a, length) {
 					return a
 				}
 			}
@@ -132,38 +136,44 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) axis {
 	if best.ticks != nil {
 		return best
 	}
-	// Even the fewest ticks collide (very long labels on a narrow axis):
-	// keep every other tick, the first always, until the labels fit.
-	best = xTicks(lo, hi, k, 2)
-	for len(best.ticks) > 1 && !f.xLabelsFit(best, length) {
-		best = thinX(best)
-	}
-	return best
+	// Even the fewest ticks collide (very long labels on a narrow axis).
+	return f.thinToFit(xTicks(lo, hi, k, 2), length)
 }
 
-// thinX keeps every other tick of a, starting with the first.
-func thinX(a axis) axis { return thinXBy(a, 2) }
-
-// thinXBy keeps every stride-th tick of a, starting with the first. Time
-// labels of two or more kept ticks are written again, so that a kept tick
-// whose date was on a dropped one still says which day it is.
-func thinXBy(a axis, stride int) axis {
-	out := axis{kind: a.kind, d0: a.d0, d1: a.d1}
-	for i := 0; i < len(a.ticks); i += stride {
-		out.ticks, out.labels = append(out.ticks, a.ticks[i]), append(out.labels, a.labels[i])
+// thin keeps every stride-th tick of a, counted from zero when a number
+// axis labels it (zero is read against) and from the first tick otherwise,
+// and writes the kept labels again: at the precision of the kept ticks, or
+// on a calendar with the date a dropped tick carried. A lone calendar tick
+// keeps its label, which TimeTicks wrote with the full context at the
+// precision of its step.
+func thin(a axis, stride int) axis {
+	anchor := 0
+	if a.kind == numberTicks {
+		if i := slices.Index(a.ticks, 0); i >= 0 {
+			anchor = i
+		}
 	}
-	// A lone tick keeps its label, which TimeTicks wrote with the full
-	// context at the precision of its step.
-	if a.kind == timeTicks && len(out.ticks) > 1 {
-		ts := make([]time.Time, len(out.ticks))
-		for i, t := range out.ticks {
-			ts[i] = unixTime(t)
+	out := axis{kind: a.kind, d0: a.d0, d1: a.d1, label: a.label}
+	for i := range a.ticks {
+		if (i-anchor)%stride == 0 {
+			out.ticks, out.labels = append(out.ticks, a.ticks[i]), append(out.labels, a.labels[i])
 		}
-		for i, t := range scale.TimeLabels(ts, time.UTC) {
-			out.labels[i] = t.Label
-		}
+	}
+	if a.label != nil && (len(out.ticks) > 1 || a.kind == numberTicks) {
+		out.labels = a.label(out.ticks)
 	}
 	return out
+}
+
+// thinToFit is the fallback of every axis whose fewest nice ticks are
+// still too many to label (long labels on a short axis): the smallest
+// stride whose labels keep apart, so that labels never overlap.
+func (f *frame) thinToFit(a axis, length float64) axis {
+	base := a
+	for k := 2; k <= len(base.ticks) && len(a.ticks) > 1 && !f.labelsFit(a, length); k++ {
+		a = thin(base, k)
+	}
+	return a
 }
 
 // xCandidates are the labellings fitX chooses from: calendar ticks for
@@ -196,23 +206,34 @@ func xCandidates(lo, hi float64, k xKind, target int) []axis {
 
 // labelNumbers labels the ticks vals of a number axis over [lo, hi].
 func labelNumbers(lo, hi float64, vals []float64, k xKind) axis {
-	a := axis{d0: lo, d1: hi}
-	tf := scale.TickFormat(vals, "")
-	if k.years {
-		tf = scale.Format{} // 2018, never 2,018
+	label := func(ts []float64) []string {
+		if k.years {
+			return formatAll(scale.Format{}, ts) // 2018, never 2,018
+		}
+		return formatAll(scale.TickFormat(ts, ""), ts)
 	}
-	for _, v := range vals {
-		a.ticks = append(a.ticks, v)
-		a.labels = append(a.labels, tf.Format(v))
+	return axis{d0: lo, d1: hi, ticks: vals, labels: label(vals), label: label}
+}
+
+// timeLabels writes calendar tick labels, each with the context (year,
+// month) that its neighbours do not already give.
+func timeLabels(ts []float64) []string {
+	tt := make([]time.Time, len(ts))
+	for i, t := range ts {
+		tt[i] = unixTime(t)
 	}
-	return a
+	out := make([]string, len(ts))
+	for i, t := range scale.TimeLabels(tt, time.UTC) {
+		out[i] = t.Label
+	}
+	return out
 }
 
 // xTicks computes about m ticks inside [lo, hi] and their labels.
 func xTicks(lo, hi float64, k xKind, m int) axis {
 	if k.time {
 		tt := scale.TimeTicks(unixTime(lo), unixTime(hi), m, time.UTC)
-		a := axis{kind: timeTicks, d0: lo, d1: hi}
+		a := axis{kind: timeTicks, d0: lo, d1: hi, label: timeLabels}
 		for _, t := range tt {
 			a.ticks = append(a.ticks, float64(t.T.Unix())+float64(t.T.Nanosecond())/1e9)
 			a.labels = append(a.labels, t.Label)
@@ -246,9 +267,9 @@ func unixTime(s float64) time.Time {
 	return time.Unix(int64(sec), int64(math.Round((s-sec)*1e9))).UTC()
 }
 
-// xLabelsFit reports whether neighbouring tick labels keep one text height
+// labelsFit reports whether neighbouring tick labels keep one text height
 // apart on an axis of this length.
-func (f *frame) xLabelsFit(a axis, length float64) bool {
+func (f *frame) labelsFit(a axis, length float64) bool {
 	if len(a.ticks) < 2 {
 		return true
 	}
@@ -265,8 +286,8 @@ func (f *frame) xLabelsFit(a axis, length float64) bool {
 	return true
 }
 
-// xOverhang is how far the outer tick labels reach beyond the axis ends.
-func (f *frame) xOverhang(a axis, length float64) (left, right float64) {
+// overhang is how far the outer tick labels reach beyond the axis ends.
+func (f *frame) overhang(a axis, length float64) (left, right float64) {
 	if len(a.ticks) == 0 {
 		return 0, 0
 	}
@@ -301,6 +322,7 @@ func (f *frame) fitY(lo, hi float64, h float64, k yKind) axis {
 	var best axis
 	bestScore := math.Inf(-1)
 	lh := lineHeight(f.spec.text)
+	label := func(ts []float64) []string { return formatAll(scale.TickFormat(ts, k.unit), ts) }
 	for _, c := range stepCandidates(lo, hi) {
 		n := len(c.values)
 		if k.integer && c.step != math.Trunc(c.step) {
@@ -330,20 +352,20 @@ func (f *frame) fitY(lo, hi float64, h float64, k yKind) axis {
 			score -= 2
 		}
 		if score > bestScore {
-			best = axis{d0: c.values[0], d1: c.values[n-1], ticks: c.values, labels: formatAll(scale.TickFormat(c.values, k.unit), c.values)}
+			best = axis{d0: c.values[0], d1: c.values[n-1], ticks: c.values, labels: label(c.values), label: label}
 			bestScore = score
 		}
 	}
 	if best.ticks == nil {
 		t := scale.NiceDomain(lo, hi, 2)
-		best = axis{d0: t.Values[0], d1: t.Values[len(t.Values)-1], ticks: t.Values, labels: formatAll(scale.TickFormat(t.Values, k.unit), t.Values)}
+		best = axis{d0: t.Values[0], d1: t.Values[len(t.Values)-1], ticks: t.Values, labels: label(t.Values), label: label}
 	}
 	// A forced value (the base of an index) is read against, so it is a
 	// tick; the zero of a difference already is one (a multiple of the step).
 	if v := k.include; v != nil && !slices.Contains(best.ticks, *v) {
 		i, _ := slices.BinarySearch(best.ticks, *v)
 		best.ticks = slices.Insert(slices.Clone(best.ticks), i, *v)
-		best.labels = formatAll(scale.TickFormat(best.ticks, k.unit), best.ticks)
+		best.labels = label(best.ticks)
 	}
 	return best
 }

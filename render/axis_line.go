@@ -139,7 +139,7 @@ func (f *frame) fitPanelsX(left0, labelW float64, cols int, gap0, xlo, xhi float
 	w = math.Floor((right - labelW - left0 - (n-1)*gap0) / n)
 	for {
 		ax = f.fitX(xlo, xhi, k, w)
-		lo, ro := f.xOverhang(ax, w)
+		lo, ro := f.overhang(ax, w)
 		left, gap = math.Max(left0, math.Ceil(sp.pad+lo)), gap0
 		if cols > 1 {
 			gap = math.Max(gap0, math.Ceil(lo+ro+sp.text))
