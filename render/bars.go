@@ -89,7 +89,7 @@ type rowChart struct {
 	rows     []row
 	d0, d1   float64 // value domain
 	lo0, hi0 float64 // the domain before it was widened to nice ticks
-	ticks    scale.Ticks
+	ax       axis    // the value axis
 	vfmt     scale.Format
 }
 
@@ -342,101 +342,21 @@ func (c *rowChart) numText(v float64) string {
 	return scale.ValueFormat([]float64{v}, c.opt.Unit).Format(v)
 }
 
-// fitTicks chooses the ticks for an axis of the given length: about one
-// per 75 px at screen size (scale.TickTarget), fewer when their labels
-// would touch, but never fewer than scale.MinTicks (three beyond 150 px),
-// zero labelled when inside, whole numbers for whole-number data. It also
-// settles the domain: bars and dots without --from/--to end on the outer
-// ticks.
+// fitTicks chooses the ticks for an axis of the given length (see
+// fitValue) and settles the domain: bars and dots without From/To end on
+// the outer ticks.
 func (c *rowChart) fitTicks(length float64, horizontal bool) {
-	sp := c.f.spec
-	target := scale.TickTarget(length, sp.text)
-	if !horizontal {
-		// Labels stacked up a vertical axis need only a line apart.
-		target = scale.TickTarget(length*1.4, sp.text)
-	}
-	floor := scale.MinTicks(length)
 	c.d0, c.d1 = c.lo0, c.hi0
-	c.ticks = c.ticksFor(target, floor)
-	for m := target - 1; horizontal && m >= floor && len(c.ticks.Values) >= 2 && !c.ticksFit(c.ticks, length); m-- {
-		c.ticks = c.ticksFor(m, floor)
+	c.ax = c.f.fitValue(c.d0, c.d1, length, horizontal, valueKind{
+		zero: !c.dots, from: c.opt.From != nil, to: c.opt.To != nil,
+		integer: !c.opt.Percent && scale.IsInteger(c.values()), label: c.tickLabels,
+	})
+	if t := c.ax.ticks; c.opt.From == nil && len(t) > 0 {
+		c.d0 = math.Min(c.d0, t[0])
 	}
-	// The tick search keeps zero and nice steps, so on a very short axis
-	// its fewest ticks may still be too many to label: then every k-th tick
-	// keeps its label and grid line, counted from zero (or the first tick),
-	// so that labels never overlap.
-	base := c.ticks
-	for k := 2; horizontal && k <= len(base.Values) && len(c.ticks.Values) > 1 && !c.ticksFit(c.ticks, length); k++ {
-		c.ticks = thinTicks(base, k)
+	if t := c.ax.ticks; c.opt.To == nil && len(t) > 0 {
+		c.d1 = math.Max(c.d1, t[len(t)-1])
 	}
-	if c.opt.From == nil && len(c.ticks.Values) > 0 {
-		c.d0 = math.Min(c.d0, c.ticks.Values[0])
-	}
-	if c.opt.To == nil && len(c.ticks.Values) > 0 {
-		c.d1 = math.Max(c.d1, c.ticks.Values[len(c.ticks.Values)-1])
-	}
-}
-
-// thinTicks keeps every k-th value of t, counted from zero when t labels
-// it and from the first value otherwise.
-func thinTicks(t scale.Ticks, k int) scale.Ticks {
-	anchor := 0
-	for i, v := range t.Values {
-		if v == 0 {
-			anchor = i
-		}
-	}
-	var out []float64
-	for i, v := range t.Values {
-		if (i-anchor)%k == 0 {
-			out = append(out, v)
-		}
-	}
-	return scale.Ticks{Values: out, Step: t.Step * float64(k), Decimals: t.Decimals}
-}
-
-// ticksFor computes ticks with about m values (at least floor) for the
-// current domain.
-func (c *rowChart) ticksFor(m, floor int) scale.Ticks {
-	lo, hi := c.d0, c.d1
-	o := scale.TickOptions{Min: floor, Zero: true, Integer: !c.opt.Percent && scale.IsInteger(c.values())}
-	if c.opt.From != nil || c.opt.To != nil {
-		// An end set by the user is kept and ticks fall inside it; the other
-		// end extends to its outer tick as usual.
-		if !c.dots {
-			lo, hi = math.Min(lo, 0), math.Max(hi, 0)
-		}
-		t := scale.NiceTicks(lo, hi, m, o)
-		eps := 1e-9 * math.Abs(hi-lo)
-		var in []float64
-		for _, v := range t.Values {
-			if (c.opt.From == nil || v >= lo-eps) && (c.opt.To == nil || v <= hi+eps) {
-				in = append(in, v)
-			}
-		}
-		t.Values = in
-		return t
-	}
-	if !c.dots {
-		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
-	}
-	return scale.NiceTicks(lo, hi, m, o)
-}
-
-// ticksFit reports whether the tick labels of t, centred on their ticks,
-// keep at least one text height apart along an axis of this length.
-func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
-	labels := c.tickLabels(t.Values)
-	span := t.Values[len(t.Values)-1] - t.Values[0]
-	if span <= 0 {
-		return true
-	}
-	step := length * ((t.Values[1] - t.Values[0]) / span) // a step near 1e308 times length overflows
-	widest := 0.0
-	for _, l := range labels {
-		widest = math.Max(widest, c.f.measure(l, c.f.spec.text, false))
-	}
-	return widest+c.f.spec.text <= step
 }
 
 func (c *rowChart) fill(r row) Colour {
@@ -593,7 +513,7 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 			g.x0, g.x1 = g.plotL+rl, right-rr
 			c.fitTicks(g.x1-g.x0, true)
 			// The end tick labels are centred on their ticks: keep them on the canvas.
-			labels := c.tickLabels(c.ticks.Values)
+			labels := c.ax.labels
 			if k := len(labels); k > 0 {
 				lastHalf := f.measure(labels[k-1], sp.text, false) / 2
 				if g.x1+lastHalf > right {
@@ -705,7 +625,7 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	f, sp := c.f, c.f.spec
 	d := axisDraw{pos: g.xs, from: g.top, to: bottom, labelAt: bottom + sp.gap + f.fonts.Face(false).Ascent(sp.text), labels: true, baseline: !c.dots}
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	f.draw(axis{ticks: c.ticks.Values, labels: c.tickLabels(c.ticks.Values)}, d)
+	f.draw(c.ax, d)
 	f.scene.Add(Mark{Kind: GroupEnd})
 	if !c.dots {
 		f.drawBaseline(d)
@@ -891,7 +811,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller canvas (%s) or drop %s", c.opt.name("Height"), c.opt.name("Vertical"))
 	}
 	c.fitTicks(plotH-rt-rb, false)
-	labels := c.tickLabels(c.ticks.Values)
+	labels := c.ax.labels
 	tickW := 0.0
 	for _, l := range labels {
 		tickW = math.Max(tickW, f.measure(l, sp.text, false))
@@ -909,7 +829,7 @@ func (c *rowChart) layoutColumns() (float64, error) {
 
 	ad := axisDraw{vertical: true, pos: ys, from: plotL, to: plotR, labelAt: plotL - sp.gap, labels: true, baseline: true}
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	f.draw(axis{ticks: c.ticks.Values, labels: labels}, ad)
+	f.draw(c.ax, ad)
 	f.scene.Add(Mark{Kind: GroupEnd})
 	f.drawBaseline(ad)
 	zero := round2(ys.Map(0))
