@@ -65,18 +65,17 @@ func dataRange(vs ...[]float64) (lo, hi float64, ok bool) {
 	return lo, hi, lo <= hi
 }
 
-// Tick spacing on line axes, in pixels at screen text size (13 px) and
-// scaled with the medium's text: roughly one tick per 50-100 px reads
-// without crowding (a y axis goes beyond 120 px between ticks only when
-// nothing denser fits the data well), and an axis longer than 150 px always carries at least
-// three labelled ticks, so that the reader can tell the scale's step as
-// well as its level (common practice).
+// Tick spacing on axes that need not reach zero, in pixels at screen text
+// size (13 px) and scaled with the medium's text: roughly one tick per
+// 50-100 px reads without crowding (a y axis goes beyond 120 px between
+// ticks only when nothing denser fits the data well). The target (one per
+// 75 px) and the floor (scale.MinTicks: three labelled ticks beyond 150 px,
+// so that the reader can tell the scale's step as well as its level) are
+// the scale package's, shared with bars and dots (common practice).
 const (
 	tickSpacingMin    = 50.0
 	tickSpacingTarget = 75.0
 	tickSpacingMax    = 120.0
-	minTicksLength    = 150.0
-	minLabelledTicks  = 3
 )
 
 // fitX chooses the x ticks for an axis of length px: the count closest to
@@ -94,10 +93,7 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) axis {
 		}
 	}
 	scaleK := sp.text / 13
-	floor := 0
-	if length > minTicksLength*scaleK {
-		floor = minLabelledTicks
-	}
+	floor := scale.MinTicks(length)
 	target := max(2, int(math.Round(length/(tickSpacingTarget*scaleK))))
 	var best axis
 	bestScore := math.Inf(-1)
@@ -314,11 +310,8 @@ func (f *frame) fitY(lo, hi float64, h float64, k yKind) axis {
 	}
 	scaleK := f.spec.text / 13
 	minSp := math.Max(lineHeight(f.spec.text)*1.5, tickSpacingMin*scaleK*0.8)
-	target := max(2, int(math.Round(h/(tickSpacingTarget*scaleK)))+1)
-	floor := 0
-	if h > minTicksLength*scaleK {
-		floor = minLabelledTicks
-	}
+	target := scale.TickTarget(h, f.spec.text)
+	floor := scale.MinTicks(h)
 	var best axis
 	bestScore := math.Inf(-1)
 	lh := lineHeight(f.spec.text)
