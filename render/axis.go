@@ -575,3 +575,31 @@ func valueTicks(lo, hi float64, m, floor int, k valueKind) axis {
 	}
 	return a
 }
+
+// tickLabels prints the ticks of the value axis. A unit is said once per
+// axis: in the axis title when there is one, else on the outermost tick,
+// never on every tick ("3700 g ... 5100 g" makes the reader skip the same
+// word at every tick). A currency sign stays on every tick: it is part of
+// how an amount is written ("$5"), one character wide, and a bare 5 beside
+// $10 would read as another quantity (common practice).
+func (c *rowChart) tickLabels(ticks []float64) []string {
+	tf := scale.TickFormat(ticks, c.opt.Unit)
+	if scale.IsCurrency(c.opt.Unit) {
+		return formatAll(tf, ticks)
+	}
+	bare := tf
+	bare.Unit = ""
+	out := formatAll(bare, ticks)
+	if c.opt.Unit != "" && c.axisTitle() == "" && len(ticks) > 0 {
+		out[len(out)-1] = tf.Format(ticks[len(ticks)-1])
+	}
+	return out
+}
+
+func formatAll(f scale.Format, vs []float64) []string {
+	out := make([]string, len(vs))
+	for i, v := range vs {
+		out[i] = f.Format(v)
+	}
+	return out
+}

@@ -5,8 +5,6 @@ import (
 	"fmt"
 	"math"
 	"strconv"
-
-	"plumb/scale"
 )
 
 // Aspect ratio limits of a banked plot, as plot height over plot width. A
@@ -37,90 +35,6 @@ func parseAspect(s string) (method string, forced float64, err error) {
 		return "W:H", a, nil
 	}
 	return "", 0, &OptionError{Option: "Aspect", Value: strconv.Quote(s), Err: errors.New("the ratio is out of range; use width:height such as 16:9")}
-}
-
-// lineGeom maps data to the screen of one panel, with M4 reduction when a
-// panel has more than four points per pixel column.
-type lineGeom struct {
-	left   float64 // the plot's left edge, a whole pixel so columns line up
-	w      int     // plot width in whole pixels
-	ax     axis
-	reduce bool
-}
-
-// keep returns the indices of the points of (x, y) to draw: all of them, or
-// the per-column M4 selection (Jugel et al. 2014) over the panel's pixel
-// columns, which also reports how many missing values it drew through.
-func (g lineGeom) keep(x, y []float64) ([]int, int) {
-	if !g.reduce {
-		idx := make([]int, len(x))
-		for i := range idx {
-			idx[i] = i
-		}
-		return idx, 0
-	}
-	return scale.M4Columns(make([]int, 0, 4*g.w+8), x, y, g.ax.d0, g.ax.d1, g.w)
-}
-
-// polyline is the kept points in data units, NaN where the line breaks, for
-// banking and drawing alike, and the count of missing values drawn through.
-func (g lineGeom) polyline(x, y []float64) (scale.Polyline, int) {
-	idx, bridged := g.keep(x, y)
-	p := scale.Polyline{X: make([]float64, len(idx)), Y: make([]float64, len(idx))}
-	for i, j := range idx {
-		p.X[i], p.Y[i] = x[j], y[j]
-	}
-	return p, bridged
-}
-
-// drawnLine is a polyline on screen: its pieces between gaps, and for each
-// piece the index in the polyline of its first point, so that a piece of
-// one point (a value between two missing ones) can be drawn as a dot that
-// carries its data.
-type drawnLine struct {
-	pieces [][]Point
-	first  []int
-}
-
-// last is the line's rightmost drawn point.
-func (d drawnLine) last() (Point, bool) {
-	if len(d.pieces) == 0 {
-		return Point{}, false
-	}
-	p := d.pieces[len(d.pieces)-1]
-	return p[len(p)-1], true
-}
-
-// screen maps a polyline to pixel polylines, broken at missing values. When
-// reduced, every vertex stays inside the pixel column M4 grouped it in (the
-// linear position moved by under 0.01 px at most), so that rounding to two
-// decimals never carries a vertex into the next column.
-func (g lineGeom) screen(p scale.Polyline, ys scale.Linear) drawnLine {
-	xs := scale.Linear{D0: g.ax.d0, D1: g.ax.d1, R0: g.left, R1: g.left + float64(g.w)}
-	var out drawnLine
-	var cur []Point
-	for i := range p.X {
-		if math.IsNaN(p.Y[i]) || math.IsNaN(p.X[i]) {
-			if len(cur) > 0 {
-				out.pieces = append(out.pieces, cur)
-				cur = nil
-			}
-			continue
-		}
-		x := xs.Map(p.X[i])
-		if g.reduce {
-			c := float64(scale.PixelColumn(p.X[i], g.ax.d0, g.ax.d1, g.w))
-			x = math.Min(math.Max(x, g.left+c), g.left+c+0.99)
-		}
-		if len(cur) == 0 {
-			out.first = append(out.first, i)
-		}
-		cur = append(cur, Point{round2(x), round2(ys.Map(p.Y[i]))})
-	}
-	if len(cur) > 0 {
-		out.pieces = append(out.pieces, cur)
-	}
-	return out
 }
 
 // fitPanelsX places cols plots of one width side by side, from left0 to
