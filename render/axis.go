@@ -21,6 +21,10 @@ type axis struct {
 	// to fewer ticks is written again at their precision and, on a
 	// calendar, with the context its kept ticks need.
 	label func([]float64) []string
+	// extent, when set, is the domain a set of ticks gives: a value axis
+	// ends on its outer ticks or at the data, whichever is further out, so
+	// that labels are measured where they will be drawn.
+	extent func([]float64) (d0, d1 float64)
 }
 
 // axisKind says what an axis's values are, which decides its ticks and
@@ -93,7 +97,7 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) axis {
 		}
 	}
 	scaleK := sp.text / 13
-	floor := scale.MinTicks(length)
+	floor := f.lineFloor(length)
 	target := max(2, int(math.Round(length/(tickSpacingTarget*scaleK))))
 	var best axis
 	bestScore := math.Inf(-1)
@@ -136,6 +140,24 @@ func (f *frame) fitX(lo, hi float64, k xKind, length float64) axis {
 	return f.thinToFit(xTicks(lo, hi, k, 2), length)
 }
 
+// minTicks is scale.MinTicks for an axis whose labels are set in the
+// medium's text: its threshold length (150 px at 13 px text) grows and
+// shrinks with the text, as the tick spacing does.
+func (f *frame) minTicks(length float64) int {
+	return scale.MinTicks(length * 13 / f.spec.text)
+}
+
+// lineFloor is the fewest ticks a line axis of this length must carry:
+// scale.MinTicks beyond its threshold length, else none, because a line
+// axis's ticks fall inside the data's range and a short one may have room
+// for a single label only.
+func (f *frame) lineFloor(length float64) int {
+	if n := f.minTicks(length); n > 2 {
+		return n
+	}
+	return 0
+}
+
 // thin keeps every stride-th tick of a, counted from zero when a number
 // axis labels it (zero is read against) and from the first tick otherwise,
 // and writes the kept labels again: at the precision of the kept ticks, or
@@ -149,7 +171,7 @@ func thin(a axis, stride int) axis {
 			anchor = i
 		}
 	}
-	out := axis{kind: a.kind, d0: a.d0, d1: a.d1, label: a.label}
+	out := axis{kind: a.kind, d0: a.d0, d1: a.d1, label: a.label, extent: a.extent}
 	for i := range a.ticks {
 		if (i-anchor)%stride == 0 {
 			out.ticks, out.labels = append(out.ticks, a.ticks[i]), append(out.labels, a.labels[i])
@@ -157,6 +179,9 @@ func thin(a axis, stride int) axis {
 	}
 	if a.label != nil && (len(out.ticks) > 1 || a.kind == numberTicks) {
 		out.labels = a.label(out.ticks)
+	}
+	if a.extent != nil {
+		out.d0, out.d1 = a.extent(out.ticks)
 	}
 	return out
 }
@@ -311,7 +336,7 @@ func (f *frame) fitY(lo, hi float64, h float64, k yKind) axis {
 	scaleK := f.spec.text / 13
 	minSp := math.Max(lineHeight(f.spec.text)*1.5, tickSpacingMin*scaleK*0.8)
 	target := scale.TickTarget(h, f.spec.text)
-	floor := scale.MinTicks(h)
+	floor := f.lineFloor(h)
 	var best axis
 	bestScore := math.Inf(-1)
 	lh := lineHeight(f.spec.text)
@@ -530,15 +555,14 @@ type valueKind struct {
 // than scale.MinTicks (three beyond 150 px), zero labelled when inside,
 // whole numbers for whole-number data. Labels stacked up a vertical axis
 // need only a line apart, so it takes more ticks and no label test. The
-// axis's d0 and d1 are its outer ticks, which the caller widens its domain
-// to unless the user set that end.
+// axis's domain is the one its ticks give (see axis.extent).
 func (f *frame) fitValue(lo, hi, length float64, horizontal bool, k valueKind) axis {
 	sp := f.spec
 	target := scale.TickTarget(length, sp.text)
 	if !horizontal {
 		target = scale.TickTarget(length*1.4, sp.text)
 	}
-	floor := scale.MinTicks(length)
+	floor := f.minTicks(length)
 	a := valueTicks(lo, hi, target, floor, k)
 	for m := target - 1; horizontal && m >= floor && len(a.ticks) >= 2 && !f.labelsFit(a, length); m-- {
 		a = valueTicks(lo, hi, m, floor, k)
@@ -569,10 +593,20 @@ func valueTicks(lo, hi float64, m, floor int, k valueKind) axis {
 			}
 		}
 	}
-	a := axis{ticks: vals, labels: k.label(vals), label: k.label}
-	if len(vals) > 0 {
-		a.d0, a.d1 = vals[0], vals[len(vals)-1]
+	extent := func(ts []float64) (float64, float64) {
+		d0, d1 := lo, hi
+		if n := len(ts); n > 0 {
+			if !k.from {
+				d0 = math.Min(d0, ts[0])
+			}
+			if !k.to {
+				d1 = math.Max(d1, ts[n-1])
+			}
+		}
+		return d0, d1
 	}
+	a := axis{ticks: vals, labels: k.label(vals), label: k.label, extent: extent}
+	a.d0, a.d1 = extent(vals)
 	return a
 }
 
