@@ -120,3 +120,41 @@ func TestDrawOrientation(t *testing.T) {
 	require.Len(t, marks, 3)
 	assert.Equal(t, []Point{{110, 120}, {110, 124}}, marks[1].Lines[0])
 }
+
+// TestDrawnTickLabelsApart checks bars and dots through their builders:
+// on any canvas, neighbouring tick labels as drawn keep one text height
+// apart, including a thinned axis whose data reach past its outer kept
+// tick (the label test measures at the domain the ticks give).
+func TestDrawnTickLabelsApart(t *testing.T) {
+	r := rand.New(rand.NewPCG(9, 3))
+	labels := []string{"Delta", "Alpha", "Gamma", "Beta"}
+	for range 200 {
+		values := make([]float64, len(labels))
+		scaleV := math.Pow(10, 1+r.Float64()*6)
+		for i := range values {
+			values[i] = (r.Float64()*1.2 - 0.2) * scaleV
+		}
+		common := Common{Medium: []Medium{Screen, Print, Slide}[r.IntN(3)], Width: 140 + float64(r.IntN(400))}
+		var s *Scene
+		var err error
+		if r.IntN(2) == 0 {
+			s, err = BarsScene(labels, values, BarsOptions{Common: common})
+		} else {
+			s, err = DotsScene(labels, values, DotsOptions{Common: common})
+		}
+		if err != nil {
+			continue // a canvas too narrow is refused with an error, never drawn crowded
+		}
+		f, err := newFrame(common)
+		require.NoError(t, err)
+		prevR := math.Inf(-1)
+		for _, m := range s.Marks {
+			if m.Class != "plumb-tick" {
+				continue
+			}
+			w := f.measure(m.Text, m.Size, false)
+			assert.GreaterOrEqual(t, m.X-w/2, prevR+m.Size-0.02, "%v at %g px wide on %s", values, common.Width, common.Medium)
+			prevR = m.X + w/2
+		}
+	}
+}
