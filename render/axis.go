@@ -54,21 +54,6 @@ type yKind struct {
 	integer bool     // every value is a whole number: no fractional ticks
 }
 
-// dataRange returns the smallest and largest finite values of vs, and
-// false when there are none.
-func dataRange(vs ...[]float64) (lo, hi float64, ok bool) {
-	lo, hi = math.Inf(1), math.Inf(-1)
-	for _, v := range vs {
-		for _, x := range v {
-			if math.IsNaN(x) || math.IsInf(x, 0) {
-				continue
-			}
-			lo, hi = math.Min(lo, x), math.Max(hi, x)
-		}
-	}
-	return lo, hi, lo <= hi
-}
-
 // Tick spacing on axes that need not reach zero, in pixels at screen text
 // size (13 px) and scaled with the medium's text: roughly one tick per
 // 50-100 px reads without crowding (a y axis goes beyond 120 px between
@@ -280,12 +265,6 @@ func innerTicks(lo, hi float64, m int, integer bool) []float64 {
 		}
 	}
 	return out
-}
-
-// unixTime turns seconds since 1970 UTC into a time.
-func unixTime(s float64) time.Time {
-	sec := math.Floor(s)
-	return time.Unix(int64(sec), int64(math.Round((s-sec)*1e9))).UTC()
 }
 
 // labelsFit reports whether neighbouring tick labels keep one text height
@@ -608,26 +587,6 @@ func valueTicks(lo, hi float64, m, floor int, k valueKind) axis {
 	a := axis{ticks: vals, labels: k.label(vals), label: k.label, extent: extent}
 	a.d0, a.d1 = extent(vals)
 	return a
-}
-
-// tickLabels prints the ticks of the value axis. A unit is said once per
-// axis: in the axis title when there is one, else on the outermost tick,
-// never on every tick ("3700 g ... 5100 g" makes the reader skip the same
-// word at every tick). A currency sign stays on every tick: it is part of
-// how an amount is written ("$5"), one character wide, and a bare 5 beside
-// $10 would read as another quantity (common practice).
-func (c *rowChart) tickLabels(ticks []float64) []string {
-	tf := scale.TickFormat(ticks, c.opt.Unit)
-	if scale.IsCurrency(c.opt.Unit) {
-		return formatAll(tf, ticks)
-	}
-	bare := tf
-	bare.Unit = ""
-	out := formatAll(bare, ticks)
-	if c.opt.Unit != "" && c.axisTitle() == "" && len(ticks) > 0 {
-		out[len(out)-1] = tf.Format(ticks[len(ticks)-1])
-	}
-	return out
 }
 
 func formatAll(f scale.Format, vs []float64) []string {

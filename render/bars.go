@@ -545,3 +545,24 @@ func (c *rowChart) values() []float64 {
 	}
 	return v
 }
+
+// tickLabels prints the ticks of the value axis. A unit is said once per
+// axis: in the axis title when there is one, else on the outermost tick,
+// never on every tick ("3700 g ... 5100 g" makes the reader skip the same
+// word at every tick). A currency sign stays on every tick: it is part of
+// how an amount is written ("$5"), one character wide, and a bare 5 beside
+// $10 would read as another quantity (common practice).
+func (c *rowChart) tickLabels(ticks []float64) []string {
+	tf := scale.TickFormat(ticks, c.opt.Unit)
+	if scale.IsCurrency(c.opt.Unit) {
+		return formatAll(tf, ticks)
+	}
+	bare := tf
+	bare.Unit = ""
+	out := formatAll(bare, ticks)
+	if c.opt.Unit != "" && c.axisTitle() == "" && len(ticks) > 0 {
+		out[len(out)-1] = tf.Format(ticks[len(ticks)-1])
+	}
+	return out
+}
+

@@ -509,3 +509,25 @@ func (g lineGeom) screen(p scale.Polyline, ys scale.Linear) drawnLine {
 	}
 	return out
 }
+
+// dataRange returns the smallest and largest finite values of vs, and
+// false when there are none.
+func dataRange(vs ...[]float64) (lo, hi float64, ok bool) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, v := range vs {
+		for _, x := range v {
+			if math.IsNaN(x) || math.IsInf(x, 0) {
+				continue
+			}
+			lo, hi = math.Min(lo, x), math.Max(hi, x)
+		}
+	}
+	return lo, hi, lo <= hi
+}
+
+// unixTime turns seconds since 1970 UTC into a time.
+func unixTime(s float64) time.Time {
+	sec := math.Floor(s)
+	return time.Unix(int64(sec), int64(math.Round((s-sec)*1e9))).UTC()
+}
+
