@@ -565,4 +565,3 @@ func (c *rowChart) tickLabels(ticks []float64) []string {
 	}
 	return out
 }
-

@@ -530,4 +530,3 @@ func unixTime(s float64) time.Time {
 	sec := math.Floor(s)
 	return time.Unix(int64(sec), int64(math.Round((s-sec)*1e9))).UTC()
 }
-
