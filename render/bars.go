@@ -1,12 +1,9 @@
 package render
 
 import (
-	"errors"
 	"fmt"
 	"io"
 	"math"
-	"slices"
-	"strconv"
 	"strings"
 
 	"plumb/scale"
@@ -89,7 +86,7 @@ type rowChart struct {
 	rows     []row
 	d0, d1   float64 // value domain
 	lo0, hi0 float64 // the domain before it was widened to nice ticks
-	ticks    scale.Ticks
+	ax       axis    // the value axis
 	vfmt     scale.Format
 }
 
@@ -155,288 +152,21 @@ func (c *rowChart) build(labels []string, values []float64) (*Scene, error) {
 	return f.finish(bottom), nil
 }
 
-// limitRows applies Top and Other: it folds the rows beyond Top into one
-// Other row when that is honest, or leaves them out and says so in a note
-// and under the chart, never silently.
-func (c *rowChart) limitRows() error {
-	f := c.f
-	switch c.opt.Other {
-	case OtherAuto, OtherNone, OtherMean:
-	case OtherSum:
-		if c.dots {
-			return &OptionError{Option: "Other", Value: string(OtherSum), Err: fmt.Errorf("a dot marks a position, not an amount, so dots are never summed; use %s mean or none, or draw bars", c.opt.name("Other"))}
-		}
-	default:
-		return &OptionError{Option: "Other", Value: strconv.Quote(string(c.opt.Other)), Err: errors.New("use sum, mean or none")}
-	}
-	top := c.opt.Top
-	if top > 0 && top < 2 {
-		return &OptionError{Option: "Top", Value: strconv.Itoa(top), Err: errors.New("show at least 2 categories")}
-	}
-	fold := c.opt.Other == OtherSum || c.opt.Other == OtherMean || (c.opt.Other == OtherAuto && c.additive() && !c.dots)
-	canvas := false // the fixed canvas, not the caller, limited the rows
-	if top == 0 {
-		switch {
-		case c.dots:
-			top = DefaultDotsTop
-		case fold:
-			top = DefaultTop
-		default:
-			top = c.rowsThatFit()
-		}
-		// A fixed canvas holds only so many rows: the rest go as above
-		// rather than refusing the chart.
-		if fit := c.rowsThatFit(); fit > 0 && top > fit {
-			top, canvas = fit, true
-		}
-	}
-	if top < 0 || len(c.rows) <= top {
-		return nil
-	}
-	if fold {
-		var note string
-		c.rows, note = combineTail(c.rows, top, c.opt.Other == OtherSum || (c.opt.Other == OtherAuto && !c.opt.Averages))
-		if note != "" {
-			f.scene.Note("other", true, note+"; show more with "+c.opt.name("Top"))
-		}
-		return nil
-	}
-	n := len(c.rows)
-	var gone []string
-	c.rows, gone = leaveOut(c.rows, top)
-	if len(gone) == 0 {
-		return nil
-	}
-	why := "they are not parts of a whole, so a sum would mean nothing"
-	if c.dots {
-		why = "a dot is a position, so a sum would mean nothing"
-	}
-	combine := "sum or mean"
-	if c.dots {
-		combine = "mean" // a dot is never summed
-	}
-	more := fmt.Sprintf("show them all with %s -1, or combine them with %s %s", c.opt.name("Top"), c.opt.name("Other"), combine)
-	if canvas {
-		more = fmt.Sprintf("only these fit the canvas; give a taller canvas (%s), or combine the rest with %s mean", c.opt.name("Height"), c.opt.name("Other"))
-	}
-	f.scene.Note("left-out", true, fmt.Sprintf("drew the %d largest of %d categories and left out %d (not combined into Other; %s): %s; %s",
-		len(c.rows), n, len(gone), why, listNames(gone, 6), more))
-	f.addNote(fmt.Sprintf("%d of %d categories shown: the %d smallest are left out.", len(c.rows), n, len(gone)))
-	return nil
-}
-
-// rowsThatFit is how many horizontal rows fit on a canvas of fixed height
-// (the frame's note line for the rest included), or -1 when the chart
-// grows with its rows. Vertical bars need no limit here: they refuse when
-// their columns get too narrow.
-func (c *rowChart) rowsThatFit() int {
-	f := c.f
-	if c.opt.Vertical || f.fixedPlotBottom() == 0 {
-		return -1
-	}
-	sp := f.spec
-	lh := lineHeight(sp.text)
-	axisH := sp.gap + lh + c.unitLineH()
-	// The note line under the chart takes one small line when rows are left out.
-	room := f.fixedPlotBottom() - lineHeight(sp.small) - axisH - f.plotTop()
-	n := int(room / (lh + sp.gap/2))
-	if n >= len(c.rows) {
-		return -1
-	}
-	return max(n, 2)
-}
-
-// toShares turns values into percentages of their total.
-func (c *rowChart) toShares() error {
-	// Values near the largest float64 overflow their total to +Inf (and
-	// every share to NaN): then sum them scaled by the largest.
-	big, plain := 1.0, 0.0
-	for _, r := range c.rows {
-		plain += r.value
-	}
-	if math.IsInf(plain, 0) {
-		for _, r := range c.rows {
-			big = math.Max(big, math.Abs(r.value))
-		}
-	}
-	total := 0.0
-	for _, r := range c.rows {
-		if r.value < 0 {
-			return &RefusalError{
-				Reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
-				Instead: "shares need values of one sign; drop " + c.opt.name("Percent") + " to draw the values themselves",
-			}
-		}
-		total += r.value / big
-	}
-	if total == 0 {
-		return &RefusalError{Reason: "cannot show shares: the values add up to zero", Instead: "drop " + c.opt.name("Percent")}
-	}
-	for i := range c.rows {
-		share := 100 * (c.rows[i].value / big) / total
-		if math.IsInf(share, 0) { // 100 * value overflowed
-			share = 100 * (c.rows[i].value / big / total)
-		}
-		c.rows[i].value = share
-	}
-	total *= big
-	c.opt.Unit = "%"
-	totalText := scale.ValueFormat([]float64{total}, "").Format(total)
-	if math.IsInf(total, 0) {
-		totalText = fmt.Sprintf("more than %.1e", math.MaxFloat64)
-	}
-	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", totalText))
-	return nil
-}
-
-// domain fixes the value domain: bars always include zero and end on nice
-// ticks; dots fit the data. --from and --to may widen, never hide.
-func (c *rowChart) domain() error {
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, r := range c.rows {
-		lo, hi = math.Min(lo, r.value), math.Max(hi, r.value)
-	}
-	if !c.dots {
-		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
-		if c.opt.From != nil && *c.opt.From > lo {
-			return &OptionError{Option: "From", Value: strconv.FormatFloat(*c.opt.From, 'g', -1, 64), Err: &RefusalError{Reason: "would cut " + c.cutWhat(lo),
-				Instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}}
-		}
-		if c.opt.To != nil && *c.opt.To < hi {
-			return c.domainError("To", *c.opt.To, "would cut bars that reach "+c.numText(hi), "at or beyond the largest value")
-		}
-	} else {
-		if c.opt.From != nil && *c.opt.From > lo {
-			return c.domainError("From", *c.opt.From, "would hide values down to "+c.numText(lo), "at or below the smallest value")
-		}
-		if c.opt.To != nil && *c.opt.To < hi {
-			return c.domainError("To", *c.opt.To, "would hide values up to "+c.numText(hi), "at or above the largest value")
-		}
-	}
-	if c.opt.From != nil {
-		lo = *c.opt.From
-	}
-	if c.opt.To != nil {
-		hi = *c.opt.To
-	}
-	c.d0, c.d1 = lo, hi
-	c.lo0, c.hi0 = lo, hi
-	return nil
-}
-
-// domainError refuses a From or To that would hide data: an OptionError
-// naming the option, wrapping the refusal.
-func (c *rowChart) domainError(option string, v float64, why, where string) error {
-	return &OptionError{Option: option, Value: strconv.FormatFloat(v, 'g', -1, 64),
-		Err: &RefusalError{Reason: why, Instead: fmt.Sprintf("give %s %s, or leave it out", c.opt.name(option), where)}}
-}
-
-func (c *rowChart) cutWhat(lo float64) string {
-	if lo < 0 {
-		return fmt.Sprintf("the bars down to %s", c.numText(lo))
-	}
-	return "every bar short of its true length"
-}
-
-func (c *rowChart) numText(v float64) string {
-	return scale.ValueFormat([]float64{v}, c.opt.Unit).Format(v)
-}
-
-// fitTicks chooses the ticks for an axis of the given length: about one
-// per 75 px at screen size (scale.TickTarget), fewer when their labels
-// would touch, but never fewer than scale.MinTicks (three beyond 150 px),
-// zero labelled when inside, whole numbers for whole-number data. It also
-// settles the domain: bars and dots without --from/--to end on the outer
-// ticks.
+// fitTicks chooses the ticks for an axis of the given length (see
+// fitValue) and settles the domain: bars and dots without From/To end on
+// the outer ticks.
 func (c *rowChart) fitTicks(length float64, horizontal bool) {
-	sp := c.f.spec
-	target := scale.TickTarget(length, sp.text)
-	if !horizontal {
-		// Labels stacked up a vertical axis need only a line apart.
-		target = scale.TickTarget(length*1.4, sp.text)
-	}
-	floor := scale.MinTicks(length)
 	c.d0, c.d1 = c.lo0, c.hi0
-	c.ticks = c.ticksFor(target, floor)
-	for m := target - 1; horizontal && m >= floor && len(c.ticks.Values) >= 2 && !c.ticksFit(c.ticks, length); m-- {
-		c.ticks = c.ticksFor(m, floor)
+	c.ax = c.f.fitValue(c.d0, c.d1, length, horizontal, valueKind{
+		zero: !c.dots, from: c.opt.From != nil, to: c.opt.To != nil,
+		integer: !c.opt.Percent && scale.IsInteger(c.values()), label: c.tickLabels,
+	})
+	if t := c.ax.ticks; c.opt.From == nil && len(t) > 0 {
+		c.d0 = math.Min(c.d0, t[0])
 	}
-	// The tick search keeps zero and nice steps, so on a very short axis
-	// its fewest ticks may still be too many to label: then every k-th tick
-	// keeps its label and grid line, counted from zero (or the first tick),
-	// so that labels never overlap.
-	base := c.ticks
-	for k := 2; horizontal && k <= len(base.Values) && len(c.ticks.Values) > 1 && !c.ticksFit(c.ticks, length); k++ {
-		c.ticks = thinTicks(base, k)
+	if t := c.ax.ticks; c.opt.To == nil && len(t) > 0 {
+		c.d1 = math.Max(c.d1, t[len(t)-1])
 	}
-	if c.opt.From == nil && len(c.ticks.Values) > 0 {
-		c.d0 = math.Min(c.d0, c.ticks.Values[0])
-	}
-	if c.opt.To == nil && len(c.ticks.Values) > 0 {
-		c.d1 = math.Max(c.d1, c.ticks.Values[len(c.ticks.Values)-1])
-	}
-}
-
-// thinTicks keeps every k-th value of t, counted from zero when t labels
-// it and from the first value otherwise.
-func thinTicks(t scale.Ticks, k int) scale.Ticks {
-	anchor := 0
-	for i, v := range t.Values {
-		if v == 0 {
-			anchor = i
-		}
-	}
-	var out []float64
-	for i, v := range t.Values {
-		if (i-anchor)%k == 0 {
-			out = append(out, v)
-		}
-	}
-	return scale.Ticks{Values: out, Step: t.Step * float64(k), Decimals: t.Decimals}
-}
-
-// ticksFor computes ticks with about m values (at least floor) for the
-// current domain.
-func (c *rowChart) ticksFor(m, floor int) scale.Ticks {
-	lo, hi := c.d0, c.d1
-	o := scale.TickOptions{Min: floor, Zero: true, Integer: !c.opt.Percent && scale.IsInteger(c.values())}
-	if c.opt.From != nil || c.opt.To != nil {
-		// An end set by the user is kept and ticks fall inside it; the other
-		// end extends to its outer tick as usual.
-		if !c.dots {
-			lo, hi = math.Min(lo, 0), math.Max(hi, 0)
-		}
-		t := scale.NiceTicks(lo, hi, m, o)
-		eps := 1e-9 * math.Abs(hi-lo)
-		var in []float64
-		for _, v := range t.Values {
-			if (c.opt.From == nil || v >= lo-eps) && (c.opt.To == nil || v <= hi+eps) {
-				in = append(in, v)
-			}
-		}
-		t.Values = in
-		return t
-	}
-	if !c.dots {
-		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
-	}
-	return scale.NiceTicks(lo, hi, m, o)
-}
-
-// ticksFit reports whether the tick labels of t, centred on their ticks,
-// keep at least one text height apart along an axis of this length.
-func (c *rowChart) ticksFit(t scale.Ticks, length float64) bool {
-	labels := c.tickLabels(t.Values)
-	span := t.Values[len(t.Values)-1] - t.Values[0]
-	if span <= 0 {
-		return true
-	}
-	step := length * ((t.Values[1] - t.Values[0]) / span) // a step near 1e308 times length overflows
-	widest := 0.0
-	for _, l := range labels {
-		widest = math.Max(widest, c.f.measure(l, c.f.spec.text, false))
-	}
-	return widest+c.f.spec.text <= step
 }
 
 func (c *rowChart) fill(r row) Colour {
@@ -593,7 +323,7 @@ func (c *rowChart) fitValueAxis(g *rowGeom, vw []float64) []bool {
 			g.x0, g.x1 = g.plotL+rl, right-rr
 			c.fitTicks(g.x1-g.x0, true)
 			// The end tick labels are centred on their ticks: keep them on the canvas.
-			labels := c.tickLabels(c.ticks.Values)
+			labels := c.ax.labels
 			if k := len(labels); k > 0 {
 				lastHalf := f.measure(labels[k-1], sp.text, false) / 2
 				if g.x1+lastHalf > right {
@@ -698,28 +428,19 @@ func (c *rowChart) drawUnitLine(g *rowGeom, t axisTitleText) {
 	f.drawAxisTitle(t, round2(math.Max(x, sp.pad)), f.plotTop())
 }
 
-// drawAxisBelow draws the grid, the tick labels under the rows, the axis
-// title and the zero baseline, and returns the y under the axis. The grid
-// comes first so that marks draw over it.
+// drawAxisBelow draws the grid, the tick labels under the rows and the
+// zero baseline, and returns the y under the axis. The grid comes first so
+// that marks draw over it.
 func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64) float64 {
 	f, sp := c.f, c.f.spec
-	lh := lineHeight(sp.text)
-	asc := f.fonts.Face(false).Ascent(sp.text)
-	labels := c.tickLabels(c.ticks.Values)
+	d := axisDraw{pos: g.xs, from: g.top, to: bottom, labelAt: bottom + sp.gap + f.fonts.Face(false).Ascent(sp.text), labels: true, baseline: !c.dots}
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	for i, t := range c.ticks.Values {
-		x := round2(g.xs.Map(t))
-		if !(t == 0 && !c.dots) {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{x, g.top}, {x, bottom}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
-		}
-		f.text(x, bottom+sp.gap+asc, labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
-	}
-	axisBottom := bottom + sp.gap + lh
+	f.draw(c.ax, d)
 	f.scene.Add(Mark{Kind: GroupEnd})
 	if !c.dots {
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{g.zero, g.top}, {g.zero, bottom}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
+		f.drawBaseline(d)
 	}
-	return axisBottom
+	return bottom + sp.gap + lineHeight(sp.text)
 }
 
 // markAttrs are the data attributes of a row's mark.
@@ -843,252 +564,4 @@ func (c *rowChart) tickLabels(ticks []float64) []string {
 		out[len(out)-1] = tf.Format(ticks[len(ticks)-1])
 	}
 	return out
-}
-
-func formatAll(f scale.Format, vs []float64) []string {
-	out := make([]string, len(vs))
-	for i, v := range vs {
-		out[i] = f.Format(v)
-	}
-	return out
-}
-
-// layoutColumns draws vertical bars and returns the y under the labels.
-func (c *rowChart) layoutColumns() (float64, error) {
-	f, sp := c.f, c.f.spec
-	lh := lineHeight(sp.text)
-	asc, desc := f.fonts.Face(false).Ascent(sp.text), f.fonts.Face(false).Descent(sp.text)
-	n := len(c.rows)
-	top := f.plotTop()
-	if title := c.axisTitle(); title != "" {
-		f.text(sp.pad, top+asc, title, sp.text, false, f.th.muted, "plumb-axis-title", Start)
-		top += lh + sp.gap
-	}
-	// Width first: the tick labels' width depends on the ticks, which depend
-	// on the height; the height is fixed by the medium or chosen here.
-	// The category labels' height depends on the column width, which
-	// depends on the tick labels: estimate the width from the widest value
-	// text (ticks are rounder and not wider), and keep to the lines
-	// reserved here when the labels are wrapped for good below.
-	guess := 0.0
-	for _, v := range c.values() {
-		guess = math.Max(guess, f.measure(c.vfmt.Format(v), sp.text, false))
-	}
-	maxLines := 3
-	if band := (f.width - 2*sp.pad - guess - sp.gap) / float64(n); band > sp.gap {
-		c.abbreviateCalendar(band - sp.gap)
-		_, _, maxLines = c.wrapLabelsQuiet(band-sp.gap, 3)
-	}
-	labelsH := float64(maxLines)*lh + sp.gap
-	plotH := math.Min(f.width*0.5, 420*sp.text/13)
-	if fb := f.fixedPlotBottom(); fb > 0 {
-		plotH = fb - top - labelsH
-	}
-	hasNeg, hasPos := false, false
-	for _, r := range c.rows {
-		hasNeg = hasNeg || r.value < 0
-		hasPos = hasPos || r.value > 0
-	}
-	rt, rb := 0.0, 0.0
-	if hasPos {
-		rt = lh
-	}
-	if hasNeg {
-		rb = lh
-	}
-	if plotH-rt-rb < 4*sp.text {
-		return 0, fmt.Errorf("the figure is too short for vertical bars: give a taller canvas (%s) or drop %s", c.opt.name("Height"), c.opt.name("Vertical"))
-	}
-	c.fitTicks(plotH-rt-rb, false)
-	labels := c.tickLabels(c.ticks.Values)
-	tickW := 0.0
-	for _, l := range labels {
-		tickW = math.Max(tickW, f.measure(l, sp.text, false))
-	}
-	plotL := sp.pad + tickW + sp.gap
-	plotR := f.width - sp.pad
-	band := (plotR - plotL) / float64(n)
-	if band < sp.text*1.6 {
-		return 0, fmt.Errorf("%d columns are too narrow at this width: drop %s (horizontal bars fit long lists) or show fewer with %s", n, c.opt.name("Vertical"), c.opt.name("Top"))
-	}
-	barW := math.Min(band*0.7, sp.text*4)
-	y0, y1 := top+plotH-rb, top+rt
-	ys := scale.Linear{D0: c.d0, D1: c.d1, R0: y0, R1: y1}
-	bottom := top + plotH
-
-	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	for i, t := range c.ticks.Values {
-		y := round2(ys.Map(t))
-		if t != 0 {
-			f.scene.Add(Mark{Kind: Path, Class: "plumb-grid", Lines: [][]Point{{{plotL, y}, {plotR, y}}}, Stroke: f.th.grid, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
-		}
-		f.text(plotL-sp.gap, y+(asc-desc)/2, labels[i], sp.text, false, f.th.muted, "plumb-tick", End)
-	}
-	f.scene.Add(Mark{Kind: GroupEnd})
-	zero := round2(ys.Map(0))
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-baseline", Lines: [][]Point{{{plotL, zero}, {plotR, zero}}}, Stroke: f.th.baseline, StrokeWidth: 1.5, Join: JoinRound, Cap: CapRound})
-
-	vtext, vw := c.valueTexts()
-	tooWide := func(w float64) bool { return w > band-2 }
-	if slices.IndexFunc(vw, tooWide) >= 0 {
-		// Shorter numbers before no numbers: three significant digits,
-		// each value abbreviated on its own ($3.23M, $119k).
-		c.vfmt = scale.ShortValueFormat(c.values(), c.opt.Unit)
-		vtext, vw = c.valueTexts()
-	}
-	showValues := slices.IndexFunc(vw, tooWide) < 0
-	if !showValues {
-		f.scene.Note("value-labels-dropped", false, "left out the value labels: even with three significant digits they are wider than the columns; the axis carries the values (or drop "+c.opt.name("Vertical")+")")
-	}
-	c.abbreviateCalendar(band - sp.gap)
-	// Words wrap at their boundaries, up to three lines, before any is shortened.
-	wrapped, _, lines := c.wrapLabels(band-sp.gap, maxLines)
-	for i, r := range c.rows {
-		cx := plotL + (float64(i)+0.5)*band
-		yv := round2(ys.Map(r.value))
-		lo, hi := yv, zero
-		if r.value < 0 {
-			lo, hi = zero, yv
-		}
-		f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: round2(cx - barW/2), Y: lo, W: round2(barW), H: hi - lo, Fill: c.fill(r), Attrs: c.markAttrs(r)})
-		if showValues {
-			if r.value < 0 {
-				f.text(cx, yv+sp.gap/2+asc, vtext[i], sp.text, false, f.th.text, "plumb-value", Middle)
-			} else {
-				f.text(cx, yv-sp.gap/2-desc, vtext[i], sp.text, false, f.th.text, "plumb-value", Middle)
-			}
-		}
-		tip := tooltip(r.label, wrapped[i])
-		for j, l := range wrapped[i] {
-			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: cx, Y: bottom + sp.gap + asc + float64(j)*lh, Text: l, Size: sp.text, Bold: r.highlight, Fill: c.labelFill(r), Anchor: Middle, Tooltip: tip})
-		}
-	}
-	return bottom + sp.gap + float64(lines)*lh, nil
-}
-
-// abbreviateCalendar gives month and weekday names their standard short
-// forms (Jan, Feb; Mon, Tue) when any category label does not fit width, all
-// of them alike, so an axis never mixes "March" with "Jan…". When even the
-// three-letter forms do not fit, the one-letter initials are used (J F M;
-// M T W), as on printed calendars (common practice).
-func (c *rowChart) abbreviateCalendar(width float64) {
-	f, size := c.f, c.f.spec.text
-	fits := func(s string, bold bool) bool { return f.measure(s, size, bold) <= width }
-	short := make([]string, len(c.rows))
-	all, over := true, false
-	for i, r := range c.rows {
-		ab, ok := calendarShort(r.label)
-		if !ok {
-			all = false
-			break
-		}
-		short[i] = ab
-		over = over || !fits(r.label, r.highlight)
-	}
-	if !all || !over {
-		return
-	}
-	initials := false
-	for i, r := range c.rows {
-		initials = initials || !fits(short[i], r.highlight)
-	}
-	again := c.rows[0].short != ""
-	for i := range c.rows {
-		if initials {
-			short[i] = short[i][:1]
-		}
-		c.rows[i].short = short[i]
-	}
-	if again {
-		return
-	}
-	f.scene.Note("calendar-abbreviated", false, "wrote the month or weekday names in their standard short forms to fit the columns")
-}
-
-// calendarShort returns the standard three-letter form of an English month
-// or weekday name, full or already abbreviated ("September", "Sept", "sep").
-func calendarShort(label string) (string, bool) {
-	l := strings.ToLower(strings.TrimSuffix(strings.TrimSpace(label), "."))
-	switch l {
-	case "sept":
-		return "Sep", true
-	case "tues":
-		return "Tue", true
-	case "thur", "thurs":
-		return "Thu", true
-	}
-	for _, n := range []string{"January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December",
-		"Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday", "Sunday"} {
-		if ab := n[:3]; l == strings.ToLower(n) || l == strings.ToLower(ab) {
-			return ab, true
-		}
-	}
-	return "", false
-}
-
-// accessibleTitle names an untitled chart for assistive technology.
-func (c *rowChart) accessibleTitle() string {
-	kind, _, _ := strings.Cut(c.describe(), ",")
-	return kind
-}
-
-// describe writes the plain-language <desc>: what is plotted, the extremes,
-// and what was combined.
-func (c *rowChart) describe() string {
-	kind := "Bar chart"
-	switch {
-	case c.dots:
-		kind = "Dot plot"
-	case c.opt.Vertical:
-		kind = "Vertical bar chart"
-	}
-	what := c.opt.ValueName
-	if what == "" {
-		what = "values"
-	}
-	if c.opt.Percent {
-		what = "share of total " + c.opt.ValueName
-	}
-	by := c.opt.LabelName
-	if by == "" {
-		by = "category"
-	}
-	var b strings.Builder
-	fmt.Fprintf(&b, "%s of %s by %s, %d %s", kind, strings.TrimSpace(what), by, len(c.rows), plural(len(c.rows), "row", "rows"))
-	switch c.opt.Order {
-	case ByValue, "":
-		b.WriteString(", largest first")
-	case ByLabel:
-		b.WriteString(", in label order")
-	case ByData:
-		b.WriteString(", in the order given")
-	}
-	b.WriteString(". ")
-	hi, lo := 0, 0
-	for i, r := range c.rows {
-		if r.other > 0 {
-			continue
-		}
-		if r.value > c.rows[hi].value || c.rows[hi].other > 0 {
-			hi = i
-		}
-		if r.value < c.rows[lo].value || c.rows[lo].other > 0 {
-			lo = i
-		}
-	}
-	fmt.Fprintf(&b, "Largest: %s at %s; smallest: %s at %s.", c.rows[hi].label, c.vfmt.Format(c.rows[hi].value), c.rows[lo].label, c.vfmt.Format(c.rows[lo].value))
-	if last := c.rows[len(c.rows)-1]; last.other > 0 {
-		fmt.Fprintf(&b, " %d smaller categories are combined in %s at %s.", last.other, last.label, c.vfmt.Format(last.value))
-	}
-	if len(c.opt.Highlight) > 0 {
-		fmt.Fprintf(&b, " Highlighted: %s.", strings.Join(c.opt.Highlight, ", "))
-	}
-	return b.String()
-}
-
-func plural(n int, one, many string) string {
-	if n == 1 {
-		return one
-	}
-	return many
 }

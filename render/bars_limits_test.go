@@ -117,7 +117,7 @@ func TestBarsTickFloor(t *testing.T) {
 				minX, maxX = min(minX, m.X), max(maxX, m.X)
 			}
 		}
-		ticks = c.ticks.Values
+		ticks = c.ax.ticks
 		length := maxX - minX
 		assert.GreaterOrEqual(t, len(ticks), scale.MinTicks(length), "%v on %s: ticks %v over %g px", values, medium, ticks, length)
 		assert.Contains(t, ticks, 0.0)

@@ -202,7 +202,7 @@ func (c *diffChart) layout() (float64, error) {
 	g.reduce = shouldReduce([]Series{{X: c.x}}, g.w)
 	var pa, pb scale.Polyline
 	var hc float64
-	var ayc yAxis
+	var ayc axis
 	var bkc banking
 	var err error
 	if c.opt.Context {

@@ -1,28 +1,15 @@
 package render
 
 import (
-	"cmp"
 	"fmt"
 	"io"
 	"math"
 	"slices"
-	"strconv"
 	"strings"
-	"time"
 
-	"plumb/layout"
 	"plumb/palette"
 	"plumb/scale"
 )
-
-// Series is one line of a line chart: Y over X, in X order. A NaN in Y is a
-// missing value: the line breaks there and is never joined across. Make a
-// series over time with TimeSeries.
-type Series struct {
-	Name  string
-	X, Y  []float64
-	times bool // X holds instants as Unix seconds: made by TimeSeries
-}
 
 // LinesOptions configures a line chart. The zero value draws the honest
 // default: one panel banked to 45° by median absolute slope, series named
@@ -180,37 +167,6 @@ func (c *lineChart) kinds() {
 // yearsNote says that whole-number x values were read as years.
 const yearsNote = "read the x values, whole numbers from 1800 to 2100, as years: ticks fall on whole years and print without a thousands separator"
 
-// xKindOf says what x values are: instants, or whole numbers (no tick
-// falls between two of them), which when they all lie from 1800 to 2100
-// look like calendar years and are printed as years (2018, never 2,018).
-func xKindOf(xs [][]float64, isTime bool) xKind {
-	if isTime {
-		return xKind{time: true}
-	}
-	k := xKind{integer: wholeNumbers(xs...), years: true}
-	for _, v := range xs {
-		for _, x := range v {
-			if x < 1800 || x > 2100 {
-				k.years = false
-			}
-		}
-	}
-	k.years = k.years && k.integer
-	return k
-}
-
-// wholeNumbers reports whether every non-missing value is a whole number.
-func wholeNumbers(vs ...[]float64) bool {
-	for _, v := range vs {
-		for _, y := range v {
-			if !math.IsNaN(y) && y != math.Trunc(y) {
-				return false
-			}
-		}
-	}
-	return true
-}
-
 func (c *lineChart) ys() [][]float64 {
 	out := make([][]float64, len(c.series))
 	for i, s := range c.series {
@@ -225,110 +181,6 @@ func (c *lineChart) xs() [][]float64 {
 		out[i] = s.X
 	}
 	return out
-}
-
-// cleanSeries validates the series, sorts any out of x order (with a note)
-// and refuses duplicate x values, which a line cannot draw.
-func cleanSeries(in []Series) ([]Series, []Note, error) {
-	if len(in) == 0 {
-		return nil, nil, fmt.Errorf("no series to draw")
-	}
-	var notes []Note
-	out := make([]Series, 0, len(in))
-	for i, s := range in {
-		if s.Name == "" {
-			s.Name = fmt.Sprintf("series %d", i+1)
-		}
-		if len(s.X) != len(s.Y) {
-			return nil, nil, fmt.Errorf("series %q has %d x values but %d y values: give one x per y", s.Name, len(s.X), len(s.Y))
-		}
-		if len(s.X) == 0 {
-			return nil, nil, fmt.Errorf("series %q has no points", s.Name)
-		}
-		for j := range s.X {
-			if math.IsNaN(s.X[j]) || math.IsInf(s.X[j], 0) {
-				return nil, nil, fmt.Errorf("series %q: x value %d is %v: give finite x values", s.Name, j+1, s.X[j])
-			}
-			if math.IsInf(s.Y[j], 0) {
-				return nil, nil, fmt.Errorf("series %q: y value %d is infinite: give finite values, or NaN for a missing one", s.Name, j+1)
-			}
-		}
-		if !slices.IsSorted(s.X) {
-			idx := make([]int, len(s.X))
-			for j := range idx {
-				idx[j] = j
-			}
-			slices.SortStableFunc(idx, func(a, b int) int { return cmp.Compare(s.X[a], s.X[b]) })
-			x, y := make([]float64, len(idx)), make([]float64, len(idx))
-			for j, k := range idx {
-				x[j], y[j] = s.X[k], s.Y[k]
-			}
-			s.X, s.Y = x, y
-			notes = append(notes, Note{Code: "sorted", Text: fmt.Sprintf("sorted series %q by x: a line joins its points in x order", s.Name)})
-		}
-		for j := 1; j < len(s.X); j++ {
-			if s.X[j] == s.X[j-1] {
-				return nil, nil, fmt.Errorf("series %q has two points at x = %g: a line needs one value per x; combine them first", s.Name, s.X[j])
-			}
-		}
-		if !slices.ContainsFunc(s.Y, func(v float64) bool { return !math.IsNaN(v) }) {
-			notes = append(notes, Note{Code: "series-dropped", Changed: true, Text: fmt.Sprintf("left out series %q: every value is missing", s.Name)})
-			continue
-		}
-		out = append(out, s)
-	}
-	if len(out) == 0 {
-		return nil, nil, fmt.Errorf("no values to draw: every value is missing")
-	}
-	return out, notes, nil
-}
-
-// countMissing is the number of missing values over all series.
-func countMissing(series []Series) int {
-	n := 0
-	for _, s := range series {
-		for _, y := range s.Y {
-			if math.IsNaN(y) {
-				n++
-			}
-		}
-	}
-	return n
-}
-
-// missingNote says what the missing values did to the drawn lines: the
-// pieces they break them into, the values between two gaps that are drawn
-// as dots, and, when the line was reduced to pixel columns, how many fell
-// inside columns that also hold values and were drawn through.
-func missingNote(missing, bridged int, drawn []drawnLine) string {
-	if missing == 0 {
-		return ""
-	}
-	g := scale.Format{Group: true}
-	if bridged >= missing {
-		return fmt.Sprintf("%s missing %s fall inside pixel columns that also hold values, so at this width the line is drawn through them (a gap is drawn only where a whole pixel column has no value)",
-			g.Format(float64(missing)), plural(missing, "value", "values"))
-	}
-	pieces, dots := 0, 0
-	for _, d := range drawn {
-		pieces += len(d.pieces)
-		for _, p := range d.pieces {
-			if len(p) == 1 {
-				dots++
-			}
-		}
-	}
-	gaps := missing - bridged
-	text := fmt.Sprintf("%s missing %s: drawn in %s %s, never joined across a gap", g.Format(float64(gaps)), plural(gaps, "value leaves a gap", "values leave gaps"),
-		g.Format(float64(pieces)), plural(pieces, "piece", "pieces"))
-	if dots > 0 {
-		text += fmt.Sprintf("; %s %s between two gaps drawn as %s as wide as the line", g.Format(float64(dots)), plural(dots, "value", "values"), plural(dots, "a dot", "dots"))
-	}
-	if bridged > 0 {
-		text += fmt.Sprintf("; %s more missing %s fall inside pixel columns that also hold values and are drawn through (a gap is drawn only where a whole pixel column has no value)",
-			g.Format(float64(bridged)), plural(bridged, "value", "values"))
-	}
-	return text
 }
 
 // magnitudeNote suggests an index or panels when one axis must show series
@@ -463,27 +315,6 @@ func (c *lineChart) axisTitle() {
 // xText formats an x value for notes and the description.
 func (c *lineChart) xText(x float64) string { return xValueText(x, c.xk) }
 
-// xValueText writes an x value for a note or a description: a date on a
-// time axis, a year as a year (2018, never 2,018), else a number.
-func xValueText(x float64, k xKind) string {
-	if k.years {
-		return strconv.FormatFloat(x, 'f', 0, 64)
-	}
-	if !k.time {
-		return scale.ValueFormat([]float64{x}, "").Format(x)
-	}
-	t := unixTime(x)
-	switch {
-	case t.Hour() != 0 || t.Minute() != 0 || t.Second() != 0:
-		return t.Format("2006-01-02 15:04")
-	case t.Day() != 1:
-		return t.Format("2 Jan 2006")
-	case t.Month() != time.January:
-		return t.Format("Jan 2006")
-	}
-	return t.Format("2006")
-}
-
 // seriesColors gives each series its colour: one series in Neutral, a few
 // in the categorical palette.
 func (c *lineChart) seriesColors() []Colour {
@@ -504,168 +335,6 @@ func (c *lineChart) seriesColors() []Colour {
 		out[i] = RGB(p[i])
 	}
 	return out
-}
-
-// endLabel is a series name placed at its line's right end.
-type endLabel struct {
-	lines  []string
-	full   string
-	color  Colour // the series colour
-	text   Colour // the text colour: the series' hue, darkened until it reads at 4.5:1
-	ex, ey float64
-}
-
-// directLabels measures the labels and returns the width they need at the
-// right of the plot. Each label takes its series' hue, darkened in OKLCH
-// lightness until it meets the 4.5:1 text contrast of WCAG 2.x on the white
-// background, so that label and line read as one.
-func (f *frame) directLabels(names []string, colors []Colour, maxW float64) ([]endLabel, float64) {
-	sp := f.spec
-	labels := make([]endLabel, len(names))
-	width := 0.0
-	white := palette.SRGB{R: 1, G: 1, B: 1}
-	for i, n := range names {
-		lines, cut := f.wrap(n, sp.text, false, maxW, 2)
-		if cut {
-			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
-		}
-		txt := f.th.text
-		if dark, ok := palette.DarkenToContrast(colors[i].SRGB(), white, 4.5); ok {
-			txt = RGB(dark)
-		}
-		labels[i] = endLabel{lines: lines, full: n, color: colors[i], text: txt}
-		for _, l := range lines {
-			width = math.Max(width, f.measure(l, sp.text, false))
-		}
-	}
-	return labels, width + f.labelIndent()
-}
-
-// labelIndent is the room between the plot's right edge and label text,
-// where the leaders run.
-func (f *frame) labelIndent() float64 { return f.spec.gap * 3 }
-
-// placeLabels spreads the labels vertically with the least total
-// displacement (layout.Spread) and draws them with leader lines. It returns
-// false, drawing nothing, when they cannot fit between top and bottom.
-// Leaders are thin and in the muted text colour, and run only in the
-// margin right of the plot, from the height of the line's end to the
-// label: in the series' colour and starting at the last point they read as
-// the data going on.
-func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool {
-	sp := f.spec
-	lh := lineHeight(sp.text)
-	face := f.fonts.Face(false)
-	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
-	maxLines := 1
-	want := make([]float64, len(labels))
-	for i, l := range labels {
-		maxLines = max(maxLines, len(l.lines))
-		want[i] = l.ey
-	}
-	// Labels of several lines need a little air between them, or two
-	// wrapped names read as one.
-	gap := lh * float64(maxLines)
-	if maxLines > 1 {
-		gap += sp.gap
-	}
-	// A label of several lines is centred on its place, so keep its extra
-	// lines within the plot's height: above it is the axis title, and below
-	// it the last x tick label may reach under the labels.
-	hang := float64(maxLines-1) * lh / 2
-	if top+hang > bottom-hang {
-		return false
-	}
-	got, ok := layout.Spread(want, gap, top+hang, bottom-hang)
-	if !ok {
-		return false
-	}
-	x := right + f.labelIndent()
-	for i, l := range labels {
-		y := got[i]
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(right + sp.gap/2), round2(l.ey)}, {round2(x - sp.gap/2), round2(y)}}},
-			Stroke: f.th.muted, StrokeWidth: 0.75, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", l.full}}})
-		tip := ""
-		if strings.Join(l.lines, " ") != l.full {
-			tip = l.full
-		}
-		for j, t := range l.lines {
-			base := y + (asc-desc)/2 + (float64(j)-float64(len(l.lines)-1)/2)*lh
-			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: x, Y: base, Text: t, Size: sp.text, Fill: l.text, Anchor: Start, Tooltip: tip,
-				Attrs: []Attr{{"series", l.full}}})
-		}
-	}
-	return true
-}
-
-// legend draws one row per series under the chart, for when direct labels
-// cannot be placed; it returns the y under it.
-func (f *frame) legend(labels []endLabel, left, y float64) float64 {
-	sp := f.spec
-	lh := lineHeight(sp.text)
-	face := f.fonts.Face(false)
-	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
-	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-legend"})
-	y += sp.gap
-	for _, l := range labels {
-		cy := y + lh/2
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2, Join: JoinRound, Cap: CapRound})
-		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sp.text*1.5 + sp.gap, Y: cy + (asc-desc)/2, Text: l.full, Size: sp.text, Fill: l.text,
-			Attrs: []Attr{{"series", l.full}}})
-		y += lh
-	}
-	f.scene.Add(Mark{Kind: GroupEnd})
-	return y
-}
-
-// addSeries draws one series: its pieces of two or more points as one
-// path, and every piece of a single point (a value between two missing
-// ones, which a path would not show) as a dot as wide as the line, with
-// the value it stands for.
-func (f *frame) addSeries(class, name string, p scale.Polyline, d drawnLine, color Colour, width float64, isTime bool) {
-	width = round2(width)
-	var lines [][]Point
-	var dots []Mark
-	for k, piece := range d.pieces {
-		if len(piece) > 1 {
-			lines = append(lines, piece)
-			continue
-		}
-		j := d.first[k]
-		dots = append(dots, Mark{Kind: Circle, Class: class, X: piece[0].X, Y: piece[0].Y, R: width / 2, Fill: color,
-			Attrs: []Attr{{"series", name}, {"x", xData(p.X[j], isTime)}, {"value", dataNumber(p.Y[j])}}})
-	}
-	if len(lines) > 0 {
-		f.scene.Add(Mark{Kind: Path, Class: class, Lines: lines, Stroke: color, StrokeWidth: width, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", name}}})
-	}
-	f.scene.Add(dots...)
-}
-
-// xData is an x value for a data attribute: the number, or the instant in
-// RFC 3339.
-func xData(x float64, isTime bool) string {
-	if isTime {
-		return unixTime(x).Format(time.RFC3339)
-	}
-	return dataNumber(x)
-}
-
-// shouldReduce applies M4 when a series holds more than four points per
-// pixel column (Jugel et al. 2014): beyond that its drawn line cannot show
-// more, and the file only grows. M4 works per polyline, so the count is
-// per series, not per panel.
-func shouldReduce(series []Series, w int) bool {
-	for _, s := range series {
-		if len(s.X) > 4*w {
-			return true
-		}
-	}
-	return false
-}
-
-func reduceNote(before, after int) string {
-	return fmt.Sprintf("reduced %s points to %s that draw the same line (M4: first, last, lowest and highest point per pixel column; Jugel et al. 2014)",
-		scale.Format{Group: true}.Format(float64(before)), scale.Format{Group: true}.Format(float64(after)))
 }
 
 // MaxDrawnPoints bounds the vertices one line chart draws after reduction:
@@ -816,119 +485,6 @@ const MaxPanels = 30
 // of text: room for two or three x tick labels.
 const minPanelChars = 7
 
-// layoutMultiples draws one panel per series in a grid, all with the same
-// scales; each panel shows its own series strongly over one faint band:
-// the range of all the series, computed once for every panel, so that the
-// figure grows linearly with the number of series.
-func (c *lineChart) layoutMultiples() (float64, error) {
-	f, sp := c.f, c.f.spec
-	lh := lineHeight(sp.text)
-	face := f.fonts.Face(false)
-	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
-	top := f.plotTop()
-	if c.yTitle != "" {
-		t := f.axisTitle(c.yTitle, f.width-2*sp.pad)
-		f.drawAxisTitle(t, sp.pad, top)
-		top += t.height(lh) + sp.gap
-	}
-	n := len(c.series)
-	left0 := math.Ceil(sp.pad + f.yLabelWidth(c.ylo, c.yhi, c.yk) + sp.gap)
-	// The gutter between panels is two characters, or wider when the
-	// outer x labels of neighbouring panels need it. The grid is about
-	// square in panels, so the columns grow with the count; a panel
-	// narrower than minPanelChars characters reads poorly, so fewer
-	// columns are tried then.
-	hgap0 := math.Ceil(sp.text * 2)
-	cols := min(n, int(math.Ceil(math.Sqrt(float64(n)))))
-	var left, w, hgap float64
-	var ax xAxis
-	for ; ; cols-- {
-		left, w, hgap, ax = f.fitPanelsX(left0, 0, cols, hgap0, c.xlo, c.xhi, c.xk)
-		if cols == 1 || w >= sp.text*minPanelChars {
-			break
-		}
-	}
-	rows := (n + cols - 1) / cols
-	if w < sp.text*6 {
-		return 0, fmt.Errorf("%d panels do not fit at this width: give a wider canvas (%s), or %s for one panel", n, c.opt.name("Width"), c.opt.name("Together"))
-	}
-	g := lineGeom{left: 0, w: int(w), ax: ax}
-	polys, bridged, err := c.reduceAll(g)
-	if err != nil {
-		return 0, err
-	}
-	titleH := lh
-	plotOff := titleH + math.Ceil((asc+desc)/2)
-	room := 0.0
-	if fb := f.fixedPlotBottom(); fb > 0 {
-		// Rows of panels, the last one or two with x labels, within the canvas.
-		over := float64(rows)*(plotOff+sp.gap*2) + 2*(f.xLabelTop(0)+lh)
-		if c.opt.XName != "" {
-			over += lh
-		}
-		room = math.Floor((fb - top - over) / float64(rows))
-		if room < minPlotHeight(sp, true) {
-			return 0, fmt.Errorf("%d %s not fit in a %g px high figure: give a taller canvas (%s), or %s for one panel", rows, plural(rows, "row of panels does", "rows of panels do"), f.spec.height, c.opt.name("Height"), c.opt.name("Together"))
-		}
-	}
-	h, ay, err := f.plotHeight(&c.bank, polys, c.opt.Time, ax.d1-ax.d0, w, c.ylo, c.yhi, c.yk, room, true)
-	if err != nil {
-		return 0, err
-	}
-	f.scene.Note("aspect", false, c.bank.note(w, h)+", each panel")
-	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: plotOff + h, R1: plotOff}
-	lastRow := n - (rows-1)*cols
-	drawn := make([]drawnLine, n)
-	for i := range c.series {
-		g.reduce = shouldReduce(c.series[i:i+1], g.w)
-		drawn[i] = g.screen(polys[i], ys)
-	}
-	c.noteMissing(bridged, drawn)
-	band := bandPieces(envelope(c.series, ax, g.w), ys)
-	y := top
-	for r := 0; r < rows; r++ {
-		rowH := plotOff + h
-		labelled := r == rows-1 || r == rows-2 && lastRow < cols
-		if labelled {
-			rowH = f.xLabelTop(plotOff+h) + lh
-		}
-		for col := 0; col < cols; col++ {
-			i := r*cols + col
-			if i >= n {
-				break
-			}
-			dx := left + float64(col)*(w+hgap)
-			f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: dx, DY: round2(y), Attrs: []Attr{{"series", c.series[i].Name}}})
-			title, cut := f.wrap(c.series[i].Name, sp.text, true, w, 1)
-			tip := ""
-			if cut {
-				tip = c.series[i].Name
-			}
-			if len(title) > 0 {
-				f.scene.Add(Mark{Kind: Text, Class: "plumb-panel-title", X: 0, Y: asc, Text: title[0], Size: sp.text, Bold: true, Fill: f.th.text, Tooltip: tip})
-			}
-			f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-			f.drawYAxis(ay, ys, 0, w, col == 0)
-			showX := r == rows-1 || (r+1)*cols+col >= n
-			f.drawXAxis(ax, 0, int(w), plotOff+h, showX)
-			f.scene.Add(Mark{Kind: GroupEnd})
-			if len(band) > 0 {
-				f.scene.Add(Mark{Kind: Path, Class: "plumb-context", Lines: band, Closed: true, Fill: f.th.context, Attrs: []Attr{{"series", "range of all series"}}})
-			}
-			c.drawBase(ys, 0, w)
-			f.addSeries("plumb-mark", c.series[i].Name, polys[i], drawn[i], f.th.neutral, strokeWidth(sp), c.opt.Time)
-			f.scene.Add(Mark{Kind: GroupEnd})
-		}
-		y += rowH + sp.gap*2
-	}
-	bottom := y - sp.gap*2
-	if c.opt.XName != "" {
-		f.text(left+(float64(cols)*w+float64(cols-1)*hgap)/2, bottom+asc, c.opt.XName, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
-		bottom += lh
-	}
-	return bottom, nil
-}
-
 // describe writes the plain-language description: what is plotted, over
 // what range, each series' first and last values and extremes.
 func (c *lineChart) describe(multiples bool) string {
@@ -961,86 +517,6 @@ func (c *lineChart) unitText() string {
 	return c.opt.Unit
 }
 
-// shownValues are the values a description prints (each series' first,
-// last, highest and lowest, and its change), so that their format is
-// chosen from them alone: formatting a million values to print eight
-// cost more than the rest of a render.
-func shownValues(series []Series) []float64 {
-	var out []float64
-	for _, s := range series {
-		first, last, lo, hi := extremes(s.Y)
-		if first < 0 {
-			continue
-		}
-		out = append(out, s.Y[first], s.Y[last], s.Y[lo], s.Y[hi], s.Y[last]-s.Y[first])
-	}
-	return out
-}
-
-// extremes returns the indices of the first, last, lowest and highest
-// non-missing values, or -1s when all are missing.
-func extremes(y []float64) (first, last, lo, hi int) {
-	first, last, lo, hi = -1, -1, -1, -1
-	for i, v := range y {
-		if math.IsNaN(v) {
-			continue
-		}
-		if first < 0 {
-			first = i
-		}
-		last = i
-		if lo < 0 || v < y[lo] {
-			lo = i
-		}
-		if hi < 0 || v > y[hi] {
-			hi = i
-		}
-	}
-	return first, last, lo, hi
-}
-
-// describeSeries says one series' first and last values, its change, and
-// its extremes.
-func describeSeries(s Series, vf scale.Format, k xKind) string {
-	first, last, lo, hi := extremes(s.Y)
-	if first < 0 {
-		return fmt.Sprintf("%s: no values.", s.Name)
-	}
-	d := s.Y[last] - s.Y[first]
-	change := "no change"
-	switch {
-	case d > 0:
-		change = "up " + vf.Format(d)
-	case d < 0:
-		change = "down " + vf.Format(-d)
-	}
-	if d != 0 && s.Y[first] != 0 {
-		pct := 100 * d / math.Abs(s.Y[first])
-		if math.IsInf(pct, 0) { // 100 * d overflowed, or the ratio did
-			pct = 100 * (d / math.Abs(s.Y[first]))
-		}
-		if !math.IsInf(pct, 0) {
-			change += fmt.Sprintf(" (%+.0f%%)", pct)
-		}
-	}
-	return fmt.Sprintf("%s: %s at %s, %s at %s, %s; highest %s at %s, lowest %s at %s.", s.Name,
-		vf.Format(s.Y[first]), xValueText(s.X[first], k), vf.Format(s.Y[last]), xValueText(s.X[last], k), change,
-		vf.Format(s.Y[hi]), xValueText(s.X[hi], k), vf.Format(s.Y[lo]), xValueText(s.X[lo], k))
-}
-
-// overText says what the x axis is for a description: the x column's
-// name, "over time" for instants, or "in x order" when nothing names it;
-// never a bare "over x".
-func overText(name string, isTime bool) string {
-	switch {
-	case name != "":
-		return "over " + name
-	case isTime:
-		return "over time"
-	}
-	return "in x order"
-}
-
 // accessibleTitle names an untitled chart by what it plots.
 func (c *lineChart) accessibleTitle() string {
 	what := c.opt.YName
@@ -1059,8 +535,3 @@ func (c *lineChart) accessibleTitle() string {
 	}
 	return "Line chart of " + what
 }
-
-// strokeWidth is the width of a data line: 2 px beside 13 px text on
-// screen, growing with the medium's text so that a slide's lines are not
-// hairlines, and never under 1.5 px (common practice).
-func strokeWidth(sp mediumSpec) float64 { return math.Max(1.5, 2*sp.text/13) }

@@ -21,7 +21,7 @@ type columnRange struct {
 // columns they span, and is computed once for all panels: drawing the other
 // series in every panel made the output grow with the square of their
 // number.
-func envelope(series []Series, ax xAxis, w int) columnRange {
+func envelope(series []Series, ax axis, w int) columnRange {
 	r := columnRange{lo: make([]float64, w), hi: make([]float64, w)}
 	for c := range r.lo {
 		r.lo[c], r.hi[c] = math.NaN(), math.NaN()

@@ -61,7 +61,7 @@ type banking struct {
 // bankAlpha banks the polylines for the y axis a (Cleveland, McGill &
 // McGill 1988: median absolute slope; Cleveland 1993: length-weighted
 // orientation), clamped to [MinAspect, MaxAspect].
-func (b *banking) bankAlpha(lines []scale.Polyline, rx float64, a yAxis) float64 {
+func (b *banking) bankAlpha(lines []scale.Polyline, rx float64, a axis) float64 {
 	ry := a.d1 - a.d0
 	b.msAlpha, _ = scale.BankMedianSlope(lines, rx, ry)
 	if b.forced > 0 {
@@ -88,9 +88,9 @@ func (b *banking) bankAlpha(lines []scale.Polyline, rx float64, a yAxis) float64
 // bank chooses a panel's banked plot height for plot width w: banking
 // needs the y domain, whose nice ticks depend on the height, so it
 // iterates until the two agree.
-func (f *frame) bank(b *banking, lines []scale.Polyline, rx, w, lo, hi float64, k yKind) (float64, yAxis) {
+func (f *frame) bank(b *banking, lines []scale.Polyline, rx, w, lo, hi float64, k yKind) (float64, axis) {
 	h := w * 0.5
-	var a yAxis
+	var a axis
 	for i := 0; i < 6; i++ {
 		a = f.fitY(lo, hi, h, k)
 		nh := b.bankAlpha(lines, rx, a) * w
@@ -168,7 +168,7 @@ func periodText(p float64, isTime bool) string {
 // canvas height is fixed (room > 0), exactly the room the frame leaves,
 // so that a fixed canvas is filled. It returns the height and the y axis
 // fitted to it, and records every decision in b for the note.
-func (f *frame) plotHeight(b *banking, lines []scale.Polyline, isTime bool, rx, w, lo, hi float64, k yKind, room float64, panel bool) (float64, yAxis, error) {
+func (f *frame) plotHeight(b *banking, lines []scale.Polyline, isTime bool, rx, w, lo, hi float64, k yKind, room float64, panel bool) (float64, axis, error) {
 	b.minH = minPlotHeight(f.spec, panel)
 	h, ay := f.bank(b, lines, rx, w, lo, hi, k)
 	if b.forced == 0 && b.ok && b.banked*w < b.minH {
@@ -187,7 +187,7 @@ func (f *frame) plotHeight(b *banking, lines []scale.Polyline, isTime bool, rx, 
 	}
 	if room > 0 {
 		if room < b.minH {
-			return 0, yAxis{}, fmt.Errorf("the figure's fixed height leaves a %.0f px plot, under the %.0f px a line chart needs on this medium to be read: give a taller canvas (%s), or a shorter title and notes, so that it can fit", room, b.minH, f.c.name("Height"))
+			return 0, axis{}, fmt.Errorf("the figure's fixed height leaves a %.0f px plot, under the %.0f px a line chart needs on this medium to be read: give a taller canvas (%s), or a shorter title and notes, so that it can fit", room, b.minH, f.c.name("Height"))
 		}
 		if b.forced > 0 {
 			h = math.Min(h, room)

@@ -475,7 +475,7 @@ func TestLinesDrawnPointsBound(t *testing.T) {
 		series = append(series, Series{Name: fmt.Sprint(i), X: []float64{0, 1, 2}, Y: []float64{1, 2, float64(i)}})
 	}
 	c := &lineChart{f: f, series: series}
-	g := lineGeom{w: 300, ax: xAxis{d0: 0, d1: 2}}
+	g := lineGeom{w: 300, ax: axis{d0: 0, d1: 2}}
 	_, _, err = c.reduceWithin(g, 59)
 	require.Error(t, err)
 	assert.True(t, errors.Is(err, ErrRefused))

@@ -2,6 +2,7 @@ package render
 
 import (
 	"cmp"
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -11,6 +12,7 @@ import (
 	"unicode/utf8"
 
 	"plumb/internal/suggest"
+	"plumb/scale"
 )
 
 // Order says how categories are arranged.
@@ -269,3 +271,317 @@ func closest(s string, cands []string) string {
 // dataNumber formats a value for a data-* attribute: the shortest text that
 // reads back as the same float64, so audits measure against exact data.
 func dataNumber(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+
+// limitRows applies Top and Other: it folds the rows beyond Top into one
+// Other row when that is honest, or leaves them out and says so in a note
+// and under the chart, never silently.
+func (c *rowChart) limitRows() error {
+	f := c.f
+	switch c.opt.Other {
+	case OtherAuto, OtherNone, OtherMean:
+	case OtherSum:
+		if c.dots {
+			return &OptionError{Option: "Other", Value: string(OtherSum), Err: fmt.Errorf("a dot marks a position, not an amount, so dots are never summed; use %s mean or none, or draw bars", c.opt.name("Other"))}
+		}
+	default:
+		return &OptionError{Option: "Other", Value: strconv.Quote(string(c.opt.Other)), Err: errors.New("use sum, mean or none")}
+	}
+	top := c.opt.Top
+	if top > 0 && top < 2 {
+		return &OptionError{Option: "Top", Value: strconv.Itoa(top), Err: errors.New("show at least 2 categories")}
+	}
+	fold := c.opt.Other == OtherSum || c.opt.Other == OtherMean || (c.opt.Other == OtherAuto && c.additive() && !c.dots)
+	canvas := false // the fixed canvas, not the caller, limited the rows
+	if top == 0 {
+		switch {
+		case c.dots:
+			top = DefaultDotsTop
+		case fold:
+			top = DefaultTop
+		default:
+			top = c.rowsThatFit()
+		}
+		// A fixed canvas holds only so many rows: the rest go as above
+		// rather than refusing the chart.
+		if fit := c.rowsThatFit(); fit > 0 && top > fit {
+			top, canvas = fit, true
+		}
+	}
+	if top < 0 || len(c.rows) <= top {
+		return nil
+	}
+	if fold {
+		var note string
+		c.rows, note = combineTail(c.rows, top, c.opt.Other == OtherSum || (c.opt.Other == OtherAuto && !c.opt.Averages))
+		if note != "" {
+			f.scene.Note("other", true, note+"; show more with "+c.opt.name("Top"))
+		}
+		return nil
+	}
+	n := len(c.rows)
+	var gone []string
+	c.rows, gone = leaveOut(c.rows, top)
+	if len(gone) == 0 {
+		return nil
+	}
+	why := "they are not parts of a whole, so a sum would mean nothing"
+	if c.dots {
+		why = "a dot is a position, so a sum would mean nothing"
+	}
+	combine := "sum or mean"
+	if c.dots {
+		combine = "mean" // a dot is never summed
+	}
+	more := fmt.Sprintf("show them all with %s -1, or combine them with %s %s", c.opt.name("Top"), c.opt.name("Other"), combine)
+	if canvas {
+		more = fmt.Sprintf("only these fit the canvas; give a taller canvas (%s), or combine the rest with %s mean", c.opt.name("Height"), c.opt.name("Other"))
+	}
+	f.scene.Note("left-out", true, fmt.Sprintf("drew the %d largest of %d categories and left out %d (not combined into Other; %s): %s; %s",
+		len(c.rows), n, len(gone), why, listNames(gone, 6), more))
+	f.addNote(fmt.Sprintf("%d of %d categories shown: the %d smallest are left out.", len(c.rows), n, len(gone)))
+	return nil
+}
+
+// rowsThatFit is how many horizontal rows fit on a canvas of fixed height
+// (the frame's note line for the rest included), or -1 when the chart
+// grows with its rows. Vertical bars need no limit here: they refuse when
+// their columns get too narrow.
+func (c *rowChart) rowsThatFit() int {
+	f := c.f
+	if c.opt.Vertical || f.fixedPlotBottom() == 0 {
+		return -1
+	}
+	sp := f.spec
+	lh := lineHeight(sp.text)
+	axisH := sp.gap + lh + c.unitLineH()
+	// The note line under the chart takes one small line when rows are left out.
+	room := f.fixedPlotBottom() - lineHeight(sp.small) - axisH - f.plotTop()
+	n := int(room / (lh + sp.gap/2))
+	if n >= len(c.rows) {
+		return -1
+	}
+	return max(n, 2)
+}
+
+// toShares turns values into percentages of their total.
+func (c *rowChart) toShares() error {
+	// Values near the largest float64 overflow their total to +Inf (and
+	// every share to NaN): then sum them scaled by the largest.
+	big, plain := 1.0, 0.0
+	for _, r := range c.rows {
+		plain += r.value
+	}
+	if math.IsInf(plain, 0) {
+		for _, r := range c.rows {
+			big = math.Max(big, math.Abs(r.value))
+		}
+	}
+	total := 0.0
+	for _, r := range c.rows {
+		if r.value < 0 {
+			return &RefusalError{
+				Reason:  fmt.Sprintf("cannot show %q as a share of a total: it is negative", r.label),
+				Instead: "shares need values of one sign; drop " + c.opt.name("Percent") + " to draw the values themselves",
+			}
+		}
+		total += r.value / big
+	}
+	if total == 0 {
+		return &RefusalError{Reason: "cannot show shares: the values add up to zero", Instead: "drop " + c.opt.name("Percent")}
+	}
+	for i := range c.rows {
+		share := 100 * (c.rows[i].value / big) / total
+		if math.IsInf(share, 0) { // 100 * value overflowed
+			share = 100 * (c.rows[i].value / big / total)
+		}
+		c.rows[i].value = share
+	}
+	total *= big
+	c.opt.Unit = "%"
+	totalText := scale.ValueFormat([]float64{total}, "").Format(total)
+	if math.IsInf(total, 0) {
+		totalText = fmt.Sprintf("more than %.1e", math.MaxFloat64)
+	}
+	c.f.scene.Note("percent", true, fmt.Sprintf("showing each value as a percentage of the total, %s", totalText))
+	return nil
+}
+
+// domain fixes the value domain: bars always include zero and end on nice
+// ticks; dots fit the data. --from and --to may widen, never hide.
+func (c *rowChart) domain() error {
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, r := range c.rows {
+		lo, hi = math.Min(lo, r.value), math.Max(hi, r.value)
+	}
+	if !c.dots {
+		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
+		if c.opt.From != nil && *c.opt.From > lo {
+			return &OptionError{Option: "From", Value: strconv.FormatFloat(*c.opt.From, 'g', -1, 64), Err: &RefusalError{Reason: "would cut " + c.cutWhat(lo),
+				Instead: "a bar's length is its value, so bars start at zero. To compare values far from zero, use a dot plot (plumb dots), which may start anywhere"}}
+		}
+		if c.opt.To != nil && *c.opt.To < hi {
+			return c.domainError("To", *c.opt.To, "would cut bars that reach "+c.numText(hi), "at or beyond the largest value")
+		}
+	} else {
+		if c.opt.From != nil && *c.opt.From > lo {
+			return c.domainError("From", *c.opt.From, "would hide values down to "+c.numText(lo), "at or below the smallest value")
+		}
+		if c.opt.To != nil && *c.opt.To < hi {
+			return c.domainError("To", *c.opt.To, "would hide values up to "+c.numText(hi), "at or above the largest value")
+		}
+	}
+	if c.opt.From != nil {
+		lo = *c.opt.From
+	}
+	if c.opt.To != nil {
+		hi = *c.opt.To
+	}
+	c.d0, c.d1 = lo, hi
+	c.lo0, c.hi0 = lo, hi
+	return nil
+}
+
+// domainError refuses a From or To that would hide data: an OptionError
+// naming the option, wrapping the refusal.
+func (c *rowChart) domainError(option string, v float64, why, where string) error {
+	return &OptionError{Option: option, Value: strconv.FormatFloat(v, 'g', -1, 64),
+		Err: &RefusalError{Reason: why, Instead: fmt.Sprintf("give %s %s, or leave it out", c.opt.name(option), where)}}
+}
+
+func (c *rowChart) cutWhat(lo float64) string {
+	if lo < 0 {
+		return fmt.Sprintf("the bars down to %s", c.numText(lo))
+	}
+	return "every bar short of its true length"
+}
+
+func (c *rowChart) numText(v float64) string {
+	return scale.ValueFormat([]float64{v}, c.opt.Unit).Format(v)
+}
+
+// abbreviateCalendar gives month and weekday names their standard short
+// forms (Jan, Feb; Mon, Tue) when any category label does not fit width, all
+// of them alike, so an axis never mixes "March" with "Jan…". When even the
+// three-letter forms do not fit, the one-letter initials are used (J F M;
+// M T W), as on printed calendars (common practice).
+func (c *rowChart) abbreviateCalendar(width float64) {
+	f, size := c.f, c.f.spec.text
+	fits := func(s string, bold bool) bool { return f.measure(s, size, bold) <= width }
+	short := make([]string, len(c.rows))
+	all, over := true, false
+	for i, r := range c.rows {
+		ab, ok := calendarShort(r.label)
+		if !ok {
+			all = false
+			break
+		}
+		short[i] = ab
+		over = over || !fits(r.label, r.highlight)
+	}
+	if !all || !over {
+		return
+	}
+	initials := false
+	for i, r := range c.rows {
+		initials = initials || !fits(short[i], r.highlight)
+	}
+	again := c.rows[0].short != ""
+	for i := range c.rows {
+		if initials {
+			short[i] = short[i][:1]
+		}
+		c.rows[i].short = short[i]
+	}
+	if again {
+		return
+	}
+	f.scene.Note("calendar-abbreviated", false, "wrote the month or weekday names in their standard short forms to fit the columns")
+}
+
+// calendarShort returns the standard three-letter form of an English month
+// or weekday name, full or already abbreviated ("September", "Sept", "sep").
+func calendarShort(label string) (string, bool) {
+	l := strings.ToLower(strings.TrimSuffix(strings.TrimSpace(label), "."))
+	switch l {
+	case "sept":
+		return "Sep", true
+	case "tues":
+		return "Tue", true
+	case "thur", "thurs":
+		return "Thu", true
+	}
+	for _, n := range []string{"January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December",
+		"Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday", "Sunday"} {
+		if ab := n[:3]; l == strings.ToLower(n) || l == strings.ToLower(ab) {
+			return ab, true
+		}
+	}
+	return "", false
+}
+
+// accessibleTitle names an untitled chart for assistive technology.
+func (c *rowChart) accessibleTitle() string {
+	kind, _, _ := strings.Cut(c.describe(), ",")
+	return kind
+}
+
+// describe writes the plain-language <desc>: what is plotted, the extremes,
+// and what was combined.
+func (c *rowChart) describe() string {
+	kind := "Bar chart"
+	switch {
+	case c.dots:
+		kind = "Dot plot"
+	case c.opt.Vertical:
+		kind = "Vertical bar chart"
+	}
+	what := c.opt.ValueName
+	if what == "" {
+		what = "values"
+	}
+	if c.opt.Percent {
+		what = "share of total " + c.opt.ValueName
+	}
+	by := c.opt.LabelName
+	if by == "" {
+		by = "category"
+	}
+	var b strings.Builder
+	fmt.Fprintf(&b, "%s of %s by %s, %d %s", kind, strings.TrimSpace(what), by, len(c.rows), plural(len(c.rows), "row", "rows"))
+	switch c.opt.Order {
+	case ByValue, "":
+		b.WriteString(", largest first")
+	case ByLabel:
+		b.WriteString(", in label order")
+	case ByData:
+		b.WriteString(", in the order given")
+	}
+	b.WriteString(". ")
+	hi, lo := 0, 0
+	for i, r := range c.rows {
+		if r.other > 0 {
+			continue
+		}
+		if r.value > c.rows[hi].value || c.rows[hi].other > 0 {
+			hi = i
+		}
+		if r.value < c.rows[lo].value || c.rows[lo].other > 0 {
+			lo = i
+		}
+	}
+	fmt.Fprintf(&b, "Largest: %s at %s; smallest: %s at %s.", c.rows[hi].label, c.vfmt.Format(c.rows[hi].value), c.rows[lo].label, c.vfmt.Format(c.rows[lo].value))
+	if last := c.rows[len(c.rows)-1]; last.other > 0 {
+		fmt.Fprintf(&b, " %d smaller categories are combined in %s at %s.", last.other, last.label, c.vfmt.Format(last.value))
+	}
+	if len(c.opt.Highlight) > 0 {
+		fmt.Fprintf(&b, " Highlighted: %s.", strings.Join(c.opt.Highlight, ", "))
+	}
+	return b.String()
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
