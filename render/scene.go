@@ -1,6 +1,10 @@
 package render
 
-import "plumb/layout"
+import (
+	"image"
+
+	"plumb/layout"
+)
 
 // A Scene is a flat, ordered display list: everything a backend needs to draw
 // a figure and nothing it would have to decide. Builders measure and place;
@@ -38,6 +42,9 @@ const (
 	Text
 	GroupStart
 	GroupEnd
+	// Image is a raster drawn into X, Y, W, H, each pixel a crisp square
+	// (no smoothing): the cells of a heat map too large for one rect each.
+	Image
 )
 
 // Anchor is the horizontal alignment of a Text mark at its X.
@@ -65,6 +72,7 @@ type Point struct{ X, Y float64 }
 //	            StrokeWidth, Join, Cap, Dash
 //	Text:       X, Y (baseline), Text, Size, Bold, Anchor, Fill
 //	GroupStart: DX, DY (translate), Class
+//	Image:      X, Y, W, H, Img (scaled to the box, pixels kept square-edged)
 //
 // Every kind may carry a Class (always prefixed "plumb-"), data-* Attrs and a
 // Tooltip, written as a nested <title> so that shortened text stays readable.
@@ -83,10 +91,11 @@ type Mark struct {
 	Fill        Colour // the zero Colour means none
 	Stroke      Colour // the zero Colour means none
 	StrokeWidth float64
-	Join        LineJoin  // corners of the stroke; the zero value is a mitre
-	Cap         LineCap   // ends of the stroke; the zero value is butt
-	Opacity     float64   // 0 means fully opaque
-	Dash        []float64 // dash and gap lengths in px, repeated; nil is solid
+	Join        LineJoin     // corners of the stroke; the zero value is a mitre
+	Cap         LineCap      // ends of the stroke; the zero value is butt
+	Opacity     float64      // 0 means fully opaque
+	Dash        []float64    // dash and gap lengths in px, repeated; nil is solid
+	Img         *image.NRGBA // the pixels of an Image mark
 	Attrs       []Attr
 	Tooltip     string
 }

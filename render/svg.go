@@ -8,6 +8,7 @@ import (
 	"errors"
 	"fmt"
 	"hash/fnv"
+	"image/png"
 	"io"
 	"math"
 	"strconv"
@@ -173,6 +174,17 @@ func writeMark(doc *svg.SVG, bw *bufio.Writer, m *Mark) {
 		}
 	case GroupEnd:
 		doc.Gend()
+	case Image:
+		if m.Img == nil {
+			return
+		}
+		var buf bytes.Buffer
+		// png.Encode of an in-memory image fails only on a writer error,
+		// and a bytes.Buffer does not fail; its output is deterministic.
+		_ = png.Encode(&buf, m.Img)
+		a = append(a, `preserveAspectRatio="none"`, `style="image-rendering:pixelated;image-rendering:crisp-edges"`)
+		fmt.Fprintf(bw, `<image x="%s" y="%s" width="%s" height="%s" href="data:image/png;base64,%s" %s/>`+"\n",
+			num(m.X), num(m.Y), num(m.W), num(m.H), base64.StdEncoding.EncodeToString(buf.Bytes()), strings.Join(a, " "))
 	}
 }
 
@@ -182,7 +194,7 @@ func markAttrs(m *Mark) []string {
 	if m.Class != "" {
 		a = append(a, attr("class", m.Class))
 	}
-	if m.Kind != GroupStart && m.Kind != GroupEnd {
+	if m.Kind != GroupStart && m.Kind != GroupEnd && m.Kind != Image {
 		a = append(a, attr("fill", m.Fill.Hex()))
 		if m.Fill.A != 0 && m.Fill.A != 255 {
 			a = append(a, fmt.Sprintf(`fill-opacity="%s"`, alpha(m.Fill.A)))

@@ -2,8 +2,12 @@ package render
 
 import (
 	"bytes"
+	"encoding/base64"
 	"encoding/xml"
 	"errors"
+	"image"
+	"image/color"
+	"image/png"
 	"regexp"
 	"strings"
 	"testing"
@@ -86,4 +90,37 @@ func TestSVGSharedFontDeclaration(t *testing.T) {
 	assert.Empty(t, FontFaceCSS(Font{}))
 	other := Font{Data: append([]byte{1}, s.Font.Data...)}
 	assert.NotEqual(t, FontFamilyName(s.Font), FontFamilyName(other), "different font bytes, different family")
+}
+
+func TestWriteSVGImageMark(t *testing.T) {
+	img := image.NewNRGBA(image.Rect(0, 0, 2, 1))
+	img.SetNRGBA(0, 0, color.NRGBA{R: 255, A: 255})
+	img.SetNRGBA(1, 0, color.NRGBA{B: 255, A: 255})
+	s := &Scene{Width: 20, Height: 10, Title: "t"}
+	s.Add(Mark{Kind: Image, Class: "plumb-cells", X: 1, Y: 2, W: 10, H: 5, Img: img, Attrs: []Attr{{"rows", "1"}}})
+	var b strings.Builder
+	if err := WriteSVG(&b, s); err != nil {
+		t.Fatal(err)
+	}
+	out := b.String()
+	i := strings.Index(out, `<image x="1" y="2" width="10" height="5" href="data:image/png;base64,`)
+	if i < 0 {
+		t.Fatalf("no image element in\n%s", out)
+	}
+	start := i + len(`<image x="1" y="2" width="10" height="5" href="data:image/png;base64,`)
+	end := strings.IndexByte(out[start:], '"')
+	raw, err := base64.StdEncoding.DecodeString(out[start : start+end])
+	if err != nil {
+		t.Fatal(err)
+	}
+	back, err := png.Decode(bytes.NewReader(raw))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r, _, _, _ := back.At(0, 0).RGBA(); r != 0xffff {
+		t.Errorf("pixel (0,0) red = %#x, want 0xffff", r)
+	}
+	if !strings.Contains(out, `class="plumb-cells"`) || !strings.Contains(out, `data-rows="1"`) || strings.Contains(out[i:], `fill=`) && strings.Index(out[i:], `fill=`) < strings.Index(out[i:], "/>") {
+		t.Errorf("image attributes wrong:\n%s", out[i:i+200])
+	}
 }
