@@ -157,6 +157,12 @@ type Panel struct {
 	layers []panelLayer
 }
 
+// newPanel is how every chart's Panel function makes its Panel: the
+// options' title is the heading and their annotations its layers.
+func newPanel(c Common, plan func(f *frame) (panelPlan, error)) Panel {
+	return Panel{Title: c.Title, plan: plan, layers: c.Annotations.layers()}
+}
+
 // gridCell is one panel of a grid with its heading.
 type gridCell struct {
 	title  string

@@ -15,8 +15,7 @@ type scenePlan struct {
 // scenePanel makes a Panel from a scene builder; c gives the panel's own
 // options, of which the title becomes the panel's heading.
 func scenePanel(c Common, build func(c Common) (*Scene, error)) Panel {
-	title := c.Title
-	return Panel{Title: title, plan: func(f *frame) (panelPlan, error) {
+	return newPanel(c, func(f *frame) (panelPlan, error) {
 		return &scenePlan{build: func(w Common) (*Scene, error) {
 			// The figure decides the medium and the fonts; the panel
 			// keeps its own notes, which the frame cannot place.
@@ -24,7 +23,7 @@ func scenePanel(c Common, build func(c Common) (*Scene, error)) Panel {
 			w.Names = f.c.Names
 			return build(w)
 		}}, nil
-	}}
+	})
 }
 
 func (p *scenePlan) domains() (x, y axisDomain) { return }
