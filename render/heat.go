@@ -193,9 +193,7 @@ func (p *heatPlan) measure(f *frame, cellW float64, e edges) insets {
 	sp := f.spec
 	p.labelW = p.rowLabelWidth(f, cellW)
 	in := insets{left: p.labelW + 1.5*sp.gap}
-	if p.tree != nil {
-		in.right = sp.gap + p.treeWidth(f)
-	}
+	in.right = p.rightW(f)
 	in.bottom = p.footHeight(f)
 	return in
 }

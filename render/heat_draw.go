@@ -85,6 +85,14 @@ func (p *heatPlan) drawCells(f *frame, plot layout.Box, pl *placed) {
 	}
 }
 
+// rightW is the room right of the cells: the tree's.
+func (p *heatPlan) rightW(f *frame) float64 {
+	if p.tree == nil {
+		return 0
+	}
+	return f.spec.gap + p.treeWidth(f)
+}
+
 // edgesOf splits [from, from+length] into n equal parts, edges rounded.
 func edgesOf(from, length float64, n int) []float64 {
 	e := make([]float64, n+1)
@@ -142,6 +150,7 @@ func (p *heatPlan) drawColLabels(f *frame, plot layout.Box, pl *placed) float64 
 	face := f.fonts.Face(false)
 	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
 	top := plot.Y + plot.H + sp.gap
+	prevRight := math.Inf(-1)
 	for x := 0; x < nc; x += p.colStride {
 		label := p.m.Cols[p.colOrder[x]]
 		lines, cut := f.wrap(label, sp.text, false, room, 1)
@@ -154,9 +163,15 @@ func (p *heatPlan) drawColLabels(f *frame, plot layout.Box, pl *placed) float64 
 		}
 		cx := plot.X + (float64(x)+0.5)*cell
 		w := f.measure(lines[0], sp.text, false)
-		// The first and last labels stay over the cells' span.
-		cx = math.Max(cx, plot.X+w/2)
-		cx = math.Min(cx, plot.X+plot.W-w/2)
+		// A label wider than its column may reach under the row labels
+		// or the tree, never beyond them; labels are a stride apart, so
+		// they do not meet.
+		cx = math.Max(cx, plot.X-p.labelW+w/2)
+		cx = math.Min(cx, plot.X+plot.W+p.rightW(f)-w/2)
+		if cx-w/2 < prevRight+sp.gap {
+			continue // never reached while labels are a stride apart; kept as a guard
+		}
+		prevRight = cx + w/2
 		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(cx), Y: round2(top + asc), Text: lines[0], Size: sp.text, Fill: f.th.text, Anchor: Middle, Tooltip: tip})
 		pl.text = append(pl.text, layout.Box{X: cx - w/2, Y: top, W: w, H: asc + desc})
 	}

@@ -1,0 +1,60 @@
+package main
+
+import (
+	"bytes"
+	"strings"
+	"testing"
+)
+
+// The heat command reads the long and the wide form, and bad input gets an
+// error naming the file, line and cells.
+func TestHeatCLI(t *testing.T) {
+	cases := []struct {
+		name    string
+		data    string
+		args    []string
+		code    int
+		want    []string // in the SVG, or in the error
+		notWant []string
+	}{
+		{"long form", "stop,day,load\nQuay,Mon,20\nQuay,Tue,25\nPoint,Mon,60\nPoint,Tue,\n",
+			[]string{"--row", "stop", "--col", "day", "--value", "load"}, exitOK,
+			[]string{`data-row="Quay" data-col="Tue" data-value="25"`, `class="plumb-mark plumb-missing"`, "no data"}, nil},
+		{"wide form", "stop,Mon,Tue\nQuay,20,25\nPoint,60,61\n", nil, exitOK,
+			[]string{`data-row="Point" data-col="Tue" data-value="61"`}, []string{"plumb-missing"}},
+		{"both signs: diverging", "stop,Mon,Tue\nQuay,-20,25\nPoint,60,61\n", nil, exitOK,
+			[]string{"colours part at 0"}, nil},
+		{"given middle", "stop,Mon,Tue\nQuay,20,25\nPoint,60,61\n", []string{"--mid", "40"}, exitOK,
+			[]string{"colours part at 40"}, nil},
+		{"cell twice", "stop,day,load\nQuay,Mon,20\nQuay,Mon,25\n",
+			[]string{"--row", "stop", "--col", "day", "--value", "load"}, 1,
+			[]string{"line 3", "line 2", `"Quay"`, `"Mon"`}, nil},
+		{"long form half given", "stop,day,load\nQuay,Mon,20\n", []string{"--row", "stop"}, 2,
+			[]string{"--row, --col and --value"}, nil},
+		{"missing column", "stop,day,load\nQuay,Mon,20\n", []string{"--row", "stop", "--col", "week", "--value", "load"}, 1,
+			[]string{"week"}, nil},
+		{"tree without clustering", "stop,Mon,Tue\nQuay,20,25\nPoint,60,61\nSands,1,2\n", []string{"--tree"}, 2,
+			[]string{"--order cluster"}, nil},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			var out, errs bytes.Buffer
+			args := append([]string{"heat", "-", "--format", "csv"}, c.args...)
+			code := run(args, strings.NewReader(c.data), &out, &errs)
+			if code != c.code {
+				t.Fatalf("exit %d, want %d: %s", code, c.code, errs.String())
+			}
+			got := out.String() + errs.String()
+			for _, w := range c.want {
+				if !strings.Contains(got, w) {
+					t.Errorf("no %q in output:\n%s", w, errs.String())
+				}
+			}
+			for _, w := range c.notWant {
+				if strings.Contains(got, w) {
+					t.Errorf("%q in output", w)
+				}
+			}
+		})
+	}
+}
