@@ -71,10 +71,18 @@ type rawMerge struct {
 type chain struct {
 	d        int
 	centroid []float64 // live×d, in live order
-	size     []float64 // in live order
-	slot     []int     // the slot at each live index
-	at       []int     // the live index of a slot, -1 once merged away
-	height   []float64 // per slot: the height at which its cluster was made
+	// k, axes and proj are the screening projection: the centroids'
+	// coordinates on k orthonormal axes (the data's leading principal
+	// axes), packed live×k. A projection never lengthens a vector, so the
+	// projected cost is a lower bound on the true one and most candidates
+	// are rejected from a few packed numbers without reading their rows.
+	k      int
+	axes   []float64 // k×d, orthonormal
+	proj   []float64 // live×k, in live order
+	size   []float64 // in live order
+	slot   []int     // the slot at each live index
+	at     []int     // the live index of a slot, -1 once merged away
+	height []float64 // per slot: the height at which its cluster was made
 }
 
 func newChain(data []float64, n, d int) *chain {
@@ -95,7 +103,117 @@ func newChain(data []float64, n, d int) *chain {
 		}
 		c.size[i], c.slot[i], c.at[i] = 1, i, i
 	}
+	if d > 2*screenAxes {
+		c.k = screenAxes
+		c.axes = principalAxes(c.centroid, n, d, c.k)
+		c.proj = make([]float64, n*c.k)
+		for i := range n {
+			c.project(i)
+		}
+	}
 	return c
+}
+
+// screenAxes is the number of principal axes the screening projection
+// keeps (used when the data have more than twice as many columns).
+const screenAxes = 4
+
+// project sets the screening coordinates of the centroid at live index i.
+func (c *chain) project(i int) {
+	ci := c.centroid[i*c.d : i*c.d+c.d]
+	for a := range c.k {
+		ax := c.axes[a*c.d : a*c.d+c.d]
+		var s float64
+		for k, x := range ci {
+			s += x * ax[k]
+		}
+		c.proj[i*c.k+a] = s
+	}
+}
+
+// principalAxes returns k orthonormal axes along which the rows of the n×d
+// matrix vary most: power iteration on the covariance matrix with
+// deflation, then Gram–Schmidt, so that the rows are orthonormal to
+// rounding whatever the iteration reached (the bound needs only that).
+func principalAxes(data []float64, n, d, k int) []float64 {
+	mean := make([]float64, d)
+	for i := range n {
+		for j := range d {
+			mean[j] += data[i*d+j]
+		}
+	}
+	for j := range mean {
+		mean[j] /= float64(n)
+	}
+	cov := make([]float64, d*d)
+	row := make([]float64, d)
+	for i := range n {
+		for j := range d {
+			row[j] = data[i*d+j] - mean[j]
+		}
+		for a := range d {
+			ra := row[a]
+			for b := a; b < d; b++ {
+				cov[a*d+b] += ra * row[b]
+			}
+		}
+	}
+	for a := range d {
+		for b := 0; b < a; b++ {
+			cov[a*d+b] = cov[b*d+a]
+		}
+	}
+	axes := make([]float64, k*d)
+	v, w := make([]float64, d), make([]float64, d)
+	for a := range k {
+		for j := range v {
+			v[j] = 1 / math.Sqrt(float64(d)+float64(j+a)) // fixed start: deterministic
+		}
+		for range 50 {
+			for r := range d {
+				var s float64
+				for col := range d {
+					s += cov[r*d+col] * v[col]
+				}
+				w[r] = s
+			}
+			orthonormalise(w, axes[:a*d], d)
+			v, w = w, v
+		}
+		copy(axes[a*d:], v)
+		orthonormalise(axes[a*d:a*d+d], axes[:a*d], d)
+	}
+	return axes
+}
+
+// orthonormalise removes from v its components along the unit rows of
+// prev (Gram–Schmidt) and scales it to length 1; a vector that vanishes
+// becomes the first unit vector orthogonal to prev it can find.
+func orthonormalise(v, prev []float64, d int) {
+	for try := 0; ; try++ {
+		for p := 0; p+d <= len(prev); p += d {
+			var dot float64
+			for j := range d {
+				dot += v[j] * prev[p+j]
+			}
+			for j := range d {
+				v[j] -= dot * prev[p+j]
+			}
+		}
+		var norm float64
+		for _, x := range v {
+			norm += x * x
+		}
+		if norm > 1e-20 || try >= d {
+			norm = math.Sqrt(norm)
+			for j := range v {
+				v[j] /= norm
+			}
+			return
+		}
+		clear(v)
+		v[try] = 1
+	}
 }
 
 // varianceOrder is the column indices by falling variance (stable).
@@ -168,9 +286,28 @@ func (c *chain) nearest(a, below int) (int, float64) {
 		ib = c.at[below]
 		best, bestD = below, c.cost(ia, ib, math.Inf(1))
 	}
+	na := c.size[ia]
+	var pa []float64
+	if c.k > 0 {
+		pa = c.proj[ia*c.k : ia*c.k+c.k]
+	}
 	for j := range c.slot {
 		if j == ia || j == ib {
 			continue
+		}
+		if c.k > 0 {
+			// Screen on the projection first; the margin keeps rounding
+			// from rejecting a candidate whose cost equals the best.
+			nj := c.size[j]
+			pj := c.proj[j*c.k : j*c.k+c.k : j*c.k+c.k]
+			var s float64
+			for a, x := range pa {
+				t := x - pj[a]
+				s += t * t
+			}
+			if s*na*nj > bestD*(na+nj)*(1+1e-9) {
+				continue
+			}
 		}
 		dist := c.cost(ia, j, bestD)
 		if dist < bestD || (dist == bestD && best != below && c.slot[j] < best) {
@@ -218,12 +355,18 @@ func (c *chain) merge(a, b int, cost float64) rawMerge {
 	}
 	c.size[ia] = na + nb
 	c.height[a] = h
+	if c.k > 0 {
+		c.project(ia)
+	}
 	// Remove b from the live list by moving the last live cluster into
 	// its place.
 	last := len(c.slot) - 1
 	if ib != last {
 		copy(cb, c.centroid[last*c.d:last*c.d+c.d])
 		c.size[ib] = c.size[last]
+		if c.k > 0 {
+			copy(c.proj[ib*c.k:ib*c.k+c.k], c.proj[last*c.k:last*c.k+c.k])
+		}
 		c.slot[ib] = c.slot[last]
 		c.at[c.slot[ib]] = ib
 	}
@@ -231,6 +374,9 @@ func (c *chain) merge(a, b int, cost float64) rawMerge {
 	c.slot = c.slot[:last]
 	c.size = c.size[:last]
 	c.centroid = c.centroid[:last*c.d]
+	if c.k > 0 {
+		c.proj = c.proj[:last*c.k]
+	}
 	return rawMerge{a: a, b: b, height: h}
 }
 

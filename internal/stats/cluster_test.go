@@ -155,6 +155,9 @@ func TestWardAgainstBruteForce(t *testing.T) {
 	for trial := range 200 {
 		n := 2 + rng.IntN(8)
 		d := 1 + rng.IntN(3)
+		if trial%2 == 1 {
+			d = 2*screenAxes + 1 + rng.IntN(8) // wide enough for the screening projection
+		}
 		data := make([]float64, n*d)
 		for i := range data {
 			data[i] = rng.NormFloat64() * 5 // no ties: with ties the hierarchy is not unique
@@ -305,15 +308,17 @@ func TestWardErrors(t *testing.T) {
 // Identical rows: every cost is zero, and the chain must still end (the
 // tie rule keeps it from cycling).
 func TestWardAllEqual(t *testing.T) {
-	data := make([]float64, 50*3)
-	tree, err := Ward(data, 50, 3)
-	if err != nil {
-		t.Fatal(err)
-	}
-	checkTree(t, tree)
-	for _, m := range tree.Merges {
-		if m.Height != 0 {
-			t.Fatalf("height %g for identical rows", m.Height)
+	for _, d := range []int{3, 20} {
+		data := make([]float64, 50*d)
+		tree, err := Ward(data, 50, d)
+		if err != nil {
+			t.Fatal(err)
+		}
+		checkTree(t, tree)
+		for _, m := range tree.Merges {
+			if m.Height != 0 {
+				t.Fatalf("height %g for identical rows", m.Height)
+			}
 		}
 	}
 }
