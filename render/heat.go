@@ -175,11 +175,12 @@ func (p *heatPlan) lh(f *frame) float64 { return lineHeight(f.spec.text) }
 
 // rowLabelWidth is the widest row label, at most 40% of the cell.
 func (p *heatPlan) rowLabelWidth(f *frame, cellW float64) float64 {
-	w := 0.0
+	// At least an ellipsis wide: layout.Wrap gives up below that.
+	w := f.measure(layout.Ellipsis, f.spec.text, false)
 	for _, r := range p.m.Rows {
 		w = math.Max(w, f.measure(r, f.spec.text, false))
 	}
-	return math.Min(w, 0.4*cellW)
+	return math.Ceil(math.Min(w, 0.4*cellW))
 }
 
 func (p *heatPlan) treeWidth(f *frame) float64 {

@@ -141,7 +141,7 @@ func (p *heatPlan) drawColLabels(f *frame, plot layout.Box, pl *placed) float64 
 	nc := len(p.colOrder)
 	cell := plot.W / float64(nc)
 	maxW := 10 * sp.text
-	widest := 0.0
+	widest := f.measure(layout.Ellipsis, sp.text, false)
 	for _, j := range p.colOrder {
 		widest = math.Max(widest, math.Min(maxW, f.measure(p.m.Cols[j], sp.text, false)))
 	}

@@ -5,6 +5,9 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
+	"strconv"
+	"strings"
 
 	"plumb/render"
 )
@@ -161,5 +164,15 @@ func (r *heatRun) loadWide(path string, stdin io.Reader) (render.HeatMatrix, []r
 		}
 	}
 	notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("rows named by %q, %d numeric columns as the heat map's columns (or give the long form with --row, --col and --value)", label, nc)})
+	var left []string
+	for _, h := range t.Header[1:] {
+		if !slices.Contains(cols, h) {
+			left = append(left, strconv.Quote(h))
+		}
+	}
+	if len(left) > 0 {
+		notes = append(notes, render.Note{Code: "heat-columns-left-out", Changed: true,
+			Text: fmt.Sprintf("left out %s, not read as numbers (fix its cells to draw it)", strings.Join(left, ", "))})
+	}
 	return m, notes, "", nil
 }

@@ -24,6 +24,8 @@ func TestHeatCLI(t *testing.T) {
 			[]string{`data-row="Point" data-col="Tue" data-value="61"`}, []string{"plumb-missing"}},
 		{"both signs: diverging", "stop,Mon,Tue\nQuay,-20,25\nPoint,60,61\n", nil, exitOK,
 			[]string{"colours part at 0"}, nil},
+		{"text column left out", "stop,Mon,Tue,remark\nQuay,20,25,calm\nPoint,60,61,windy\n", nil, exitOK,
+			[]string{`left out "remark"`}, []string{`data-col="remark"`}},
 		{"given middle", "stop,Mon,Tue\nQuay,20,25\nPoint,60,61\n", []string{"--mid", "40"}, exitOK,
 			[]string{"colours part at 40"}, nil},
 		{"cell twice", "stop,day,load\nQuay,Mon,20\nQuay,Mon,25\n",
