@@ -103,7 +103,7 @@ func newChain(data []float64, n, d int) *chain {
 		}
 		c.size[i], c.slot[i], c.at[i] = 1, i, i
 	}
-	if d > 2*screenAxes {
+	if d > 2*screenAxes && n > screenRows {
 		c.k = screenAxes
 		c.axes = principalAxes(c.centroid, n, d, c.k)
 		c.proj = make([]float64, n*c.k)
@@ -115,8 +115,12 @@ func newChain(data []float64, n, d int) *chain {
 }
 
 // screenAxes is the number of principal axes the screening projection
-// keeps (used when the data have more than twice as many columns).
-const screenAxes = 4
+// keeps, used when the data have more than twice as many columns and more
+// than screenRows rows (below that the scans are short anyway).
+const (
+	screenAxes = 4
+	screenRows = 64
+)
 
 // project sets the screening coordinates of the centroid at live index i.
 func (c *chain) project(i int) {
@@ -132,9 +136,11 @@ func (c *chain) project(i int) {
 }
 
 // principalAxes returns k orthonormal axes along which the rows of the n×d
-// matrix vary most: power iteration on the covariance matrix with
-// deflation, then Gram–Schmidt, so that the rows are orthonormal to
-// rounding whatever the iteration reached (the bound needs only that).
+// matrix vary most: power iteration with deflation, multiplying by the
+// covariance implicitly (Xᵀ(Xv), O(n·d) per step, no d×d matrix, so that a
+// transposed table with thousands of columns costs no more than the
+// table), then Gram–Schmidt, so that the axes are orthonormal to rounding
+// whatever the iteration reached (the bound needs only that).
 func principalAxes(data []float64, n, d, k int) []float64 {
 	mean := make([]float64, d)
 	for i := range n {
@@ -145,37 +151,24 @@ func principalAxes(data []float64, n, d, k int) []float64 {
 	for j := range mean {
 		mean[j] /= float64(n)
 	}
-	cov := make([]float64, d*d)
-	row := make([]float64, d)
-	for i := range n {
-		for j := range d {
-			row[j] = data[i*d+j] - mean[j]
-		}
-		for a := range d {
-			ra := row[a]
-			for b := a; b < d; b++ {
-				cov[a*d+b] += ra * row[b]
-			}
-		}
-	}
-	for a := range d {
-		for b := 0; b < a; b++ {
-			cov[a*d+b] = cov[b*d+a]
-		}
-	}
 	axes := make([]float64, k*d)
 	v, w := make([]float64, d), make([]float64, d)
 	for a := range k {
 		for j := range v {
 			v[j] = 1 / math.Sqrt(float64(d)+float64(j+a)) // fixed start: deterministic
 		}
-		for range 50 {
-			for r := range d {
+		orthonormalise(v, axes[:a*d], d)
+		for range 30 {
+			clear(w)
+			for i := range n {
+				row := data[i*d : i*d+d]
 				var s float64
-				for col := range d {
-					s += cov[r*d+col] * v[col]
+				for j, x := range row {
+					s += (x - mean[j]) * v[j]
 				}
-				w[r] = s
+				for j, x := range row {
+					w[j] += s * (x - mean[j])
+				}
 			}
 			orthonormalise(w, axes[:a*d], d)
 			v, w = w, v

@@ -156,7 +156,7 @@ func TestWardAgainstBruteForce(t *testing.T) {
 		n := 2 + rng.IntN(8)
 		d := 1 + rng.IntN(3)
 		if trial%2 == 1 {
-			d = 2*screenAxes + 1 + rng.IntN(8) // wide enough for the screening projection
+			d = 2*screenAxes + 1 + rng.IntN(8) // wide rows
 		}
 		data := make([]float64, n*d)
 		for i := range data {
@@ -318,6 +318,30 @@ func TestWardAllEqual(t *testing.T) {
 		for _, m := range tree.Merges {
 			if m.Height != 0 {
 				t.Fatalf("height %g for identical rows", m.Height)
+			}
+		}
+	}
+}
+
+// With the screening projection on (more than screenRows rows, wide rows),
+// the heights still match the textbook agglomeration.
+func TestWardScreenedAgainstNaive(t *testing.T) {
+	rng := rand.New(rand.NewPCG(99, 1))
+	for _, d := range []int{9, 16, 30} {
+		n := screenRows + 40
+		data := make([]float64, n*d)
+		for i := range data {
+			data[i] = rng.NormFloat64() * 3
+		}
+		tree, err := Ward(data, n, d)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := naiveWard(data, n, d)
+		slices.Sort(want)
+		for i, m := range tree.Merges {
+			if math.Abs(m.Height-want[i]) > 1e-9*(1+want[i]) {
+				t.Fatalf("%d×%d: merge %d height %g, want %g", n, d, i, m.Height, want[i])
 			}
 		}
 	}
