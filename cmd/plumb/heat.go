@@ -16,6 +16,10 @@ import (
 // gives one row and column twice.
 var ErrDuplicateCell = errors.New("gives a cell a second value")
 
+// ErrNoRowNames is the cause of a DataError for a wide table whose first
+// column, the row names, cannot be read.
+var ErrNoRowNames = errors.New("the first column has no name")
+
 // heatRun is one run of plumb heat.
 type heatRun struct {
 	shared
@@ -147,6 +151,9 @@ func (r *heatRun) loadWide(path string, stdin io.Reader) (render.HeatMatrix, []r
 		return m, nil, "", tooFewColumns(t, "a heat map needs at least one numeric column after the labels")
 	}
 	m.Rows = t.Strings(label)
+	if m.Rows == nil {
+		return m, nil, "", &DataError{File: path, Line: 1, Err: ErrNoRowNames, Hint: "give the first column a name in the header: it names the rows"}
+	}
 	m.Cols = cols
 	nr, nc := len(m.Rows), len(cols)
 	m.Values = make([]float64, nr*nc)
@@ -156,7 +163,7 @@ func (r *heatRun) loadWide(path string, stdin io.Reader) (render.HeatMatrix, []r
 			return m, nil, "", err
 		}
 		notes = append(notes, renderNotes(n.Notes)...)
-		for i, v := range n.Values {
+		for i, v := range n.Values[:min(nr, len(n.Values))] {
 			m.Values[i*nc+j] = v
 		}
 		if r.opt.Unit == "" {

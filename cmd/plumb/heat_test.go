@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"encoding/xml"
+	"io"
 	"strings"
 	"testing"
 )
@@ -59,4 +61,52 @@ func TestHeatCLI(t *testing.T) {
 			}
 		})
 	}
+}
+
+// FuzzHeat feeds arbitrary tables to plumb heat in both forms and with
+// every order: it exits 0 with well-formed XML, 1 with a message, or 2 for
+// a flag the data cannot serve, and never panics.
+func FuzzHeat(f *testing.F) {
+	for _, seed := range []string{
+		"stop,Mon,Tue\nQuay,20,25\nPoint,60,61\nSands,,3\n",
+		"r,c,v\na,x,1\na,y,2\nb,x,-3\nb,y,\n",
+		"r,c,v\na,x,1\na,x,2\n",
+		"k,v\n\"<b>\",1e308\nq,-1e308\n",
+		"a,b\n,\n",
+	} {
+		for v := range uint8(5) {
+			f.Add(seed, v)
+		}
+	}
+	variants := [][]string{
+		nil,
+		{"--order", "cluster", "--col-order", "cluster", "--tree"},
+		{"--row", "r", "--col", "c", "--value", "v", "--order", "value"},
+		{"--order", "label", "--for", "print", "--mid", "2"},
+		{"--order", "cluster", "--for", "slide", "--col-order", "value"},
+	}
+	f.Fuzz(func(t *testing.T, data string, variant uint8) {
+		args := append([]string{"heat", "-", "--format", "csv", "--quiet"}, variants[int(variant)%len(variants)]...)
+		var out, errs bytes.Buffer
+		code := run(args, strings.NewReader(data), &out, &errs)
+		switch code {
+		case exitOK:
+			dec := xml.NewDecoder(&out)
+			for {
+				_, err := dec.Token()
+				if err == io.EOF {
+					break
+				}
+				if err != nil {
+					t.Fatalf("%v on %q: output is not XML: %v", args, data, err)
+				}
+			}
+		case exitData, 2:
+			if errs.Len() == 0 {
+				t.Fatalf("%v on %q: exit %d without a message", args, data, code)
+			}
+		default:
+			t.Fatalf("%v on %q: exit %d: %s", args, data, code, errs.String())
+		}
+	})
 }
