@@ -2,10 +2,17 @@ package main
 
 import (
 	"bytes"
+	"cmp"
 	"encoding/xml"
 	"io"
+	"math"
+	"regexp"
+	"slices"
+	"strconv"
 	"strings"
 	"testing"
+
+	"plumb/palette"
 )
 
 // The heat command reads the long and the wide form, and bad input gets an
@@ -109,4 +116,92 @@ func FuzzHeat(f *testing.F) {
 			t.Fatalf("%v on %q: exit %d: %s", args, data, code, errs.String())
 		}
 	})
+}
+
+// Issue 11's check through the command line: a shuffled 60 × 12 table in
+// cluster order is at least 3× smoother (sum of Euclidean distances between
+// neighbouring rows, read back from the cells' data-value) than in the
+// input order, and the cells' lightness never rises with their value.
+func TestHeatCLIClusterSmoothAndDarkerForMore(t *testing.T) {
+	data := heatCSV(60, 12)
+	// heatCSV has noise around zero; lift it so that the scale is sequential.
+	var lifted bytes.Buffer
+	for i, line := range strings.Split(strings.TrimSpace(string(data)), "\n") {
+		if i == 0 {
+			lifted.WriteString(line + "\n")
+			continue
+		}
+		f := strings.Split(line, ",")
+		for j := 1; j < len(f); j++ {
+			v, _ := strconv.ParseFloat(f[j], 64)
+			f[j] = strconv.FormatFloat(v+3, 'f', 3, 64)
+		}
+		lifted.WriteString(strings.Join(f, ",") + "\n")
+	}
+	rows := func(args ...string) (order []string, vals [][]float64, cells []heatCell) {
+		var out, errs bytes.Buffer
+		if code := run(append([]string{"heat", "-", "--format", "csv"}, args...), bytes.NewReader(lifted.Bytes()), &out, &errs); code != exitOK {
+			t.Fatal(errs.String())
+		}
+		cells = heatCells(t, out.String())
+		for _, c := range cells {
+			if len(order) == 0 || order[len(order)-1] != c.row {
+				order = append(order, c.row)
+				vals = append(vals, nil)
+			}
+			vals[len(vals)-1] = append(vals[len(vals)-1], c.value)
+		}
+		return order, vals, cells
+	}
+	path := func(vals [][]float64) float64 {
+		var s float64
+		for i := 1; i < len(vals); i++ {
+			var d float64
+			for j := range vals[i] {
+				d += (vals[i][j] - vals[i-1][j]) * (vals[i][j] - vals[i-1][j])
+			}
+			s += math.Sqrt(d)
+		}
+		return s
+	}
+	inOrder, inVals, _ := rows()
+	clOrder, clVals, cells := rows("--order", "cluster")
+	if len(inOrder) != 60 || len(clOrder) != 60 {
+		t.Fatalf("%d and %d rows drawn, want 60", len(inOrder), len(clOrder))
+	}
+	if in, cl := path(inVals), path(clVals); cl*3 > in {
+		t.Errorf("cluster order path %.1f, input %.1f: %.2f× smoother, want ≥ 3×", cl, in, in/cl)
+	}
+	slices.SortFunc(cells, func(a, b heatCell) int { return cmp.Compare(a.value, b.value) })
+	for i := 1; i < len(cells); i++ {
+		if cells[i].lightness > cells[i-1].lightness+1e-9 {
+			t.Fatalf("value %g has L* %.2f, lighter than %g at %.2f", cells[i].value, cells[i].lightness, cells[i-1].value, cells[i-1].lightness)
+		}
+	}
+}
+
+// heatCell is one <rect> cell read back from the SVG.
+type heatCell struct {
+	row       string
+	value     float64
+	lightness float64 // CIELAB L* of its fill
+}
+
+var heatRect = regexp.MustCompile(`<rect [^>]*fill="(#[0-9a-f]{6})" data-row="([^"]*)" data-col="[^"]*" data-value="([^"]+)"`)
+
+func heatCells(t *testing.T, svg string) []heatCell {
+	t.Helper()
+	var out []heatCell
+	for _, m := range heatRect.FindAllStringSubmatch(svg, -1) {
+		c, err := palette.ParseHex(m[1])
+		if err != nil {
+			t.Fatal(err)
+		}
+		v, err := strconv.ParseFloat(m[3], 64)
+		if err != nil {
+			t.Fatal(err)
+		}
+		out = append(out, heatCell{row: m[2], value: v, lightness: palette.SRGBToLab(c).L})
+	}
+	return out
 }
