@@ -224,7 +224,7 @@ func (p *heatPlan) height(f *frame, plotW, room float64) (float64, error) {
 	lh := p.lh(f)
 	cell := math.Min(math.Max(plotW/float64(len(p.colOrder)), lh), 2*lh)
 	maxH := math.Max(plotW*1.25, 20*lh)
-	return math.Round(math.Min(nr*cell, math.Max(maxH, 0))), nil
+	return math.Round(math.Min(nr*cell, maxH)), nil
 }
 
 func (p *heatPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
