@@ -277,3 +277,21 @@ func TestPanelKeysAreChartFlags(t *testing.T) {
 		assert.True(t, refused[k], "%q is refused in panels but is no chart's flag", k)
 	}
 }
+
+// TestFigureExamplesRender renders every example figure file in
+// testdata/figure, as the README promises.
+func TestFigureExamplesRender(t *testing.T) {
+	files, err := filepath.Glob(filepath.Join(figureDir, "*.json"))
+	require.NoError(t, err)
+	require.GreaterOrEqual(t, len(files), 2)
+	out := t.TempDir()
+	code, _, stderr := plumb(t, "", append(append([]string{"figure"}, files...), "-o", out, "--quiet")...)
+	require.Equal(t, exitOK, code, stderr)
+	for _, f := range files {
+		svg := filepath.Join(out, strings.TrimSuffix(filepath.Base(f), ".json")+".svg")
+		data, err := os.ReadFile(svg)
+		require.NoError(t, err)
+		checkFigure(t, data)
+		renderable(t, svg)
+	}
+}
