@@ -73,11 +73,32 @@ func runBy(cmd command, ch chart, path string, stdin io.Reader, stdout, stderr i
 	return emit(cmd.name, sh, stdout, stderr, notes, func(w io.Writer) ([]render.Note, error) {
 		drawn, err := render.Figure(w, opt, panels...)
 		if err != nil {
-			err = fmt.Errorf("--by %s made %d %s: %w", sh.by, len(panels), plural(len(panels), "panel", "panels"), err)
+			err = &byError{by: sh.by, panels: len(panels), err: err}
 		}
 		return drawn, flagWords(err, names)
 	})
 }
+
+// byError is a figure of small multiples that could not be drawn: it says
+// how many panels --by made and, when they do not fit the canvas at the
+// medium's text size, that fewer panels would.
+type byError struct {
+	by     string
+	panels int
+	err    error
+}
+
+func (e *byError) Error() string {
+	msg := fmt.Sprintf("--by %s made %d %s: %v", e.by, e.panels, plural(e.panels, "panel", "panels"), e.err)
+	// The messages of a panel or a grid that lacks room say "fit" or "too
+	// narrow"; the room is what more panels take away.
+	if cause := e.err.Error(); strings.Contains(cause, " fit") || strings.Contains(cause, "too narrow") {
+		msg += "; text is never set below the medium's minimum, so draw fewer panels: filter the rows, or choose a --by column with fewer values"
+	}
+	return msg
+}
+
+func (e *byError) Unwrap() error { return e.err }
 
 // byFigure reads the data once, plans one panel per value of the --by
 // column and returns the figure's options, its panels in --by-order and

@@ -168,6 +168,7 @@ func TestByTooDenseForSlide(t *testing.T) {
 	assert.Equal(t, exitData, code)
 	assert.Contains(t, stderr, "--by group made 20 panels: ")
 	assert.Contains(t, stderr, "--size")
+	assert.Contains(t, stderr, "draw fewer panels: filter the rows, or choose a --by column with fewer values")
 }
 
 func TestMergeNotes(t *testing.T) {
