@@ -154,6 +154,9 @@ func byFigure(pc panelChart, path string, stdin io.Reader, given func(string) bo
 	}
 	opt = render.FigureOptions{Common: *sh.c, ShareX: x, ShareY: y}
 	opt.Notes = notes
+	// The annotations are every panel's layers (given above), not the
+	// figure's as well.
+	opt.Annotations = render.Annotations{}
 	return opt, panels, notes, nil
 }
 
