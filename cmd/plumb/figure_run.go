@@ -146,15 +146,22 @@ func renderFigure(j *figureJob, stdout io.Writer) ([]render.Note, error) {
 }
 
 // figureWords says a figure's drawing error in the file's words: the
-// option names are the figure file's keys.
+// panel by its JSON path (render names it by its title) and the option
+// names as the figure file's keys.
 func figureWords(err error, spec *figureSpec) string {
+	msg := err.Error()
 	var oe *render.OptionError
 	if errors.As(err, &oe) {
 		if name, ok := spec.opt.Names[oe.Option]; ok {
-			return strings.Replace(err.Error(), oe.Error(), (&render.OptionError{Option: name, Value: oe.Value, Err: oe.Err}).Error(), 1)
+			msg = strings.Replace(msg, oe.Error(), (&render.OptionError{Option: name, Value: oe.Value, Err: oe.Err}).Error(), 1)
 		}
 	}
-	return err.Error()
+	for i, p := range spec.panels {
+		if head := fmt.Sprintf("panel %q: ", p.Title); p.Title != "" && strings.HasPrefix(msg, head) {
+			return fmt.Sprintf("panels[%d] (%q): %s", i, p.Title, strings.TrimPrefix(msg, head))
+		}
+	}
+	return msg
 }
 
 // progress returns what renderFigures calls as each figure is done: on a

@@ -2,12 +2,15 @@ package main
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
+
+	"plumb/render"
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
@@ -294,4 +297,12 @@ func TestFigureExamplesRender(t *testing.T) {
 		checkFigure(t, data)
 		renderable(t, svg)
 	}
+}
+
+func TestFigureWordsNamesPanelByPath(t *testing.T) {
+	spec := &figureSpec{panels: []render.Panel{{Title: "Tonnes"}, {Title: "Mean yield"}}}
+	spec.opt.Names = render.OptionNames{"Top": "top"}
+	err := fmt.Errorf("panel %q: %w", "Mean yield", &render.OptionError{Option: "Top", Value: "-2", Err: render.ErrNegative})
+	assert.Equal(t, `panels[1] ("Mean yield"): top -2: `+render.ErrNegative.Error(), figureWords(err, spec))
+	assert.Equal(t, "no room", figureWords(errors.New("no room"), spec))
 }
