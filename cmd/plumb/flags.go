@@ -30,13 +30,17 @@ type shared struct {
 	out, font, format, decimal, maxInput string
 	quiet, explain                       bool
 	data                                 string // the data path, set by runChart; names the figure in notes
+
+	by        string // --by: one panel per value of this column
+	byOrder   string // --by-order: value, label or data
+	ownScales bool   // --own-scales: each panel its own value scale
 }
 
 // newShared binds the shared settings to a chart's Common, with the
 // defaults the flags show.
 func newShared(c *render.Common) shared {
 	c.Medium = render.Screen
-	return shared{c: c, maxInput: "1GB"}
+	return shared{c: c, maxInput: "1GB", byOrder: string(render.ByValue)}
 }
 
 // flags are the shared flags, bound to Common's fields and the CLI's own.
@@ -51,6 +55,10 @@ func (s *shared) flags() []flagDef {
 		{name: "for", sets: []string{"Medium"}, values: media, def: string(render.Screen), usage: "the medium: print, screen or slide (sets size and text sizes)",
 			value: choiceValue[render.Medium]{p: &c.Medium, values: media}},
 		{name: "size", sets: []string{"Width", "Height"}, arg: "WxH", usage: "canvas size WxH in pixels (H may be 0 to let the chart choose)", value: sizeValue{&c.Width, &c.Height}},
+		{name: "by", arg: "COLUMN", usage: "small multiples: one panel per value of COLUMN, titled with the value, all on one value scale", value: stringValue{&s.by}},
+		{name: "by-order", values: orders, def: string(render.ByValue), usage: "order of the --by panels: value (largest total first, or largest mean for values that do not add up), label, or data (as in the file)",
+			value: choiceValue[string]{p: &s.byOrder, values: orders}},
+		{name: "own-scales", usage: "give each --by panel its own value scale (flagged in a note: equal lengths then differ in amount)", value: boolValue{&s.ownScales}},
 		{name: "font", sets: []string{"Fonts"}, arg: "FILE", usage: "measure text with this TTF/OTF FILE and name it in the figure", value: stringValue{&s.font}},
 		{name: "embed-font", sets: []string{"EmbedFont"}, usage: "embed the font in the SVG so every viewer draws what was measured", value: boolValue{&c.EmbedFont}},
 		{name: "format", arg: "FORMAT", usage: "data format when the file name does not say: csv, tsv, json, semicolon or pipe", value: stringValue{&s.format}},
