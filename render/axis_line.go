@@ -40,6 +40,10 @@ func parseAspect(s string) (method string, forced float64, err error) {
 	return "", 0, &OptionError{Option: "Aspect", Value: strconv.Quote(s), Err: errors.New("the ratio is out of range; use width:height such as 16:9")}
 }
 
+// minPanelChars is the narrowest plot of a panel in a grid, in characters
+// of text: room for two or three x tick labels.
+const minPanelChars = 7
+
 // lineAxes are the x and y axes of a panel of lines, on a number or time
 // x axis: line charts and difference charts measure, fit and draw them
 // alike.

@@ -121,7 +121,11 @@ func (p *diffPlan) height(f *frame, plotW, room float64) (float64, error) {
 		f.scene.Note("reduced", false, reduceNote(len(c.x), len(pd.X)))
 	}
 	p.bank = banking{}
-	h, ay, err := f.plotHeight(&p.bank, []scale.Polyline{pd}, c.opt.Time, g.ax.d1-g.ax.d0, plotW, p.axes.y.lo, p.axes.y.hi, c.dk, room, false)
+	// Two panels sharing a fixed canvas may each be as short as a panel of
+	// small multiples; alone, or choosing its height, the difference keeps
+	// the medium's minimum.
+	shared := room > 0 && c.levels != nil
+	h, ay, err := f.plotHeight(&p.bank, []scale.Polyline{pd}, c.opt.Time, g.ax.d1-g.ax.d0, plotW, p.axes.y.lo, p.axes.y.hi, c.dk, room, shared)
 	if err != nil {
 		return 0, err
 	}

@@ -458,10 +458,6 @@ func (c *lineChart) indexed() bool { return c.opt.Index || c.opt.IndexAt != nil 
 // filters them first.
 const MaxPanels = 30
 
-// minPanelChars is the narrowest panel of small multiples, in characters
-// of text: room for two or three x tick labels.
-const minPanelChars = 7
-
 // describe writes the plain-language description: what is plotted, over
 // what range, each series' first and last values and extremes.
 func (c *lineChart) describe(multiples bool) string {

@@ -375,6 +375,9 @@ func (f *frame) rowHeights(cells []gridCell, o gridOptions, cols int, plotW, roo
 		} else {
 			rowH[r] = math.Floor((room - fixed) / float64(rows))
 		}
+		if rowH[r] < minPlotHeight(sp, !single) && single {
+			return nil, fmt.Errorf("the figure's fixed height leaves a %.0f px plot, under the %.0f px a chart needs on this medium to be read: give a taller canvas (%s), or a shorter title and notes, so that it can fit", rowH[r], minPlotHeight(sp, false), f.c.name("Height"))
+		}
 		if rowH[r] < minPlotHeight(sp, !single) {
 			return nil, fmt.Errorf("%d %s of panels do not fit in a %g px high figure with %g px text: each plot would be %.0f px high; give a taller canvas (%s) or fewer panels", rows, plural(rows, "row", "rows"), f.spec.height, sp.text, rowH[r], f.c.name("Height"))
 		}
