@@ -101,10 +101,7 @@ func (f *frame) spreadLabels(labels []label, right, top, bottom float64) ([]layo
 		want[i] = l.at
 	}
 	gap, hang := f.labelGap(labels)
-	if top+hang > bottom-hang {
-		return nil, false
-	}
-	got, ok := layout.Spread(want, gap, top+hang, bottom-hang)
+	got, ok := spreadAlong(want, gap, hang, top, bottom)
 	if !ok {
 		return nil, false
 	}
@@ -112,8 +109,7 @@ func (f *frame) spreadLabels(labels []label, right, top, bottom float64) ([]layo
 	boxes := make([]layout.Box, 0, len(labels))
 	for i, l := range labels {
 		y := got[i]
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(right + sp.gap/2), round2(l.at)}, {round2(x - sp.gap/2), round2(y)}}},
-			Stroke: f.th.muted, StrokeWidth: 0.75, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", l.full}}})
+		f.leader(Point{right + sp.gap/2, l.at}, Point{x - sp.gap/2, y}, l.full)
 		tip := ""
 		if strings.Join(l.lines, " ") != l.full {
 			tip = l.full
@@ -129,6 +125,35 @@ func (f *frame) spreadLabels(labels []label, right, top, bottom float64) ([]layo
 		boxes = append(boxes, layout.Box{X: x, Y: y - (n-1)*lh/2 - asc/2 - desc/2, W: w, H: (n-1)*lh + asc + desc})
 	}
 	return boxes, true
+}
+
+// spreadAlong places labels along one axis (y for labels stacked beside an
+// edge, x for labels set in a row), each as near where it wants to be as
+// its neighbours allow: centres at least gap apart with the least total
+// movement (layout.Spread), every label within [lo, hi] including the
+// hang of its text beyond its centre. It reports false when they cannot
+// fit. Annotation text and group labels are spread the same way: gap is
+// the largest label's extent along the axis plus the air between labels.
+func spreadAlong(want []float64, gap, hang, lo, hi float64) ([]float64, bool) {
+	if lo+hang > hi-hang {
+		return nil, false
+	}
+	got, ok := layout.Spread(want, gap, lo+hang, hi-hang)
+	if !ok {
+		return nil, false
+	}
+	return got, true
+}
+
+// leader draws the thin line from a mark (at from) to its moved label (at
+// to), in the muted text colour so that it never reads as data.
+func (f *frame) leader(from, to Point, series string) {
+	var attrs []Attr
+	if series != "" {
+		attrs = []Attr{{"series", series}}
+	}
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(from.X), round2(from.Y)}, {round2(to.X), round2(to.Y)}}},
+		Stroke: f.th.muted, StrokeWidth: 0.75, Join: JoinRound, Cap: CapRound, Attrs: attrs})
 }
 
 // swatchKind is how a key row shows its mark.
