@@ -1,8 +1,10 @@
 package render
 
 import (
+	"cmp"
 	"fmt"
 	"math"
+	"slices"
 
 	"plumb/layout"
 	"plumb/palette"
@@ -188,7 +190,11 @@ func (p *linePlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	}
 	if p.legend {
 		f.scene.Note("legend", false, "the series names do not fit beside the line ends: named them in a legend below the chart")
-		f.key(keyRows(p.labels), plot.X, axisBottom)
+		// In the order the lines end, top first, so that the key reads
+		// like the plot.
+		rows := slices.Clone(p.labels)
+		slices.SortStableFunc(rows, func(a, b label) int { return cmp.Compare(a.at, b.at) })
+		f.key(keyRows(rows), plot.X, axisBottom)
 	}
 	xs := scale.Linear{D0: p.axes.ax.d0, D1: p.axes.ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	text, marks := f.boxesSince(from)

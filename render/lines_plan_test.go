@@ -154,3 +154,26 @@ func TestLinePanelsTextInsideAndApart(t *testing.T) {
 		})
 	}
 }
+
+// Names that cannot be spread along a short plot go in a key under it,
+// in room the panel measured for it: the key stays on the canvas and
+// clear of every other text.
+func TestLinesLegendWhenNamesDoNotFit(t *testing.T) {
+	var series []Series
+	for i := range 8 {
+		s := Series{Name: fmt.Sprintf("A long route name that wraps onto two lines %d", i)}
+		for j := range 30 {
+			s.X = append(s.X, float64(j))
+			s.Y = append(s.Y, float64(i)*3+math.Sin(float64(j)/4))
+		}
+		series = append(series, s)
+	}
+	for _, c := range []Common{{}, {Medium: Print}, {Width: 900}} {
+		s, err := LinesScene(series, LinesOptions{Common: c, Together: true, Aspect: "4:1", XName: "day"})
+		require.NoError(t, err)
+		assert.Equal(t, 1, classCount(s, "plumb-legend"), "%v", c)
+		assert.Contains(t, fmt.Sprint(s.Notes), "legend below the chart")
+		assert.Zero(t, classCount(s, "plumb-leader"), "no direct labels as well")
+		assertNoOverlap(t, s)
+	}
+}
