@@ -78,19 +78,29 @@ func MatrixScene(vars []Variable, opt MatrixOptions) (*Scene, error) {
 		return nil, err
 	}
 	m := &matrixChart{f: f, vars: vars, n: n, bins: &binShades{}}
-	if err := m.plan(); err != nil {
-		return nil, err
-	}
-	res, err := f.drawGrid(m.cells, gridOptions{cols: k, aspect: 1}, f.plotTop())
+	res, err := m.draw()
 	if err != nil {
 		return nil, err
 	}
-	bottom := res.bottom
+	return f.finish(res.bottom), nil
+}
+
+// draw plans and draws the grid, the key and the description; the result
+// says where the panels went.
+func (m *matrixChart) draw() (gridResult, error) {
+	f := m.f
+	if err := m.plan(); err != nil {
+		return gridResult{}, err
+	}
+	res, err := f.drawGrid(m.cells, gridOptions{cols: len(m.vars), aspect: 1}, f.plotTop())
+	if err != nil {
+		return gridResult{}, err
+	}
 	if m.binned {
-		bottom = m.drawKey(bottom)
+		res.bottom = m.drawKey(res.bottom)
 	}
 	f.scene.Desc, f.scene.Title = m.describe(), firstNonEmpty(f.scene.Title, "Scatterplot matrix of "+strings.Join(m.names(), ", "))
-	return f.finish(bottom), nil
+	return res, nil
 }
 
 func firstNonEmpty(a, b string) string {
@@ -176,7 +186,7 @@ func (m *matrixChart) plan() error {
 		}
 	}
 	if m.binned {
-		f.scene.Note("binned", false, fmt.Sprintf("panels of more than %s points draw hexagonal bins, darker for more points, one shading for all panels", scale.Format{Group: true}.Format(BinAbove)))
+		f.scene.Note("binned", true, fmt.Sprintf("panels of more than %s points draw hexagonal bins, darker for more points, one shading for all panels", scale.Format{Group: true}.Format(BinAbove)))
 	} else if op := opacityFor(m.maxBin); op > 0 {
 		f.scene.Note("translucent", false, fmt.Sprintf("drew the points translucent (opacity %s), so that where they pile up reads darker", strconv.FormatFloat(op, 'f', -1, 64)))
 	}

@@ -95,7 +95,7 @@ type scatterPlan struct {
 	fixed    bool
 	fx, fy   axisDomain
 	marginPx float64
-	legend bool    // groups are named in a legend, not beside their points
+	legend   bool // groups are named in a legend, not beside their points
 
 	// Laid out for a plot of w × h (layout):
 	w, h     float64
@@ -197,7 +197,7 @@ func (p *scatterPlan) setGroups(f *frame, groups []string) error {
 	}
 	if p.binned {
 		if n > 1 {
-			f.scene.Note("groups-binned", false, fmt.Sprintf("%s are binned together: above %s points, groups drawn over each other hide each other; draw one panel per group to compare them",
+			f.scene.Note("groups-binned", true, fmt.Sprintf("%s are binned together: above %s points, groups drawn over each other hide each other; draw one panel per group to compare them",
 				groupedCount(len(p.x), "point", "points"), scale.Format{Group: true}.Format(BinAbove)))
 		}
 		p.group, p.names = nil, nil
@@ -538,7 +538,7 @@ func (p *scatterPlan) drawPoints(f *frame, plot layout.Box) {
 // drawBins draws one hexagon per occupied cell, shaded by its count.
 func (p *scatterPlan) drawBins(f *frame, plot layout.Box, xs, ys scale.Linear) {
 	if p.ownKey {
-		f.scene.Note("binned", false, fmt.Sprintf("%s are too many to draw one by one: drew them as %s hexagonal bins %s px across, darker for more points (plumb bins above %s points)",
+		f.scene.Note("binned", true, fmt.Sprintf("%s are too many to draw one by one: drew them as %s hexagonal bins %s px across, darker for more points (plumb bins above %s points)",
 			groupedCount(len(p.x), "point", "points"), scale.Format{Group: true}.Format(float64(len(p.cells))), strconv.FormatFloat(math.Round(p.hexR*math.Sqrt(3)*10)/10, 'f', -1, 64), scale.Format{Group: true}.Format(BinAbove)))
 	}
 	shades := p.bins.shades()
