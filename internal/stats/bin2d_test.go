@@ -67,3 +67,11 @@ func TestSquareBin(t *testing.T) {
 	bins := SquareBin([]float64{1, 9, 11, -1, 5}, []float64{1, 9, 1, 1, math.Inf(1)}, 10)
 	assert.Equal(t, []Bin{{X: -5, Y: 5, Count: 1}, {X: 5, Y: 5, Count: 2}, {X: 15, Y: 5, Count: 1}}, bins)
 }
+
+// Points far apart take the map path and give the same cells as the
+// dense path would.
+func TestBinFarApart(t *testing.T) {
+	bins := SquareBin([]float64{0, 1e9, 1e9, -1e9}, []float64{0, 1e9, 1e9, 5}, 1)
+	assert.Equal(t, []Bin{{X: 0.5, Y: 0.5, Count: 1}, {X: -1e9 + 0.5, Y: 5.5, Count: 1}, {X: 1e9 + 0.5, Y: 1e9 + 0.5, Count: 2}}, bins)
+	assert.Empty(t, HexBin([]float64{math.NaN()}, []float64{1}, 1))
+}

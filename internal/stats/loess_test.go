@@ -92,3 +92,23 @@ func TestLoessErrors(t *testing.T) {
 	_, err = Loess([]float64{1, 2, 3}, []float64{1, 2}, nil, 0)
 	assert.Error(t, err)
 }
+
+// Values far from zero keep their digits: the curve of a level of 10⁶
+// varying by units is the curve of the units, shifted.
+func TestLoessLargeOffset(t *testing.T) {
+	r := rand.New(rand.NewPCG(6, 6))
+	x, y, big := make([]float64, 300), make([]float64, 300), make([]float64, 300)
+	for i := range x {
+		x[i] = 5e5 + r.Float64()*10
+		y[i] = math.Sin(x[i]) + r.NormFloat64()
+		big[i] = 1e6 + y[i]
+	}
+	at := []float64{5e5 + 1, 5e5 + 5, 5e5 + 9}
+	a, err := Loess(x, y, at, 0)
+	require.NoError(t, err)
+	b, err := Loess(x, big, at, 0)
+	require.NoError(t, err)
+	for i := range at {
+		assert.InDelta(t, a[i]+1e6, b[i], 1e-6)
+	}
+}
