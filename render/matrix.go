@@ -151,7 +151,7 @@ func (m *matrixChart) plan() error {
 		if !ok {
 			return fmt.Errorf("variable %q has no values: every row misses it", v.Name)
 		}
-		if err := checkSpan(fmt.Sprintf("values of %q", v.Name), v.Values); err != nil {
+		if err := axisRoom(fmt.Sprintf("values of %q", v.Name), lo, hi); err != nil {
 			return err
 		}
 		kinds[i] = plainNumberKind(v.Values)

@@ -152,8 +152,8 @@ func newScatterPlan(f *frame, x, y []float64, opt ScatterOptions) (*scatterPlan,
 		what   string
 		lo, hi float64
 	}{{"x values", p.xlo, p.xhi}, {"y values", p.ylo, p.yhi}} {
-		if math.IsInf(s.hi-s.lo, 0) {
-			return nil, fmt.Errorf("the %s run from %g to %g, a range wider than the largest number (%.1e): divide them by a power of ten first", s.what, s.lo, s.hi, math.MaxFloat64)
+		if err := axisRoom(s.what, s.lo, s.hi); err != nil {
+			return nil, err
 		}
 	}
 	p.binned = len(p.x) > BinAbove
@@ -170,6 +170,19 @@ func newScatterPlan(f *frame, x, y []float64, opt ScatterOptions) (*scatterPlan,
 }
 
 func finiteValue(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// maxAxisValue bounds the values a number axis places: nice ticks and the
+// margins beyond the data go up to ten times past them, which must stay
+// below the largest float64 (1.8e308).
+const maxAxisValue = math.MaxFloat64 / 1e4
+
+// axisRoom refuses values an axis cannot hold, with what would fix them.
+func axisRoom(what string, lo, hi float64) error {
+	if math.Max(math.Abs(lo), math.Abs(hi)) > maxAxisValue {
+		return fmt.Errorf("the %s run from %g to %g, too near the largest number (%.1e) to place on an axis: divide them by a power of ten first", what, lo, hi, math.MaxFloat64)
+	}
+	return nil
+}
 
 // finiteRange is the least and greatest of values that are all finite and
 // at least one: plain comparisons, which math.Min's care for NaN would
@@ -261,7 +274,8 @@ func (p *scatterPlan) fitTrend(f *frame) error {
 	case "line":
 		l, err := stats.LeastSquares(p.x, p.y)
 		if err != nil {
-			return &OptionError{Option: "Fit", Value: p.opt.Fit, Err: fmt.Errorf("cannot fit a line: %w", errors.Unwrap(err))}
+			// The data, not the option, is at fault: an error of input.
+			return fmt.Errorf("%s %s: cannot fit a line to these points: %w", f.c.name("Fit"), p.opt.Fit, errors.Unwrap(err))
 		}
 		c.line = l
 		c.x = []float64{lo, hi}
@@ -280,7 +294,8 @@ func (p *scatterPlan) fitTrend(f *frame) error {
 		}
 		ys, err := stats.Loess(p.x, p.y, c.x, stats.LoessSpan)
 		if err != nil {
-			return &OptionError{Option: "Fit", Value: p.opt.Fit, Err: fmt.Errorf("cannot fit a curve: %w; use more points", errors.Unwrap(err))}
+			return fmt.Errorf("%s %s: cannot fit a curve to %s: %w (a LOESS curve needs at least 4, spread along x); use %s line or more points", f.c.name("Fit"), p.opt.Fit,
+				groupedCount(len(p.x), "point", "points"), errors.Unwrap(err), f.c.name("Fit"))
 		}
 		c.y = ys
 		f.scene.Note("fit", false, fmt.Sprintf("LOESS curve (Cleveland 1979): at each x, a line fitted to the nearest 75%% of the %s, weighted by the tricube of their distance",

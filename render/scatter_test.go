@@ -200,8 +200,9 @@ func TestScatterErrors(t *testing.T) {
 	_, err = ScatterScene([]float64{math.NaN()}, []float64{1}, ScatterOptions{})
 	assert.ErrorContains(t, err, "no points")
 	_, err = ScatterScene([]float64{3, 3, 3}, []float64{1, 2, 3}, ScatterOptions{Fit: "line"})
-	require.ErrorAs(t, err, &oe)
-	assert.ErrorContains(t, err, "every x value is the same")
+	assert.ErrorContains(t, err, "Fit line: cannot fit a line to these points: every x value is the same")
+	_, err = ScatterScene([]float64{1, 2, 3}, []float64{1, 2, 3}, ScatterOptions{Fit: "loess"})
+	assert.ErrorContains(t, err, "Fit loess: cannot fit a curve to 3 points")
 	x, y, _ := scatterCloud(2, 40, 1)
 	g := make([]string, 40)
 	for i := range g {

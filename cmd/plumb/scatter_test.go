@@ -147,3 +147,41 @@ func TestMatrixCLI(t *testing.T) {
 	assert.Equal(t, 1, code)
 	assert.Contains(t, stderr, "route")
 }
+
+// FuzzScatterMatrix feeds arbitrary data to scatter and matrix through the
+// CLI: exit 0 with well-formed XML or exit 1 with a message, never a panic.
+func FuzzScatterMatrix(f *testing.F) {
+	for _, seed := range []string{
+		"x,y\n1,5\n2,7\n3,-2\n",
+		"g,x,y\na,1,1\nb,2,2\na,3,1\nb,4,2\nc,1e308,-1e308\n",
+		"x,y,z\n1,1,1\n1,1,1\n1,1,1\n",
+		"x,y\n,\nNA,3\n",
+		"a,b,c\n\"<b>\",1,2\n3,4,5\n",
+	} {
+		for v := range uint8(6) {
+			f.Add(seed, v)
+		}
+	}
+	variants := [][]string{
+		{"scatter"}, {"scatter", "--fit", "line"}, {"scatter", "--fit", "loess", "--for", "print"},
+		{"scatter", "--group", "g", "--for", "slide"}, {"matrix"}, {"matrix", "--for", "print"},
+	}
+	f.Fuzz(func(t *testing.T, data string, variant uint8) {
+		args := append(append([]string(nil), variants[int(variant)%len(variants)]...), "-", "--format", "csv", "--quiet")
+		var out, errs strings.Builder
+		code := run(args, strings.NewReader(data), &out, &errs)
+		switch code {
+		case exitOK:
+			if !notFinite.MatchString(data) {
+				checkNoNaN(t, []byte(out.String()))
+			}
+			parseSVG(t, []byte(out.String()))
+		case exitData:
+			if errs.Len() == 0 {
+				t.Fatalf("%v on %q: exit 1 without a message", args, data)
+			}
+		default:
+			t.Fatalf("%v on %q: exit %d: %s", args, data, code, errs.String())
+		}
+	})
+}

@@ -9,6 +9,10 @@ import (
 // ErrTooFew is the cause of a fit that has too few usable points.
 var ErrTooFew = errors.New("too few points")
 
+// ErrTooLarge is the cause of a fit whose sums of squares overflow: values
+// near the largest float64 have squares beyond it.
+var ErrTooLarge = errors.New("the values are too large to square; divide them by a power of ten")
+
 // ErrNoSpread is the cause of a fit whose x values are all equal: no line
 // through them has a slope.
 var ErrNoSpread = errors.New("every x value is the same")
@@ -56,6 +60,9 @@ func LeastSquares(x, y []float64) (LinearFit, error) {
 			syy += dy * dy
 			sxy += dx * dy
 		}
+	}
+	if !finite(mx) || !finite(my) || !finite(sxx) || !finite(syy) || !finite(sxy) {
+		return LinearFit{N: n}, fmt.Errorf("least squares: %w", ErrTooLarge)
 	}
 	if sxx == 0 {
 		return LinearFit{N: n}, fmt.Errorf("least squares: %w", ErrNoSpread)

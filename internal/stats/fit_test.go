@@ -90,6 +90,8 @@ func TestLeastSquaresErrors(t *testing.T) {
 	assert.True(t, errors.Is(err, ErrNoSpread), "%v", err)
 	_, err = LeastSquares([]float64{1, 2}, []float64{1})
 	assert.Error(t, err)
+	_, err = LeastSquares([]float64{0, 1e308, -1e308}, []float64{1, 2, 3})
+	assert.True(t, errors.Is(err, ErrTooLarge), "%v", err)
 	// A flat y has no correlation to speak of: r is 0, not NaN.
 	f, err := LeastSquares([]float64{1, 2, 3}, []float64{4, 4, 4})
 	require.NoError(t, err)

@@ -57,6 +57,9 @@ func Loess(x, y []float64, at []float64, span float64) ([]float64, error) {
 			h *= span
 		}
 		out[i] = localLine(pts[lo:hi], x0, h)
+		if !finite(out[i]) {
+			return nil, fmt.Errorf("loess: %w", ErrTooLarge)
+		}
 	}
 	return out, nil
 }
