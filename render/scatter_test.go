@@ -403,3 +403,31 @@ func BenchmarkMatrix6x100k(b *testing.B) {
 	b.ReportMetric(float64(size), "bytes")
 	b.ReportMetric(float64(elems), "marks")
 }
+
+// Scatter panels join a figure as plans: with shared scales every panel
+// draws one pixel per unit, whatever its own points.
+func TestScatterPanelsShareScalesInAFigure(t *testing.T) {
+	f, err := newFrame(Common{Width: 900})
+	require.NoError(t, err)
+	var cells []gridCell
+	for i := range 4 {
+		x, y, _ := scatterCloud(uint64(i), 30+i*20, 1)
+		for j := range y {
+			y[j] *= float64(i + 1)
+		}
+		p := ScatterPanel(x, y, ScatterOptions{Common: Common{Title: fmt.Sprint("Route ", i+1)}, YName: "minutes"})
+		plan, err := p.plan(f)
+		require.NoError(t, err)
+		cells = append(cells, gridCell{title: p.Title, plan: plan})
+	}
+	res, err := f.drawGrid(cells, gridOptions{shareX: true, shareY: true}, f.plotTop())
+	require.NoError(t, err)
+	perUnit := func(l scale.Linear) float64 { return (l.R1 - l.R0) / (l.D1 - l.D0) }
+	for i, p := range res.placed {
+		assert.InDelta(t, perUnit(res.placed[0].xs), perUnit(p.xs), 1e-9, "panel %d x", i)
+		assert.InDelta(t, perUnit(res.placed[0].ys), perUnit(p.ys), 1e-9, "panel %d y", i)
+	}
+	s := f.finish(res.bottom)
+	assertNoOverlap(t, s)
+	assert.Equal(t, 4, classCount(s, "plumb-panel"))
+}
