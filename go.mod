@@ -7,6 +7,7 @@ require (
 	github.com/lucasb-eyer/go-colorful v1.4.1
 	github.com/stretchr/testify v1.12.1
 	golang.org/x/image v0.48.0
+	gonum.org/v1/gonum v0.17.0
 )
 
 require (

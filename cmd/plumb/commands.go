@@ -39,6 +39,8 @@ func commandTable() []command {
 		{name: "diff", summary: "the difference of two series, a − b against zero", synopsis: dataSynopsis, chart: func() chart { return newDiff() }},
 		{name: "heat", summary: "a matrix of values as colours, rows and columns ordered (clustered)", synopsis: dataSynopsis, chart: func() chart { return newHeat() }},
 		{name: "figure", summary: "several charts in one grid, from figure files (.json)", synopsis: figureSynopsis, run: runFigure},
+		{name: "scatter", summary: "how two variables relate: points, binned when many", synopsis: dataSynopsis, chart: func() chart { return newScatter() }},
+		{name: "matrix", summary: "how several variables relate, pair by pair", synopsis: dataSynopsis, chart: func() chart { return newMatrix() }},
 		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
 		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)

@@ -57,6 +57,17 @@ var gallery = []figure{
 	{"diff-fuel", "fuel.csv", []string{"diff", "--x", "month", "--a", "vessel_a", "--b", "vessel_b", "--context", "--unit", "t",
 		"--title", "Vessel A burns more fuel than vessel B every month", "--subtitle", "Monthly fuel use in tonnes (above) and the difference A − B (below)"}},
 	{"figure-slide", "", []string{"figure", "slide.json"}},
+	{"scatter-crossings", "sailings.csv", []string{"scatter", "--x", "crossing_km", "--y", "minutes", "--group", "vessel",
+		"--x-name", "crossing (km)", "--y-name", "minutes from quay to quay",
+		"--title", "The fast craft halves the crossing time", "--subtitle", "400 sailings by length of crossing and vessel class"}},
+	{"scatter-wind", "sailings-year.csv", []string{"scatter", "--x", "wind_kn", "--y", "delay_min", "--fit", "loess",
+		"--x-name", "wind (knots)", "--y-name", "delay at departure (minutes)",
+		"--title", "Delays grow steeply in strong wind", "--subtitle", "20,000 sailings of a year, binned; a LOESS curve through all of them"}},
+	{"scatter-fuel-fit", "sailings.csv", []string{"scatter", "--x", "crossing_km", "--y", "fuel_l", "--fit", "line",
+		"--x-name", "crossing (km)", "--y-name", "fuel burnt (litres)",
+		"--title", "Fuel grows with the length of the crossing", "--subtitle", "400 sailings with a least-squares line"}},
+	{"matrix-sailings", "sailings-sample.csv", []string{"matrix", "--cols", "crossing_km,minutes,fuel_l,wind_kn,delay_min",
+		"--title", "How the sailings' measures relate", "--subtitle", "150 sailings; each pair on shared scales, each measure's distribution on the diagonal"}},
 	{"palette-categorical", "", []string{"palette", "categorical", "--n", "8"}},
 	{"palette-sequential", "", []string{"palette", "sequential", "--n", "7", "--hue", "blue"}},
 	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
@@ -117,7 +128,7 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 		}
 		if fig.data != "" {
 			var err error
-			if data, err = demoFS.ReadFile("demodata/" + fig.data); err != nil {
+			if data, err = demoData(fig.data); err != nil {
 				return exitCode(fmt.Errorf("demo: %w", err), stderr)
 			}
 			args = append([]string{fig.args[0], "-", "--format", "csv", "--quiet", "-o", path}, fig.args[1:]...)
