@@ -238,3 +238,13 @@ func (c *rasterCanvas) strokePath(m *Mark, lines [][]devPt, closed bool) vpath {
 	}
 	return p
 }
+
+// A SceneWriter takes whole scenes rather than bytes. WriteSVG hands its
+// scene to a writer that is one instead of serialising it, so that a
+// program which chooses the format when it names the output file (the plumb
+// command writes PNG for a file named .png) can use every chart's writing
+// function, such as Bars, unchanged.
+type SceneWriter interface {
+	io.Writer
+	WriteScene(*Scene) error
+}

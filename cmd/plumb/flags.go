@@ -29,21 +29,23 @@ type shared struct {
 	c                                    *render.Common // the options' Common, which the shared flags set
 	out, font, format, decimal, maxInput string
 	quiet, explain                       bool
-	data                                 string // the data path, set by runChart; names the figure in notes
+	scale                                float64 // PNG pixels per SVG unit
+	data                                 string  // the data path, set by runChart; names the figure in notes
 }
 
 // newShared binds the shared settings to a chart's Common, with the
 // defaults the flags show.
 func newShared(c *render.Common) shared {
 	c.Medium = render.Screen
-	return shared{c: c, maxInput: "1GB"}
+	return shared{c: c, maxInput: "1GB", scale: 1}
 }
 
 // flags are the shared flags, bound to Common's fields and the CLI's own.
 func (s *shared) flags() []flagDef {
 	c := s.c
 	return []flagDef{
-		{name: "o", arg: "FILE", usage: "write the figure to FILE (.svg or no extension; - or none: standard output)", value: stringValue{&s.out}},
+		{name: "o", arg: "FILE", usage: "write the figure to FILE (.svg, .png, or no extension for SVG; - or none: SVG on standard output)", value: stringValue{&s.out}},
+		{name: "scale", arg: "K", def: "1", usage: "pixels per SVG unit in a PNG, such as 2 for high-density screens", value: scaleValue{&s.scale}},
 		{name: "title", sets: []string{"Title"}, arg: "TEXT", usage: "title above the chart", value: stringValue{&c.Title}},
 		{name: "subtitle", sets: []string{"Subtitle"}, arg: "TEXT", usage: "subtitle: what is measured, in what unit", value: stringValue{&c.Subtitle}},
 		{name: "source", sets: []string{"Source"}, arg: "TEXT", usage: "where the numbers come from, printed under the chart", value: stringValue{&c.Source}},
@@ -67,6 +69,9 @@ var media = []string{string(render.Print), string(render.Screen), string(render.
 // finish completes Common from the settings that need work once the flags
 // are parsed: the font file is read and parsed.
 func (s *shared) finish() error {
+	if err := checkScale(s.scale, s.out); err != nil {
+		return err
+	}
 	if s.font == "" {
 		return nil
 	}
@@ -272,7 +277,7 @@ func printNotes(stderr io.Writer, figure string, notes []render.Note, level note
 // notes of loading and drawing, and returns the exit code.
 func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []render.Note, draw func(io.Writer) ([]render.Note, error)) int {
 	before := len(notes)
-	err := writeOutput(sh.out, stdout, func(w io.Writer) error {
+	err := writeFigure(sh.out, sh.scale, stdout, func(w io.Writer) error {
 		drawn, err := draw(w)
 		for _, n := range drawn {
 			// The loading notes come back from the drawing when the chart
