@@ -66,7 +66,12 @@ func (e PNGEncoder) Encode(w io.Writer, s *Scene) error {
 		return err
 	}
 	bw := bufio.NewWriter(w)
-	if err := png.Encode(bw, img); err != nil {
+	// Fastest deflate: on a 1920x1080 line chart it encodes in two thirds
+	// of the default level's time for files 11% larger (281 against 253
+	// kB, measured when this was written), and encoding is most of the
+	// time a PNG takes.
+	enc := png.Encoder{CompressionLevel: png.BestSpeed}
+	if err := enc.Encode(bw, img); err != nil {
 		return err
 	}
 	return bw.Flush()

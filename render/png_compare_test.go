@@ -129,37 +129,42 @@ func compareScenes(t *testing.T) map[string]*Scene {
 	return map[string]*Scene{"bars": bars, "lines": lines}
 }
 
+// TestPNGMatchesReferenceRenderer holds our PNG to rsvg-convert's
+// rendering of our SVG of the same scene, the bar and line charts and the
+// stroke sampler of the golden files, at scale 1 and 2.
 func TestPNGMatchesReferenceRenderer(t *testing.T) {
-	scenes := compareScenes(t)
-	for _, name := range []string{"bars", "lines"} {
-		t.Run(name, func(t *testing.T) {
-			s := scenes[name]
-			var svg bytes.Buffer
-			if err := WriteSVG(&svg, s); err != nil {
-				t.Fatal(err)
-			}
-			ref := rsvgRender(t, svg.Bytes(), 1)
-			ours, err := PNGEncoder{}.Draw(s)
-			if err != nil {
-				t.Fatal(err)
-			}
-			if ours.Bounds() != ref.Bounds() {
-				t.Fatalf("PNG is %v, rsvg-convert draws %v", ours.Bounds(), ref.Bounds())
-			}
-			whole, inked := imageDiff(ours, ref)
-			t.Logf("%s: mean absolute difference %.4f whole, %.4f inked", name, whole, inked)
-			// The bounds issue 13 accepts; two independent SVG
-			// renderers with different fallback fonts differ by 0.023
-			// and 0.107 on a bar chart (issue 13).
-			if whole >= 0.03 || inked >= 0.2 {
-				t.Errorf("%s differs from rsvg-convert by %.4f whole (bound 0.03), %.4f inked (bound 0.2)", name, whole, inked)
-			}
-			// Measured at 0.0003 and 0.0038 at most when the backend was
-			// written: anything near these tighter bounds is a change in
-			// geometry or text, not anti-aliasing.
-			if whole >= 0.003 || inked >= 0.02 {
-				t.Errorf("%s drifted from rsvg-convert: %.4f whole, %.4f inked (measured at most 0.0003, 0.0038)", name, whole, inked)
-			}
-		})
+	scenes := goldenPNGs(t)
+	for _, name := range []string{"bars", "lines", "strokes"} {
+		for _, scale := range []float64{1, 2} {
+			t.Run(name+"@"+strconv.FormatFloat(scale, 'f', -1, 64), func(t *testing.T) {
+				s := scenes[name]
+				var svg bytes.Buffer
+				if err := WriteSVG(&svg, s); err != nil {
+					t.Fatal(err)
+				}
+				ref := rsvgRender(t, svg.Bytes(), scale)
+				ours, err := PNGEncoder{Scale: scale}.Draw(s)
+				if err != nil {
+					t.Fatal(err)
+				}
+				if ours.Bounds() != ref.Bounds() {
+					t.Fatalf("PNG is %v, rsvg-convert draws %v", ours.Bounds(), ref.Bounds())
+				}
+				whole, inked := imageDiff(ours, ref)
+				t.Logf("mean absolute difference %.4f whole, %.4f inked", whole, inked)
+				// The bounds issue 13 accepts; two independent SVG
+				// renderers with different fallback fonts differ by 0.023
+				// and 0.107 on a bar chart (issue 13).
+				if whole >= 0.03 || inked >= 0.2 {
+					t.Errorf("differs from rsvg-convert by %.4f whole (bound 0.03), %.4f inked (bound 0.2)", whole, inked)
+				}
+				// Measured at most 0.0005 whole and 0.0038 inked when the
+				// backend was written: anything near these tighter bounds
+				// is a change in geometry or text, not in anti-aliasing.
+				if whole >= 0.003 || inked >= 0.02 {
+					t.Errorf("drifted from rsvg-convert: %.4f whole, %.4f inked (measured at most 0.0005, 0.0038)", whole, inked)
+				}
+			})
+		}
 	}
 }
