@@ -228,7 +228,8 @@ func (c *rasterCanvas) strokePath(m *Mark, lines [][]devPt, closed bool) vpath {
 	if m.Stroke.IsNone() {
 		return nil
 	}
-	st := strokeStyle{width: markStrokeWidth(m) * c.scale, join: m.Join, cap: m.Cap}
+	st := strokeStyle{width: markStrokeWidth(m) * c.scale, join: m.Join, cap: m.Cap,
+		view: [2]devPt{{}, {float64(c.img.Rect.Dx()), float64(c.img.Rect.Dy())}}}
 	if len(m.Dash) > 0 {
 		st.dash = make([]float64, len(m.Dash))
 		for i, d := range m.Dash {

@@ -103,9 +103,13 @@ func (c *rasterCanvas) cover(p vpath, m *coverMask) {
 		m.buf = make([]byte, w*h)
 	}
 	m.a = image.Alpha{Pix: m.buf[:w*h], Stride: w, Rect: image.Rect(0, 0, w, h)}
+	ox, oy := float64(m.r.Min.X), float64(m.r.Min.Y)
+	lo, hi := devPt{ox - 1, oy - 1}, devPt{float64(m.r.Max.X) + 1, float64(m.r.Max.Y) + 1}
+	if !p.fits(lo.sub(devPt{guard, guard}), hi.add(devPt{guard, guard})) {
+		p = p.clipped(lo, hi)
+	}
 	c.z.Reset(w, h)
 	c.z.DrawOp = draw.Src
-	ox, oy := float64(m.r.Min.X), float64(m.r.Min.Y)
 	f := func(v devPt) (float32, float32) { return float32(v.x - ox), float32(v.y - oy) }
 	open := false
 	for _, op := range p {

@@ -31,6 +31,10 @@ const miterLimit = 4
 // 8-bit coverage by more than about one step.
 const flatness = 1.0 / 60
 
+// maxArcSteps is the most chords an arc is cut into: enough for a circle
+// of radius 10,000 pixels within flatness.
+const maxArcSteps = 4096
+
 // arcSteps is the number of chords that keep an arc of radius r and angle
 // sweep within flatness: the sagitta of a chord spanning angle a is
 // r(1 - cos(a/2)).
@@ -38,9 +42,13 @@ func arcSteps(r, sweep float64) int {
 	if r <= flatness {
 		return 4
 	}
+	// Capped for radii far beyond any canvas, whose arcs are off it.
 	a := 2 * math.Acos(1-flatness/r)
-	n := int(math.Ceil(math.Abs(sweep) / a))
-	return max(n, 4)
+	n := math.Ceil(math.Abs(sweep) / a)
+	if !(n <= maxArcSteps) {
+		return maxArcSteps
+	}
+	return max(int(n), 4)
 }
 
 // circlePolygon returns a circle as a polygon fine enough that its edge is
@@ -106,6 +114,16 @@ type strokeStyle struct {
 	join  LineJoin
 	cap   LineCap
 	dash  []float64 // already scaled to device pixels; nil is solid
+	view  [2]devPt  // the canvas, whose outside dashes are not cut
+}
+
+// period is the length of one repeat of a dash pattern.
+func period(pattern []float64) float64 {
+	var sum float64
+	for _, v := range pattern {
+		sum += v
+	}
+	return sum
 }
 
 // strokePolygons returns the outline of a stroked polyline as positive
@@ -118,12 +136,16 @@ func strokePolygons(line []devPt, closed bool, st strokeStyle) [][]devPt {
 	if len(line) == 0 || !(st.width > 0) {
 		return nil
 	}
-	if pattern := dashPattern(st.dash); pattern != nil {
+	if pattern := dashPattern(st.dash); pattern != nil && period(pattern) >= minDashPeriod {
 		if closed && len(line) > 1 {
 			line = append(line[:len(line):len(line)], line[0])
 		}
+		// Dashes are cut only where they can show: on the canvas, widened
+		// by the stroke and its mitres.
+		m := st.width*miterLimit + 2
+		lo, hi := st.view[0].sub(devPt{m, m}), st.view[1].add(devPt{m, m})
 		var out [][]devPt
-		for _, piece := range dashPieces(line, pattern) {
+		for _, piece := range dashPieces(line, pattern, lo, hi) {
 			out = append(out, strokeOutline(piece, false, st)...)
 		}
 		return out
@@ -166,33 +188,84 @@ func dashPattern(d []float64) []float64 {
 	return d
 }
 
-// dashes cuts a polyline into its dashes: the pieces under the even
-// entries of the pattern, measured along the line from its start.
-func dashPieces(line []devPt, pattern []float64) [][]devPt {
+// minDashPeriod is the shortest dash pattern, in device pixels, drawn as
+// dashes; a finer one is below what pixels can show and is drawn solid,
+// which also bounds the number of pieces a line is cut into.
+const minDashPeriod = 1.0 / 16
+
+// dashPieces cuts a polyline into its dashes: the pieces under the even
+// entries of the pattern, measured along the line from its start. Only the
+// parts of segments inside the box (lo, hi) are cut, the pattern's phase
+// carried across the rest, so that a line reaching far off the canvas
+// costs no more than its visible part.
+func dashPieces(line []devPt, pattern []float64, lo, hi devPt) [][]devPt {
+	period := period(pattern)
 	var out [][]devPt
 	k, left, on := 0, pattern[0], true // pattern entry, length left in it, drawing
 	var cur []devPt
-	if on {
-		cur = []devPt{line[0]}
+	// skip moves the phase on by dist without drawing; whole periods are
+	// taken at once.
+	skip := func(dist float64) {
+		if on && len(cur) > 0 {
+			out = append(out, cur)
+		}
+		cur = nil
+		// Strictly beyond, as when drawing: a dash of length zero that
+		// starts exactly here is still to come.
+		if dist > left {
+			dist -= left
+			k, on = (k+1)%len(pattern), !on
+			left = pattern[k]
+			dist = math.Mod(dist, period)
+			for dist > left {
+				dist -= left
+				k, on = (k+1)%len(pattern), !on
+				left = pattern[k]
+			}
+		}
+		left -= dist
 	}
+	started := false
 	for i := 1; i < len(line); i++ {
 		a, b := line[i-1], line[i]
 		seg := b.sub(a).length()
-		pos := 0.0
-		for seg-pos > left {
-			pos += left
-			p := a.add(b.sub(a).mul(pos / seg))
+		t0, t1, ok := visibleSpan(a, b, lo, hi)
+		if !ok || !(seg > 0) {
+			skip(seg)
+			started = false
+			continue
+		}
+		if t0 > 0 || !started {
+			skip(t0 * seg)
 			if on {
-				out = append(out, append(cur, p))
+				cur = []devPt{a.add(b.sub(a).mul(t0))}
+			}
+		}
+		started = true
+		end := t1 * seg
+		pos := t0 * seg
+		for end-pos > left {
+			pos += left
+			q := a.add(b.sub(a).mul(pos / seg))
+			if on {
+				out = append(out, append(cur, q))
 				cur = nil
 			} else {
-				cur = []devPt{p}
+				cur = []devPt{q}
 			}
 			on = !on
 			k = (k + 1) % len(pattern)
 			left = pattern[k]
 		}
-		left -= seg - pos
+		left -= end - pos
+		if t1 < 1 {
+			if on {
+				cur = append(cur, a.add(b.sub(a).mul(t1)))
+			}
+			skip((1 - t1) * seg)
+			started = false
+			continue
+		}
 		if on {
 			cur = append(cur, b)
 		}

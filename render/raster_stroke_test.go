@@ -165,7 +165,7 @@ func TestDashPieces(t *testing.T) {
 		{"dots", []devPt{{0, 0}, {9, 0}}, []float64{0, 4}, [][]devPt{{{0, 0}, {0, 0}}, {{4, 0}, {4, 0}}, {{8, 0}, {8, 0}}}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			got := dashPieces(tc.line, tc.pattern)
+			got := dashPieces(tc.line, tc.pattern, devPt{-100, -100}, devPt{100, 100})
 			if len(got) != len(tc.want) {
 				t.Fatalf("%d dashes %v, want %v", len(got), got, tc.want)
 			}
@@ -181,6 +181,31 @@ func TestDashPieces(t *testing.T) {
 			}
 		})
 	}
+	// The pattern's phase runs on through the part of a line that is
+	// off the box: the dashes inside are the same as when the whole line
+	// is cut.
+	long := []devPt{{-1003.5, 2}, {-500, 2}, {10, 2}, {10, 40}}
+	all := dashPieces(long, []float64{2, 3}, devPt{-2000, -2000}, devPt{2000, 2000})
+	seen := dashPieces(long, []float64{2, 3}, devPt{-5, -5}, devPt{20, 20})
+	var inside [][]devPt
+	for _, d := range all {
+		if d[0].x >= -5 && d[len(d)-1].y <= 20 {
+			inside = append(inside, d)
+		}
+	}
+	if len(inside) < 5 {
+		t.Fatalf("only %d dashes of the whole line in the box", len(inside))
+	}
+	for _, d := range inside {
+		found := false
+		for _, g := range seen {
+			found = found || (g[0].near(d[0], 1e-6) && g[len(g)-1].near(d[len(d)-1], 1e-6))
+		}
+		if !found {
+			t.Errorf("dash %v of the whole line is not among those cut in the box: %v", d, seen)
+		}
+	}
+
 	for _, bad := range [][]float64{nil, {0, 0}, {-1, 2}, {math.NaN()}, {math.Inf(1), 1}} {
 		if dashPattern(bad) != nil {
 			t.Errorf("dash array %v should draw a solid line, as SVG does", bad)
