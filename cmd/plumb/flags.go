@@ -27,17 +27,17 @@ func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(form
 // reading, notes) and, through c, the chart's render.Common.
 type shared struct {
 	c                                    *render.Common // the options' Common, which the shared flags set
+	scale                                float64        // --scale: PNG pixels per SVG unit; 0 means 1
 	out, font, format, decimal, maxInput string
 	quiet, explain                       bool
-	scale                                float64 // PNG pixels per SVG unit
-	data                                 string  // the data path, set by runChart; names the figure in notes
+	data                                 string // the data path, set by runChart; names the figure in notes
 }
 
 // newShared binds the shared settings to a chart's Common, with the
 // defaults the flags show.
 func newShared(c *render.Common) shared {
 	c.Medium = render.Screen
-	return shared{c: c, maxInput: "1GB", scale: 1}
+	return shared{c: c, maxInput: "1GB"}
 }
 
 // flags are the shared flags, bound to Common's fields and the CLI's own.
@@ -45,7 +45,6 @@ func (s *shared) flags() []flagDef {
 	c := s.c
 	return []flagDef{
 		{name: "o", arg: "FILE", usage: "write the figure to FILE (.svg, .png, or no extension for SVG; - or none: SVG on standard output)", value: stringValue{&s.out}},
-		{name: "scale", arg: "K", def: "1", usage: "pixels per SVG unit in a PNG, such as 2 for high-density screens", value: scaleValue{&s.scale}},
 		{name: "title", sets: []string{"Title"}, arg: "TEXT", usage: "title above the chart", value: stringValue{&c.Title}},
 		{name: "subtitle", sets: []string{"Subtitle"}, arg: "TEXT", usage: "subtitle: what is measured, in what unit", value: stringValue{&c.Subtitle}},
 		{name: "source", sets: []string{"Source"}, arg: "TEXT", usage: "where the numbers come from, printed under the chart", value: stringValue{&c.Source}},
@@ -55,6 +54,7 @@ func (s *shared) flags() []flagDef {
 		{name: "size", sets: []string{"Width", "Height"}, arg: "WxH", usage: "canvas size WxH in pixels (H may be 0 to let the chart choose)", value: sizeValue{&c.Width, &c.Height}},
 		{name: "font", sets: []string{"Fonts"}, arg: "FILE", usage: "measure text with this TTF/OTF FILE and name it in the figure", value: stringValue{&s.font}},
 		{name: "embed-font", sets: []string{"EmbedFont"}, usage: "embed the font in the SVG so every viewer draws what was measured", value: boolValue{&c.EmbedFont}},
+		{name: "scale", arg: "K", def: "1", usage: "pixels per SVG unit in a PNG, such as 2 for high-density screens", value: scaleValue{&s.scale}},
 		{name: "format", arg: "FORMAT", usage: "data format when the file name does not say: csv, tsv, json, semicolon or pipe", value: stringValue{&s.format}},
 		{name: "decimal", arg: "MARK", usage: "decimal mark of the numbers: . or , (default: decided per column from the cells)", value: stringValue{&s.decimal}},
 		{name: "max-input", arg: "SIZE", def: "1GB", usage: "read at most SIZE of data, such as 1GB or 200MB", value: stringValue{&s.maxInput}},

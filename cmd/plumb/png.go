@@ -54,12 +54,13 @@ func writeFigure(path string, scale float64, stdout io.Writer, write func(io.Wri
 // reaches render.MaxPNGPixels, which is checked once the canvas is known.
 const maxScale = 16
 
-// scaleValue is --scale K: a plain positive decimal up to maxScale.
+// scaleValue is --scale K: a plain positive decimal up to maxScale. Unset
+// (0) is 1.
 type scaleValue struct{ p *float64 }
 
 func (v scaleValue) String() string {
-	if v.p == nil {
-		return ""
+	if v.p == nil || *v.p == 0 {
+		return "1"
 	}
 	return strconv.FormatFloat(*v.p, 'g', -1, 64)
 }
@@ -77,7 +78,7 @@ func (v scaleValue) Set(s string) error {
 // checkScale refuses --scale for a figure that is not a PNG, which has no
 // pixels to scale.
 func checkScale(scale float64, out string) error {
-	if scale != 1 && !isPNG(out) {
+	if scale != 0 && scale != 1 && !isPNG(out) {
 		return usagef("--scale %s: only a PNG has pixels to scale; name the figure .png with -o", strconv.FormatFloat(scale, 'g', -1, 64))
 	}
 	return nil
