@@ -159,9 +159,10 @@ func TestPNGMatchesReferenceRenderer(t *testing.T) {
 					t.Errorf("differs from rsvg-convert by %.4f whole (bound 0.03), %.4f inked (bound 0.2)", whole, inked)
 				}
 				// Measured at most 0.0005 whole and 0.0038 inked when the
-				// backend was written: anything near these tighter bounds
-				// is a change in geometry or text, not in anti-aliasing.
-				if whole >= 0.003 || inked >= 0.02 {
+				// backend was written: beyond these tighter bounds is a
+				// change in geometry or text, not in anti-aliasing (which
+				// differs a little between versions of rsvg-convert).
+				if whole >= 0.005 || inked >= 0.03 {
 					t.Errorf("drifted from rsvg-convert: %.4f whole, %.4f inked (measured at most 0.0005, 0.0038)", whole, inked)
 				}
 			})

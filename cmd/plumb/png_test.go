@@ -4,9 +4,11 @@ import (
 	"bytes"
 	"errors"
 	"image"
+	"image/color"
 	"image/png"
 	"math"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"regexp"
 	"strconv"
@@ -14,6 +16,8 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+	"golang.org/x/image/font/gofont/gobold"
+	"golang.org/x/image/font/gofont/goregular"
 )
 
 // pngSize reads the size of a PNG file.
@@ -108,4 +112,101 @@ func TestScaleFlag(t *testing.T) {
 			assert.NoFileExists(t, filepath.Join(dir, "a.png"))
 		})
 	}
+}
+
+// goFontsConfig writes the Go fonts and a fontconfig file naming only them
+// into a temporary folder and returns the file, so that rsvg-convert sets
+// text in the faces plumb measured with.
+func goFontsConfig(t *testing.T) string {
+	t.Helper()
+	dir := t.TempDir()
+	fonts := filepath.Join(dir, "fonts")
+	require.NoError(t, os.Mkdir(fonts, 0o755))
+	require.NoError(t, os.WriteFile(filepath.Join(fonts, "Go-Regular.ttf"), goregular.TTF, 0o644))
+	require.NoError(t, os.WriteFile(filepath.Join(fonts, "Go-Bold.ttf"), gobold.TTF, 0o644))
+	conf := filepath.Join(dir, "fonts.conf")
+	require.NoError(t, os.WriteFile(conf, []byte(`<?xml version="1.0"?>
+<!DOCTYPE fontconfig SYSTEM "fonts.dtd">
+<fontconfig><dir>`+fonts+`</dir><cachedir>`+filepath.Join(dir, "cache")+`</cachedir></fontconfig>
+`), 0o644))
+	return conf
+}
+
+// TestGalleryPNGMatchesSVG draws every figure of the demo gallery as PNG
+// and as SVG, renders the SVG with rsvg-convert given the Go fonts, and
+// bounds the mean absolute difference of the red, green, blue and alpha
+// channels (0 to 1) over the whole image and over the pixels inked in
+// either: under 0.03 and 0.2 as issue 13 asks, and in fact under a third
+// and a quarter of that, 0.01 and 0.05 (measured at most 0.0022 and 0.0125,
+// on the dense daily line chart, when the backend was written; other
+// versions of rsvg-convert anti-alias a little differently).
+func TestGalleryPNGMatchesSVG(t *testing.T) {
+	bin, err := exec.LookPath("rsvg-convert")
+	if err != nil {
+		t.Skip("rsvg-convert not installed (Debian: librsvg2-bin); .ci/run installs it")
+	}
+	if testing.Short() {
+		t.Skip("renders the gallery twice")
+	}
+	conf := goFontsConfig(t)
+	dir := t.TempDir()
+	for _, fig := range gallery {
+		t.Run(fig.name, func(t *testing.T) {
+			args := append([]string(nil), fig.args...)
+			if fig.data != "" {
+				args = append(args[:1:1], append([]string{filepath.Join("demodata", fig.data)}, args[1:]...)...)
+			}
+			svgPath, pngPath, refPath := filepath.Join(dir, fig.name+".svg"), filepath.Join(dir, fig.name+".png"), filepath.Join(dir, fig.name+"-ref.png")
+			for _, out := range []string{svgPath, pngPath} {
+				code, _, stderr := plumb(t, "", append(args, "--quiet", "-o", out)...)
+				require.Equal(t, exitOK, code, stderr)
+			}
+			cmd := exec.Command(bin, "-o", refPath, svgPath)
+			cmd.Env = append(os.Environ(), "FONTCONFIG_FILE="+conf)
+			msg, err := cmd.CombinedOutput()
+			require.NoError(t, err, string(msg))
+			ours, ref := readPNG(t, pngPath), readPNG(t, refPath)
+			require.Equal(t, ref.Bounds(), ours.Bounds(), "the PNG has the size rsvg-convert gives the SVG")
+			whole, inked := channelDiff(ours, ref)
+			t.Logf("mean absolute difference %.4f whole, %.4f inked", whole, inked)
+			assert.Less(t, whole, 0.01, "whole image; issue 13 bound 0.03")
+			assert.Less(t, inked, 0.05, "inked pixels; issue 13 bound 0.2")
+		})
+	}
+}
+
+func readPNG(t *testing.T, path string) image.Image {
+	t.Helper()
+	f, err := os.Open(path)
+	require.NoError(t, err)
+	defer f.Close()
+	img, err := png.Decode(f)
+	require.NoError(t, err)
+	return img
+}
+
+// channelDiff is the mean absolute difference of the straight-alpha red,
+// green, blue and alpha channels of two images of one size, on a 0 to 1
+// scale, over all pixels and over those with any alpha in either image.
+func channelDiff(a, b image.Image) (whole, inked float64) {
+	r := a.Bounds()
+	var sum, inkSum float64
+	var n, inkN int
+	for y := r.Min.Y; y < r.Max.Y; y++ {
+		for x := r.Min.X; x < r.Max.X; x++ {
+			p := color.NRGBAModel.Convert(a.At(x, y)).(color.NRGBA)
+			q := color.NRGBAModel.Convert(b.At(x, y)).(color.NRGBA)
+			d := 0.0
+			for _, c := range [][2]uint8{{p.R, q.R}, {p.G, q.G}, {p.B, q.B}, {p.A, q.A}} {
+				d += math.Abs(float64(c[0])-float64(c[1])) / 255
+			}
+			sum += d
+			n += 4
+			if p.A > 0 || q.A > 0 {
+				inkSum += d
+				inkN += 4
+			}
+		}
+	}
+	return sum / float64(max(n, 1)), inkSum / float64(max(inkN, 1))
 }
