@@ -95,6 +95,10 @@ func writeOutput(path string, stdout io.Writer, write func(io.Writer) error) err
 	if path == "" || path == "-" {
 		return write(stdout)
 	}
+	if isPNG(path) {
+		inner := write
+		write = func(w io.Writer) error { return inner(&pngGuard{w: w}) }
+	}
 	s, _ := stdout.(*session)
 	st, err := os.Stat(path)
 	switch {

@@ -39,6 +39,29 @@ func (p *pngOutput) WriteScene(s *render.Scene) error {
 	return render.PNGEncoder{Scale: p.scale}.Encode(p.w, s)
 }
 
+// pngSignature starts every PNG file (PNG specification, section 5.2).
+const pngSignature = "\x89PNG\r\n\x1a\n"
+
+// pngGuard passes on bytes only when they start as a PNG file does:
+// writeOutput puts it in front of every file named .png, so that a figure
+// written past writeFigure (as SVG bytes) fails with a message instead of
+// leaving a file whose name lies about its format.
+type pngGuard struct {
+	w    io.Writer
+	seen int // bytes of the signature checked so far
+}
+
+func (g *pngGuard) Write(p []byte) (int, error) {
+	if g.seen < len(pngSignature) {
+		n := min(len(p), len(pngSignature)-g.seen)
+		if string(p[:n]) != pngSignature[g.seen:g.seen+n] {
+			return 0, errNotScene
+		}
+		g.seen += n
+	}
+	return g.w.Write(p)
+}
+
 // writeFigure is writeOutput for a figure: the format follows the path's
 // extension, PNG at scale pixels per SVG unit for .png, SVG otherwise.
 func writeFigure(path string, scale float64, stdout io.Writer, write func(io.Writer) error) error {

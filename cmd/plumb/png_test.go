@@ -6,12 +6,14 @@ import (
 	"image"
 	"image/color"
 	"image/png"
+	"io"
 	"math"
 	"os"
 	"os/exec"
 	"path/filepath"
 	"regexp"
 	"strconv"
+	"strings"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -209,4 +211,39 @@ func channelDiff(a, b image.Image) (whole, inked float64) {
 		}
 	}
 	return sum / float64(max(n, 1)), inkSum / float64(max(inkN, 1))
+}
+
+func TestPNGGuard(t *testing.T) {
+	dir := t.TempDir()
+	for _, tc := range []struct {
+		name   string
+		chunks []string
+		ok     bool
+	}{
+		{"a PNG in one write", []string{pngSignature + "IHDR"}, true},
+		{"a PNG in pieces", []string{"\x89P", "NG\r", "\n\x1a\n", "IHDR"}, true},
+		{"SVG", []string{"<svg>"}, false},
+		{"SVG after a PNG's first bytes", []string{"\x89PNG", "<svg>"}, false},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			path := filepath.Join(dir, "fig.png")
+			err := writeOutput(path, nil, func(w io.Writer) error {
+				for _, c := range tc.chunks {
+					if _, err := w.Write([]byte(c)); err != nil {
+						return err
+					}
+				}
+				return nil
+			})
+			if tc.ok {
+				require.NoError(t, err)
+				b, _ := os.ReadFile(path)
+				assert.Equal(t, strings.Join(tc.chunks, ""), string(b))
+				require.NoError(t, os.Remove(path))
+				return
+			}
+			require.ErrorIs(t, err, errNotScene)
+			assert.NoFileExists(t, path, "no file that is not a PNG under a .png name")
+		})
+	}
 }
