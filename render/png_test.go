@@ -214,6 +214,9 @@ func TestPNGBarLengths(t *testing.T) {
 	}
 }
 
+// TestPNGImageMarkIsCrisp: an Image mark's pixels are squares of one
+// colour each (nearest neighbour). rsvg-convert smooths them, which SVG's
+// image-rendering: pixelated asks it not to, so it is no reference here.
 func TestPNGImageMarkIsCrisp(t *testing.T) {
 	src := image.NewNRGBA(image.Rect(0, 0, 2, 2))
 	cols := []color.NRGBA{{200, 30, 30, 255}, {30, 200, 30, 255}, {30, 30, 200, 255}, {10, 10, 10, 128}}
@@ -232,6 +235,19 @@ func TestPNGImageMarkIsCrisp(t *testing.T) {
 			if got := img.NRGBAAt(x, y); got != want {
 				t.Fatalf("pixel (%d, %d) is %v, want %v", x, y, got, want)
 			}
+		}
+	}
+
+	// A box edge that falls inside a pixel covers it in part, as any
+	// other edge does: half a pixel is half the alpha.
+	one := image.NewNRGBA(image.Rect(0, 0, 1, 1))
+	one.SetNRGBA(0, 0, color.NRGBA{200, 30, 30, 255})
+	s = &Scene{Width: 12, Height: 4}
+	s.Add(Mark{Kind: Image, X: 0.5, Y: 0, W: 10, H: 4, Img: one})
+	img = decode(t, s, 1)
+	for x, a := range map[int]uint8{0: 128, 1: 255, 10: 128, 11: 0} {
+		if got := img.NRGBAAt(x, 2).A; got != a {
+			t.Errorf("pixel %d of an image from x 0.5 to 10.5 has alpha %d, want %d", x, got, a)
 		}
 	}
 }

@@ -215,30 +215,38 @@ func byte8(v float64) byte {
 }
 
 // drawImage draws src into the device box (x0, y0)-(x1, y1) by nearest
-// neighbour: every rasterCanvas pixel whose centre lies in the box takes the
-// source pixel under that centre, so each source pixel stays a crisp
-// square.
+// neighbour: every canvas pixel takes the source pixel under its centre
+// (clamped into the box), so each source pixel stays a crisp square, and
+// pixels the box's edges cross are covered in proportion, as the edges of
+// any other shape are.
 func (c *rasterCanvas) drawImage(src *image.NRGBA, x0, y0, x1, y1, opacity float64) {
 	sw, sh := src.Rect.Dx(), src.Rect.Dy()
 	if sw == 0 || sh == 0 || !(x1 > x0) || !(y1 > y0) {
 		return
 	}
 	box := c.bounds(vpath{{kind: 'M', p: [3]devPt{{x0, y0}}}, {kind: 'L', p: [3]devPt{{x1, y1}}}})
+	// overlap is the length of [a, a+1] inside [lo, hi].
+	overlap := func(a, lo, hi float64) float64 { return math.Max(0, math.Min(a+1, hi)-math.Max(a, lo)) }
+	sample := func(p, lo, hi float64, n int) int {
+		return max(0, min(int((p-lo)/(hi-lo)*float64(n)), n-1))
+	}
 	for y := box.Min.Y; y < box.Max.Y; y++ {
-		cy := float64(y) + 0.5
-		if cy < y0 || cy >= y1 {
+		fy := float64(y)
+		covY := overlap(fy, y0, y1)
+		if covY == 0 {
 			continue
 		}
-		sy := min(int((cy-y0)/(y1-y0)*float64(sh)), sh-1)
+		sy := sample(math.Max(y0, math.Min(fy+0.5, y1)), y0, y1, sh)
 		row := c.img.Pix[y*c.img.Stride:]
 		for x := box.Min.X; x < box.Max.X; x++ {
-			cx := float64(x) + 0.5
-			if cx < x0 || cx >= x1 {
+			fx := float64(x)
+			cov := covY * overlap(fx, x0, x1)
+			if cov == 0 {
 				continue
 			}
-			sx := min(int((cx-x0)/(x1-x0)*float64(sw)), sw-1)
+			sx := sample(math.Max(x0, math.Min(fx+0.5, x1)), x0, x1, sw)
 			p := src.Pix[sy*src.Stride+4*sx:]
-			a := float64(p[3]) / 255 * opacity
+			a := float64(p[3]) / 255 * opacity * cov
 			if a == 0 {
 				continue
 			}
