@@ -18,7 +18,8 @@ const MaxPNGPixels = 64 << 20
 // WritePNG draws the scene as a PNG image at one pixel per SVG user unit.
 // It draws what WriteSVG describes, from the same scene: the same shapes,
 // the same colours, and text set in the faces layout measured with. The
-// background is transparent, as an SVG's is. Tooltips are not drawn.
+// background is transparent, as an SVG's is. Tooltips are not drawn, and
+// text is filled only (no builder strokes text).
 // Output is a pure function of the scene.
 func WritePNG(w io.Writer, s *Scene) error { return PNGEncoder{}.Encode(w, s) }
 
@@ -156,7 +157,13 @@ func (c *rasterCanvas) drawMark(m *Mark, off devPt, f *Font, fs *rasterFonts) er
 		}
 		ctr := dev(m.X, m.Y)
 		fill = fill.addPolygon(circlePolygon(ctr, r*k))
-		if !m.Stroke.IsNone() {
+		if len(m.Dash) > 0 {
+			// A dashed circle is stroked as the closed polygon, which
+			// starts at (cx + r, cy) and turns the way SVG's circle
+			// does (SVG 1.1, section 9.3), so dashes fall where they
+			// fall there.
+			line = c.strokePath(m, [][]devPt{circlePolygon(ctr, r*k)}, true)
+		} else if !m.Stroke.IsNone() {
 			// An annulus: the outer circle one way round, the inner the
 			// other, so that non-zero winding leaves the middle empty.
 			h := markStrokeWidth(m) * k / 2

@@ -372,3 +372,27 @@ func TestPNGJoinAndCapPixels(t *testing.T) {
 		})
 	}
 }
+
+// TestPNGDashedCircle: a circle's dashes start at its rightmost point and
+// run the way SVG's circle path does (SVG 1.1, section 9.3): towards the
+// bottom, as y grows down. With dash and gap a quarter of the
+// circumference each, the bottom-right and top-left eighths are drawn
+// and the other two are not.
+func TestPNGDashedCircle(t *testing.T) {
+	r := 10.0
+	q := math.Pi * r / 2
+	s := &Scene{Width: 30, Height: 30}
+	ink := Colour{0, 0, 0, 255}
+	s.Add(Mark{Kind: Circle, X: 15, Y: 15, R: r, Stroke: ink, StrokeWidth: 2, Dash: []float64{round2(q), round2(q)}})
+	img := decode(t, s, 1)
+	for _, tc := range []struct {
+		deg   float64
+		inked bool
+	}{{45, true}, {135, false}, {225, true}, {315, false}} {
+		a := tc.deg * math.Pi / 180
+		x, y := int(15+r*math.Cos(a)), int(15+r*math.Sin(a))
+		if alpha := img.NRGBAAt(x, y).A; (alpha > 128) != tc.inked {
+			t.Errorf("%g degrees, pixel (%d, %d): alpha %d, want inked %v", tc.deg, x, y, alpha, tc.inked)
+		}
+	}
+}
