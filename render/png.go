@@ -122,7 +122,7 @@ func rasterFinite(v float64) float64 {
 	return v
 }
 
-// opacity is a mark's group opacity: 0 (unset) and values of 1 or more mean
+// markOpacity is a mark's group opacity: 0 (unset) and values of 1 or more mean
 // opaque, as the SVG writer leaves them unwritten.
 func markOpacity(m *Mark) float64 {
 	if m.Opacity > 0 && m.Opacity < 1 {
