@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bytes"
 	"errors"
 	"fmt"
 	"io"
@@ -131,14 +130,8 @@ func renderFigure(j *figureJob, stdout io.Writer) ([]render.Note, error) {
 	if err != nil {
 		return spec.notes, &figureError{fmt.Sprintf("%s: %s", j.in, figureWords(err, spec))}
 	}
-	var buf bytes.Buffer
-	if err := render.WriteSVG(&buf, s); err != nil {
-		return spec.notes, err
-	}
-	err = writeOutput(j.out, stdout, func(w io.Writer) error {
-		_, err := w.Write(buf.Bytes())
-		return err
-	})
+	// writeFigure draws PNG for a .png name and SVG otherwise.
+	err = writeFigure(j.out, 1, stdout, func(w io.Writer) error { return render.WriteSVG(w, s) })
 	if err != nil {
 		return s.Notes, fmt.Errorf("figure %s: %w", j.in, err)
 	}
