@@ -37,6 +37,7 @@ func commandTable() []command {
 		{name: "dots", summary: "compare values far from zero", synopsis: dataSynopsis, chart: func() chart { return newRows(true) }},
 		{name: "lines", summary: "change over time or order, banked to 45°", synopsis: dataSynopsis, chart: func() chart { return newLines() }},
 		{name: "diff", summary: "the difference of two series, a − b against zero", synopsis: dataSynopsis, chart: func() chart { return newDiff() }},
+		{name: "map", summary: "values by place, on an equal-area projection", synopsis: dataSynopsis, chart: func() chart { return newMap() }},
 		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
 		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)

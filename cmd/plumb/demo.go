@@ -7,6 +7,7 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
+	"strings"
 )
 
 // figure is one entry of the demo gallery: a command line run on one of the
@@ -51,6 +52,9 @@ var gallery = []figure{
 		"--subtitle", "Share of seats taken; the range of all days in grey behind each panel"}},
 	{"diff-fuel", "fuel.csv", []string{"diff", "--x", "month", "--a", "vessel_a", "--b", "vessel_b", "--context", "--unit", "t",
 		"--title", "Vessel A burns more fuel than vessel B every month", "--subtitle", "Monthly fuel use in tonnes (above) and the difference A − B (below)"}},
+	{"map-boardings", "districts.csv", []string{"map", "--region", "district", "--value", "boardings", "--per", "residents", "--shapes", "{islands.geojson}", "--labels",
+		"--value-name", "ferry boardings", "--title", "Outer districts travel less by ferry", "--subtitle", "Ferry boardings per resident, 2025, by district of the Lantern Isles",
+		"--source", "Lantern Isles Ferry Company (fictional), demo data; invented islands"}},
 	{"palette-categorical", "", []string{"palette", "categorical", "--n", "8"}},
 	{"palette-sequential", "", []string{"palette", "sequential", "--n", "7", "--hue", "blue"}},
 	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
@@ -76,8 +80,29 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 	if err := os.MkdirAll(*out, 0o755); err != nil {
 		return exitCode(fmt.Errorf("demo: %w", err), stderr)
 	}
+	// Files a figure names besides its data ({islands.geojson}) are
+	// written to a temporary folder for the run.
+	side, err := os.MkdirTemp("", "plumb-demo-")
+	if err != nil {
+		return exitCode(fmt.Errorf("demo: %w", err), stderr)
+	}
+	defer os.RemoveAll(side)
 	for _, fig := range gallery {
 		path := filepath.Join(*out, fig.name+".svg")
+		fig.args = slices.Clone(fig.args)
+		for i, a := range fig.args {
+			if name, ok := strings.CutPrefix(a, "{"); ok && strings.HasSuffix(name, "}") {
+				name = strings.TrimSuffix(name, "}")
+				b, err := demoFS.ReadFile("demodata/" + name)
+				if err != nil {
+					return exitCode(fmt.Errorf("demo: %w", err), stderr)
+				}
+				fig.args[i] = filepath.Join(side, name)
+				if err := os.WriteFile(fig.args[i], b, 0o644); err != nil {
+					return exitCode(fmt.Errorf("demo: %w", err), stderr)
+				}
+			}
+		}
 		args := append(slices.Clone(fig.args), "-o", path)
 		var data []byte
 		if fig.data != "" {

@@ -7,5 +7,5 @@ import "embed"
 // demoFS holds the demo data sets of the invented ferry operator, written by
 // testdata/ferrygen from fixed seeds, so that `plumb demo` needs no files.
 //
-//go:embed demodata/*.csv
+//go:embed demodata/*.csv demodata/*.geojson
 var demoFS embed.FS
