@@ -275,9 +275,9 @@ func reversed(p []Point) []Point {
 
 // poleOfInaccessibility finds the point inside a polygon (outer ring and
 // holes) farthest from its edges, to within precision px, by the
-// poleCell-subdivision search of Garcia-Castellanos & Lombardo (2007) in the
+// cell-subdivision search of Garcia-Castellanos & Lombardo (2007) in the
 // best-first form of Agafonkin (2016): square cells queued by the largest
-// distance any point of them could have, split until no poleCell can beat the
+// distance any point of them could have, split until no cell can beat the
 // best centre by more than precision. It returns the point and its
 // distance to the nearest edge.
 func poleOfInaccessibility(poly [][]Point, precision float64) (Point, float64) {
