@@ -1,0 +1,429 @@
+package render
+
+import (
+	"fmt"
+	"math"
+	"slices"
+	"strconv"
+	"time"
+
+	"plumb/layout"
+	"plumb/scale"
+)
+
+// This file draws the annotation layers (annotate.go): each widens the
+// panel's domains to hold what it marks, then draws from what the panel
+// reports in placed, so that it works on any chart that fills placed.
+
+// widenFor widens d to hold vs with a note saying what needed it, so
+// that an annotation outside the data is drawn rather than lost.
+func (f *frame) widenFor(d *axisDomain, what, axisName string, vs ...float64) {
+	lo, hi := d.lo, d.hi
+	widened := false
+	for _, v := range vs {
+		widened = d.include(v) || widened
+	}
+	if !widened {
+		return
+	}
+	text := func(vs ...float64) []string {
+		if d.kind == domainTime {
+			out := make([]string, len(vs))
+			for i, v := range vs {
+				out[i] = xValueText(v, xKind{time: true})
+			}
+			return out
+		}
+		return formatAll(scale.ValueFormat(vs, ""), vs)
+	}
+	t := text(append([]float64{lo, hi}, vs...)...)
+	f.scene.Note("annotation-domain", false, fmt.Sprintf("widened the %s beyond the data (%s to %s) to show %s", axisName, t[0], t[1], what))
+}
+
+// noScale reports a scale the panel did not set: the chart has no such
+// axis (or has not become a panel plan that reports it).
+func noScale(l scale.Linear) bool { return l.R0 == l.R1 }
+
+// onPlot checks that pos, where an annotation falls, lies on the plot:
+// the grid widened the domain, but a plan may keep a fixed one.
+func onPlot(pos, lo, hi float64, option, value string) error {
+	if lo > hi {
+		lo, hi = hi, lo
+	}
+	if pos < lo-0.5 || pos > hi+0.5 {
+		return annotationError(option, value, "it falls outside this chart's fixed axis; widen the axis to include it")
+	}
+	return nil
+}
+
+// refLayer draws a reference line.
+type refLayer struct{ r Ref }
+
+func (l refLayer) widen(f *frame, x, y *axisDomain) {
+	// The mean and median lie within the data: only a given value can
+	// fall outside it.
+	if d := valueAxis(x, y); d != nil && l.r.Stat == "" {
+		f.widenFor(d, fmt.Sprintf("the reference line at %s", numValue(l.r.Value)), "value axis", l.r.Value)
+	}
+}
+
+// value is where the line goes: the given value or the statistic of the
+// panel's values.
+func (l refLayer) value(p *placed) (float64, error) {
+	if l.r.Stat == "" {
+		return l.r.Value, nil
+	}
+	vs := make([]float64, 0, len(p.values))
+	for _, v := range p.values {
+		if finite(v) {
+			vs = append(vs, v)
+		}
+	}
+	if len(vs) == 0 {
+		return 0, annotationError("Refs", strconv.Quote(l.r.Stat), "this chart gives no values to take the %s of; give the line's value instead", l.r.Stat)
+	}
+	if l.r.Stat == StatMean {
+		// Neumaier's compensated sum keeps the mean exact enough to sit
+		// on its pixel for any count of values (Neumaier 1974).
+		sum, c := 0.0, 0.0
+		for _, v := range vs {
+			t := sum + v
+			if math.Abs(sum) >= math.Abs(v) {
+				c += (sum - t) + v
+			} else {
+				c += (v - t) + sum
+			}
+			sum = t
+		}
+		m := (sum + c) / float64(len(vs))
+		if !finite(m) {
+			// Values near the float64 limit overflow the sum.
+			m = 0
+			for _, v := range vs {
+				m += v / float64(len(vs))
+			}
+		}
+		return m, nil
+	}
+	slices.Sort(vs)
+	n := len(vs)
+	if n%2 == 1 {
+		return vs[n/2], nil
+	}
+	return vs[n/2-1]/2 + vs[n/2]/2, nil
+}
+
+func (l refLayer) draw(f *frame, p *placed, plot layout.Box) error {
+	v, err := l.value(p)
+	if err != nil {
+		return err
+	}
+	ax := p.ys
+	if p.horizontal {
+		ax = p.xs
+	}
+	name := numValue(v)
+	if l.r.Stat != "" {
+		name = strconv.Quote(l.r.Stat)
+	}
+	if noScale(ax) {
+		return annotationError("Refs", name, "this chart has no value axis to draw a reference line on")
+	}
+	pos := round2(ax.Map(v))
+	if err := onPlot(pos, ax.R0, ax.R1, "Refs", name); err != nil {
+		return err
+	}
+	line := []Point{{plot.X, pos}, {plot.X + plot.W, pos}}
+	box := layout.Box{X: plot.X, Y: pos - 1, W: plot.W, H: 2}
+	if p.horizontal {
+		line = []Point{{pos, plot.Y}, {pos, plot.Y + plot.H}}
+		box = layout.Box{X: pos - 1, Y: plot.Y, W: 2, H: plot.H}
+	}
+	attrs := []Attr{{"value", dataNumber(v)}}
+	if l.r.Stat != "" {
+		attrs = append(attrs, Attr{"stat", l.r.Stat})
+	}
+	text := l.r.Text
+	if text == "" {
+		text = p.formatValue(v)
+		if l.r.Stat != "" {
+			text = l.r.Stat + " " + text
+		}
+	}
+	mark := Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{line}, Stroke: f.th.text, StrokeWidth: 1, Dash: []float64{4, 3}, Cap: CapButt, Attrs: attrs}
+	i := len(f.scene.Marks)
+	f.scene.Add(mark)
+	p.marks = append(p.marks, box)
+	gap := f.spec.gap / 2
+	spots := func(w, h float64) []spot {
+		var s []spot
+		if p.horizontal {
+			// Beside the line, from the top down, right side first.
+			for y := plot.Y; y+h <= plot.Y+plot.H; y += h {
+				s = append(s, spot{layout.Box{X: pos + gap, Y: y, W: w, H: h}, Start}, spot{layout.Box{X: pos - gap - w, Y: y, W: w, H: h}, End})
+			}
+			return s
+		}
+		// Above the line, then below it, from the right end leftwards:
+		// the right end is where a reader arrives along the line.
+		for k := range 5 {
+			x := plot.X + plot.W - w - float64(k)*(plot.W-w)/4
+			s = append(s, spot{layout.Box{X: x, Y: pos - gap - h, W: w, H: h}, End}, spot{layout.Box{X: x, Y: pos + gap, W: w, H: h}, End})
+		}
+		return s
+	}
+	if _, _, ok := f.placeText(p, plot, noteText{text: text, class: "plumb-ref-label", fill: f.th.muted, attrs: attrs}, Point{plot.X + plot.W, pos}, spots); !ok {
+		f.hidden(i, text, "reference line")
+	}
+	return nil
+}
+
+// formatValue writes a value as the panel's value axis labels it.
+func (p *placed) formatValue(v float64) string {
+	if p.valueText != nil {
+		return p.valueText(v)
+	}
+	ax := p.ys
+	if p.horizontal {
+		ax = p.xs
+	}
+	return scale.ValueFormat([]float64{v, ax.D0, ax.D1}, "").Format(v)
+}
+
+// hidden keeps the text of an annotation that found no free place as the
+// tooltip of its mark (the scene's mark i), with a note.
+func (f *frame) hidden(i int, text, what string) {
+	f.scene.Marks[i].Tooltip = text
+	f.scene.Note("annotation-hidden", false, fmt.Sprintf("the label of the %s %q found no free place in the plot: it is the line's tooltip; give a larger canvas or a shorter label", what, text))
+}
+
+// xOf is where an event or a period end falls on the panel's x axis: X on
+// a number axis, the instant on a time axis.
+func xOf(x float64, at time.Time, isTime bool, option string) (float64, error) {
+	if isTime {
+		if at.IsZero() {
+			return 0, annotationError(option, numValue(x), "the x axis holds dates: give a date")
+		}
+		return seconds(at), nil
+	}
+	if !at.IsZero() && x == 0 {
+		return 0, annotationError(option, dateText(at), "the x axis holds numbers, not dates: give a number")
+	}
+	return x, nil
+}
+
+// xAxisOf is the x domain's kind as an event or period reads it.
+func xAxisOf(x *axisDomain) (isTime, ok bool) {
+	switch x.kind {
+	case domainTime:
+		return true, true
+	case domainNumber:
+		return false, true
+	}
+	return false, false
+}
+
+// eventLayer marks one x.
+type eventLayer struct{ e Event }
+
+func (l eventLayer) widen(f *frame, x, y *axisDomain) {
+	if isTime, ok := xAxisOf(x); ok {
+		if v, err := xOf(l.e.X, l.e.At, isTime, "Events"); err == nil {
+			f.widenFor(x, "the event at "+xValueText(v, xKind{time: isTime}), "x axis", v)
+		}
+	}
+}
+
+func (l eventLayer) draw(f *frame, p *placed, plot layout.Box) error {
+	if noScale(p.xs) || p.horizontal || len(p.cats) > 0 {
+		return annotationError("Events", l.name(), "events mark an x on a number or time axis; this chart has none (give a reference line instead)")
+	}
+	x, err := xOf(l.e.X, l.e.At, p.xTime, "Events")
+	if err != nil {
+		return err
+	}
+	pos := round2(p.xs.Map(x))
+	if err := onPlot(pos, p.xs.R0, p.xs.R1, "Events", l.name()); err != nil {
+		return err
+	}
+	attrs := []Attr{{"x", xData(x, p.xTime)}}
+	i := len(f.scene.Marks)
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-event", Lines: [][]Point{{{pos, plot.Y}, {pos, plot.Y + plot.H}}}, Stroke: f.th.muted, StrokeWidth: 1, Attrs: attrs})
+	p.marks = append(p.marks, layout.Box{X: pos - 1, Y: plot.Y, W: 2, H: plot.H})
+	text := l.e.Text
+	if text == "" {
+		text = xValueText(x, xKind{time: p.xTime})
+	}
+	gap := f.spec.gap / 2
+	spots := func(w, h float64) []spot {
+		// At the top beside the line, right side first, moving down.
+		var s []spot
+		for y := plot.Y; y+h <= plot.Y+plot.H; y += h {
+			s = append(s, spot{layout.Box{X: pos + gap, Y: y, W: w, H: h}, Start}, spot{layout.Box{X: pos - gap - w, Y: y, W: w, H: h}, End})
+		}
+		return s
+	}
+	if _, _, ok := f.placeText(p, plot, noteText{text: text, class: "plumb-event-label", fill: f.th.muted, attrs: attrs}, Point{pos, plot.Y}, spots); !ok {
+		f.hidden(i, text, "event")
+	}
+	return nil
+}
+
+func (l eventLayer) name() string {
+	if !l.e.At.IsZero() {
+		return dateText(l.e.At)
+	}
+	return numValue(l.e.X)
+}
+
+// periodLayer shades a span of x.
+type periodLayer struct{ p Period }
+
+func (l periodLayer) widen(f *frame, x, y *axisDomain) {
+	isTime, ok := xAxisOf(x)
+	if !ok {
+		return
+	}
+	from, err1 := xOf(l.p.From, l.p.FromAt, isTime, "Periods")
+	to, err2 := xOf(l.p.To, l.p.ToAt, isTime, "Periods")
+	if err1 == nil && err2 == nil {
+		f.widenFor(x, "the period "+l.describe(isTime), "x axis", from, to)
+	}
+}
+
+func (l periodLayer) describe(isTime bool) string {
+	if isTime && !l.p.FromAt.IsZero() {
+		return xValueText(seconds(l.p.FromAt), xKind{time: true}) + " to " + xValueText(seconds(l.p.ToAt), xKind{time: true})
+	}
+	return numValue(l.p.From) + " to " + numValue(l.p.To)
+}
+
+// The shade of a period: the context colour at 30% over white, lighter
+// than the grid, so that grid lines and data stay visible across it.
+const periodOpacity = 0.3
+
+func (l periodLayer) draw(f *frame, p *placed, plot layout.Box) error {
+	name := l.describe(p.xTime)
+	if noScale(p.xs) || p.horizontal || len(p.cats) > 0 {
+		return annotationError("Periods", name, "periods shade a span of a number or time axis; this chart has none")
+	}
+	from, err := xOf(l.p.From, l.p.FromAt, p.xTime, "Periods")
+	if err != nil {
+		return err
+	}
+	to, err := xOf(l.p.To, l.p.ToAt, p.xTime, "Periods")
+	if err != nil {
+		return err
+	}
+	x0, x1 := round2(p.xs.Map(from)), round2(p.xs.Map(to))
+	if err := firstError(onPlot(x0, p.xs.R0, p.xs.R1, "Periods", name), onPlot(x1, p.xs.R0, p.xs.R1, "Periods", name)); err != nil {
+		return err
+	}
+	if x0 > x1 {
+		x0, x1 = x1, x0
+	}
+	attrs := []Attr{{"from", xData(from, p.xTime)}, {"to", xData(to, p.xTime)}}
+	// Behind everything the panel drew, grid lines included: the shade
+	// is context, and the data must read across it.
+	shade := Mark{Kind: Rect, Class: "plumb-period", X: x0, Y: plot.Y, W: round2(x1 - x0), H: plot.H, Fill: f.th.context, Opacity: periodOpacity, Attrs: attrs}
+	at := min(max(p.start, 0), len(f.scene.Marks))
+	f.scene.Marks = slices.Insert(f.scene.Marks, at, shade)
+	if l.p.Text == "" {
+		return nil
+	}
+	gap := f.spec.gap / 2
+	spots := func(w, h float64) []spot {
+		// Inside the span at its top, then outside it, moving down.
+		var s []spot
+		for y := plot.Y; y+h <= plot.Y+plot.H; y += h {
+			s = append(s, spot{layout.Box{X: x0 + gap, Y: y, W: w, H: h}, Start}, spot{layout.Box{X: x1 - gap - w, Y: y, W: w, H: h}, End},
+				spot{layout.Box{X: x1 + gap, Y: y, W: w, H: h}, Start}, spot{layout.Box{X: x0 - gap - w, Y: y, W: w, H: h}, End})
+		}
+		return s
+	}
+	if _, _, ok := f.placeText(p, plot, noteText{text: l.p.Text, class: "plumb-period-label", fill: f.th.muted, attrs: attrs}, Point{x0, plot.Y}, spots); !ok {
+		f.hidden(at, l.p.Text, "period")
+	}
+	return nil
+}
+
+// calloutLayer sets a note beside one category's mark.
+type calloutLayer struct{ c Callout }
+
+func (l calloutLayer) widen(*frame, *axisDomain, *axisDomain) {}
+
+func (l calloutLayer) draw(f *frame, p *placed, plot layout.Box) error {
+	if len(p.cats) == 0 {
+		return annotationError("Callouts", strconv.Quote(l.c.Label), "callouts go beside a category's bar or dot; this chart has no categories")
+	}
+	var c catPlace
+	labels := make([]string, len(p.cats))
+	found := false
+	for i, k := range p.cats {
+		labels[i] = k.label
+		if k.label == l.c.Label && !found {
+			c, found = k, true
+		}
+	}
+	if !found {
+		return annotationError("Callouts", strconv.Quote(l.c.Label), "no category has this label%s", closest(l.c.Label, labels))
+	}
+	gap := f.spec.gap
+	// The point the note belongs to: the mark's end, in the middle of
+	// its row or column.
+	end := Point{c.end, c.centre}
+	if !p.horizontal {
+		end = Point{c.centre, c.end}
+	}
+	// Its own place: beside the mark's end, or past the mark's own value
+	// label there; anywhere else is found by the placer's scan, nearest
+	// first, and joined to the mark by a leader.
+	own := func(b layout.Box) bool { return distance(end, nearestIn(b, end)) <= 2*gap }
+	spots := func(w, h float64) []spot {
+		var s []spot
+		if p.horizontal {
+			y := c.centre - h/2
+			s = append(s, spot{layout.Box{X: c.end + gap, Y: y, W: w, H: h}, Start})
+			for _, b := range p.text {
+				if own(b) && b.X >= c.end {
+					s = append(s, spot{layout.Box{X: b.X + b.W + gap, Y: y, W: w, H: h}, Start})
+				}
+			}
+			return s
+		}
+		x := c.centre - w/2
+		s = append(s, spot{layout.Box{X: x, Y: c.end - gap - h, W: w, H: h}, Middle})
+		for _, b := range p.text {
+			if own(b) && b.Y+b.H <= c.end+gap {
+				s = append(s, spot{layout.Box{X: x, Y: b.Y - gap - h, W: w, H: h}, Middle})
+			}
+		}
+		return s
+	}
+	attrs := []Attr{{"label", l.c.Label}}
+	sp, moved, ok := f.placeText(p, plot, noteText{text: l.c.Text, class: "plumb-callout", fill: f.th.text, attrs: attrs, leader: true}, end, spots)
+	if !ok {
+		return annotationError("Callouts", strconv.Quote(l.c.Label), "the note %q finds no free place beside its mark; shorten it or give a larger canvas", l.c.Text)
+	}
+	if moved {
+		f.leader(end, sp.box, attrs)
+	}
+	return nil
+}
+
+// leader joins a moved note to the point it belongs to: from the point to
+// the nearest point of the note's box, a gap short of it.
+func (f *frame) leader(from Point, b layout.Box, attrs []Attr) {
+	to := nearestIn(b, from)
+	dx, dy := to.X-from.X, to.Y-from.Y
+	d := math.Hypot(dx, dy)
+	if d < 2*f.spec.gap {
+		return // close enough to read as one without a line
+	}
+	// Stop short of both ends so that the line touches neither the
+	// mark nor the text.
+	s := f.spec.gap / 2 / d
+	a := Point{round2(from.X + dx*s), round2(from.Y + dy*s)}
+	z := Point{round2(to.X - dx*s), round2(to.Y - dy*s)}
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{a, z}}, Stroke: f.th.muted, StrokeWidth: 1, Cap: CapRound, Attrs: attrs})
+}
