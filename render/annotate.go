@@ -6,8 +6,6 @@ import (
 	"math"
 	"strconv"
 	"time"
-
-	"plumb/layout"
 )
 
 // Annotations are drawn over a chart's data as layers of its panel: lines
@@ -67,42 +65,44 @@ const (
 	StatMedian = "median"
 )
 
-// layers are the panel layers that draw the annotations: reference
-// lines, events and periods first, whose lines are fixed and whose labels
-// can move along them, then callouts, which must find a place beside
-// their mark clear of those lines and labels. A bad annotation becomes a
-// layer that fails the drawing with its OptionError.
+// layers are the panel layers that draw the annotations: one layer for
+// the whole set, because their labels are placed together. Every line and
+// shade is drawn first, so that no label is placed where a later line
+// would cross it; then the labels are placed, callouts first (they belong
+// beside one mark), then events (at the top of their line), reference
+// lines and periods, whose labels can move along them.
 func (a Annotations) layers() []panelLayer {
-	var ls []panelLayer
+	if len(a.Refs)+len(a.Events)+len(a.Periods)+len(a.Callouts) == 0 {
+		return nil
+	}
+	return []panelLayer{annotationLayer{a}}
+}
+
+// check returns the first bad annotation's OptionError, in the order of
+// the fields.
+func (a Annotations) check() error {
 	for _, r := range a.Refs {
-		ls = append(ls, checked(r.check(), refLayer{r}))
+		if err := r.check(); err != nil {
+			return err
+		}
 	}
 	for _, e := range a.Events {
-		ls = append(ls, checked(e.check(), eventLayer{e}))
+		if err := e.check(); err != nil {
+			return err
+		}
 	}
 	for _, p := range a.Periods {
-		ls = append(ls, checked(p.check(), periodLayer{p}))
+		if err := p.check(); err != nil {
+			return err
+		}
 	}
 	for _, c := range a.Callouts {
-		ls = append(ls, checked(c.check(), calloutLayer{c}))
+		if err := c.check(); err != nil {
+			return err
+		}
 	}
-	return ls
+	return nil
 }
-
-// checked is l, or a layer that reports err when there is one.
-func checked(err error, l panelLayer) panelLayer {
-	if err != nil {
-		return badLayer{err}
-	}
-	return l
-}
-
-// badLayer is an annotation that cannot be drawn: it widens nothing and
-// fails the drawing with the reason.
-type badLayer struct{ err error }
-
-func (b badLayer) widen(*frame, *axisDomain, *axisDomain) {}
-func (b badLayer) draw(*frame, *placed, layout.Box) error { return b.err }
 
 // ErrAnnotation is the cause of every OptionError about an annotation, so
 // that errors.Is tells them from the other option errors.

@@ -15,6 +15,119 @@ import (
 // panel's domains to hold what it marks, then draws from what the panel
 // reports in placed, so that it works on any chart that fills placed.
 
+// annotationLayer draws a panel's annotations (see Annotations.layers).
+type annotationLayer struct{ a Annotations }
+
+// widen extends the panel's domains to hold every valid annotation; a bad
+// one widens nothing and fails the drawing.
+func (l annotationLayer) widen(f *frame, x, y *axisDomain) {
+	for _, r := range l.a.Refs {
+		if r.check() == nil {
+			refLine{r}.widen(f, x, y)
+		}
+	}
+	for _, e := range l.a.Events {
+		if e.check() == nil {
+			eventLine{e}.widen(f, x, y)
+		}
+	}
+	for _, p := range l.a.Periods {
+		if p.check() == nil {
+			periodShade{p}.widen(f, x, y)
+		}
+	}
+}
+
+// pending is an annotation's label waiting for its place.
+type pending struct {
+	order int // placing order: callouts, events, reference lines, periods
+	note  noteText
+	near  Point                     // the point it belongs to
+	spots func(w, h float64) []spot // the places it prefers
+	mark  int                       // the scene index of its mark, which keeps the text as a tooltip if no place is free; -1 for a callout, which is refused instead
+	what  string                    // what it labels, for the note
+	line  layout.Box                // the box of its line (references, events) or of its span (periods)
+	// across: the label runs beside its line, so it keeps clear of the
+	// lines parallel to it.
+	across bool
+}
+
+func (l annotationLayer) draw(f *frame, p *placed, plot layout.Box) error {
+	if err := l.a.check(); err != nil {
+		return err
+	}
+	var labels []*pending
+	add := func(lab *pending, err error) error {
+		if lab != nil {
+			labels = append(labels, lab)
+		}
+		return err
+	}
+	// Shades first, inserted in order behind everything the panel drew:
+	// the lines and indices recorded after them stay where they are.
+	at := min(max(p.start, 0), len(f.scene.Marks))
+	for i, per := range l.a.Periods {
+		if err := add(periodShade{per}.mark(f, p, plot, at+i)); err != nil {
+			return err
+		}
+	}
+	for _, r := range l.a.Refs {
+		if err := add(refLine{r}.mark(f, p, plot)); err != nil {
+			return err
+		}
+	}
+	for _, e := range l.a.Events {
+		if err := add(eventLine{e}.mark(f, p, plot)); err != nil {
+			return err
+		}
+	}
+	for _, c := range l.a.Callouts {
+		if err := add(calloutNote{c}.label(f, p)); err != nil {
+			return err
+		}
+	}
+	var lines []layout.Box
+	for _, lab := range labels {
+		if lab.line.W > 0 { // periods have a span, not a line
+			lines = append(lines, lab.line)
+		}
+	}
+	slices.SortStableFunc(labels, func(a, b *pending) int { return a.order - b.order })
+	for _, lab := range labels {
+		// A label may cross the lines across its own (an event's label
+		// a reference line) but never one parallel to it, next to which
+		// it would read as that line's label.
+		var avoid, cross []layout.Box
+		for _, l := range lines {
+			if lab.across && (l.H > l.W) == (lab.line.H > lab.line.W) {
+				avoid = append(avoid, l)
+			} else {
+				cross = append(cross, l)
+			}
+		}
+		sp, moved, ok := f.placeText(p, avoid, cross, plot, lab.note, lab.near, lab.spots)
+		switch {
+		case ok && moved && lab.note.leader:
+			f.leader(lab.near, sp.box, lab.note.attrs)
+		case !ok && lab.mark < 0:
+			return annotationError("Callouts", strconv.Quote(dataAttrOf(lab.note.attrs, "label")), "the note %q finds no free place beside its mark; shorten it or give a larger canvas", lab.note.text)
+		case !ok:
+			f.hidden(lab.mark, lab.note.text, lab.what)
+		}
+	}
+	return nil
+}
+
+// dataAttrOf is the value of the data- attribute name among attrs.
+func dataAttrOf(attrs []Attr, name string) string {
+	for _, a := range attrs {
+		if a.Name == name {
+			return a.Value
+		}
+	}
+	return ""
+}
+
 // widenFor widens d to hold vs with a note saying what needed it, so
 // that an annotation outside the data is drawn rather than lost.
 func (f *frame) widenFor(d *axisDomain, what, axisName string, vs ...float64) {
@@ -26,18 +139,25 @@ func (f *frame) widenFor(d *axisDomain, what, axisName string, vs ...float64) {
 	if !widened {
 		return
 	}
-	text := func(vs ...float64) []string {
-		if d.kind == domainTime {
-			out := make([]string, len(vs))
-			for i, v := range vs {
-				out[i] = xValueText(v, xKind{time: true})
-			}
-			return out
-		}
-		return formatAll(scale.ValueFormat(vs, ""), vs)
+	var from, to string
+	switch {
+	case axisName == "x axis":
+		from, to = xText(lo, d.kind == domainTime), xText(hi, d.kind == domainTime)
+	default:
+		t := formatAll(scale.ValueFormat(append([]float64{lo, hi}, vs...), ""), []float64{lo, hi})
+		from, to = t[0], t[1]
 	}
-	t := text(append([]float64{lo, hi}, vs...)...)
-	f.scene.Note("annotation-domain", false, fmt.Sprintf("widened the %s beyond the data (%s to %s) to show %s", axisName, t[0], t[1], what))
+	f.scene.Note("annotation-domain", false, fmt.Sprintf("widened the %s beyond the data (%s to %s) to show %s", axisName, from, to, what))
+}
+
+// xText writes an x value as the x axis would: a date, a year as a year
+// (2020, never 2,020), else a number.
+func xText(x float64, isTime bool) string {
+	k := xKind{time: isTime}
+	if !isTime && x == math.Trunc(x) && x >= 1800 && x <= 2100 {
+		k.years = true
+	}
+	return xValueText(x, k)
 }
 
 // noScale reports a scale the panel did not set: the chart has no such
@@ -56,10 +176,10 @@ func onPlot(pos, lo, hi float64, option, value string) error {
 	return nil
 }
 
-// refLayer draws a reference line.
-type refLayer struct{ r Ref }
+// refLine draws a reference line.
+type refLine struct{ r Ref }
 
-func (l refLayer) widen(f *frame, x, y *axisDomain) {
+func (l refLine) widen(f *frame, x, y *axisDomain) {
 	// The mean and median lie within the data: only a given value can
 	// fall outside it.
 	if d := valueAxis(x, y); d != nil && l.r.Stat == "" {
@@ -69,7 +189,7 @@ func (l refLayer) widen(f *frame, x, y *axisDomain) {
 
 // value is where the line goes: the given value or the statistic of the
 // panel's values.
-func (l refLayer) value(p *placed) (float64, error) {
+func (l refLine) value(p *placed) (float64, error) {
 	if l.r.Stat == "" {
 		return l.r.Value, nil
 	}
@@ -113,10 +233,12 @@ func (l refLayer) value(p *placed) (float64, error) {
 	return vs[n/2-1]/2 + vs[n/2]/2, nil
 }
 
-func (l refLayer) draw(f *frame, p *placed, plot layout.Box) error {
+// mark draws the line and returns its label, to be placed once every
+// annotation's line is drawn.
+func (l refLine) mark(f *frame, p *placed, plot layout.Box) (*pending, error) {
 	v, err := l.value(p)
 	if err != nil {
-		return err
+		return nil, err
 	}
 	ax := p.ys
 	if p.horizontal {
@@ -127,11 +249,11 @@ func (l refLayer) draw(f *frame, p *placed, plot layout.Box) error {
 		name = strconv.Quote(l.r.Stat)
 	}
 	if noScale(ax) {
-		return annotationError("Refs", name, "this chart has no value axis to draw a reference line on")
+		return nil, annotationError("Refs", name, "this chart has no value axis to draw a reference line on")
 	}
 	pos := round2(ax.Map(v))
 	if err := onPlot(pos, ax.R0, ax.R1, "Refs", name); err != nil {
-		return err
+		return nil, err
 	}
 	line := []Point{{plot.X, pos}, {plot.X + plot.W, pos}}
 	box := layout.Box{X: plot.X, Y: pos - 1, W: plot.W, H: 2}
@@ -153,7 +275,6 @@ func (l refLayer) draw(f *frame, p *placed, plot layout.Box) error {
 	mark := Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{line}, Stroke: f.th.text, StrokeWidth: 1, Dash: []float64{4, 3}, Cap: CapButt, Attrs: attrs}
 	i := len(f.scene.Marks)
 	f.scene.Add(mark)
-	p.marks = append(p.marks, box)
 	gap := f.spec.gap / 2
 	spots := func(w, h float64) []spot {
 		var s []spot
@@ -166,16 +287,13 @@ func (l refLayer) draw(f *frame, p *placed, plot layout.Box) error {
 		}
 		// Above the line, then below it, from the right end leftwards:
 		// the right end is where a reader arrives along the line.
-		for k := range 5 {
-			x := plot.X + plot.W - w - float64(k)*(plot.W-w)/4
+		for k := range 9 {
+			x := plot.X + plot.W - w - float64(k)*(plot.W-w)/8
 			s = append(s, spot{layout.Box{X: x, Y: pos - gap - h, W: w, H: h}, End}, spot{layout.Box{X: x, Y: pos + gap, W: w, H: h}, End})
 		}
 		return s
 	}
-	if _, _, ok := f.placeText(p, plot, noteText{text: text, class: "plumb-ref-label", fill: f.th.muted, attrs: attrs}, Point{plot.X + plot.W, pos}, spots); !ok {
-		f.hidden(i, text, "reference line")
-	}
-	return nil
+	return &pending{order: 2, note: noteText{text: text, class: "plumb-ref-label", fill: f.th.muted, attrs: attrs}, near: Point{plot.X + plot.W, pos}, spots: spots, mark: i, what: "reference line", line: box, across: true}, nil
 }
 
 // formatValue writes a value as the panel's value axis labels it.
@@ -191,10 +309,11 @@ func (p *placed) formatValue(v float64) string {
 }
 
 // hidden keeps the text of an annotation that found no free place as the
-// tooltip of its mark (the scene's mark i), with a note.
+// tooltip of its mark (the scene's mark i), with a note that counts as a
+// change: the reader of a printed figure does not see the label.
 func (f *frame) hidden(i int, text, what string) {
 	f.scene.Marks[i].Tooltip = text
-	f.scene.Note("annotation-hidden", false, fmt.Sprintf("the label of the %s %q found no free place in the plot: it is the line's tooltip; give a larger canvas or a shorter label", what, text))
+	f.scene.Note("annotation-hidden", true, fmt.Sprintf("the label of the %s %q found no free place in the plot: it is the tooltip of its mark; give a larger canvas or a shorter label", what, text))
 }
 
 // xOf is where an event or a period end falls on the panel's x axis: X on
@@ -223,36 +342,36 @@ func xAxisOf(x *axisDomain) (isTime, ok bool) {
 	return false, false
 }
 
-// eventLayer marks one x.
-type eventLayer struct{ e Event }
+// eventLine marks one x.
+type eventLine struct{ e Event }
 
-func (l eventLayer) widen(f *frame, x, y *axisDomain) {
+func (l eventLine) widen(f *frame, x, y *axisDomain) {
 	if isTime, ok := xAxisOf(x); ok {
 		if v, err := xOf(l.e.X, l.e.At, isTime, "Events"); err == nil {
-			f.widenFor(x, "the event at "+xValueText(v, xKind{time: isTime}), "x axis", v)
+			f.widenFor(x, "the event at "+xText(v, isTime), "x axis", v)
 		}
 	}
 }
 
-func (l eventLayer) draw(f *frame, p *placed, plot layout.Box) error {
+// mark draws the event's line and returns its label.
+func (l eventLine) mark(f *frame, p *placed, plot layout.Box) (*pending, error) {
 	if noScale(p.xs) || p.horizontal || len(p.cats) > 0 {
-		return annotationError("Events", l.name(), "events mark an x on a number or time axis; this chart has none (give a reference line instead)")
+		return nil, annotationError("Events", l.name(), "events mark an x on a number or time axis; this chart has none (give a reference line instead)")
 	}
 	x, err := xOf(l.e.X, l.e.At, p.xTime, "Events")
 	if err != nil {
-		return err
+		return nil, err
 	}
 	pos := round2(p.xs.Map(x))
 	if err := onPlot(pos, p.xs.R0, p.xs.R1, "Events", l.name()); err != nil {
-		return err
+		return nil, err
 	}
 	attrs := []Attr{{"x", xData(x, p.xTime)}}
 	i := len(f.scene.Marks)
 	f.scene.Add(Mark{Kind: Path, Class: "plumb-event", Lines: [][]Point{{{pos, plot.Y}, {pos, plot.Y + plot.H}}}, Stroke: f.th.muted, StrokeWidth: 1, Attrs: attrs})
-	p.marks = append(p.marks, layout.Box{X: pos - 1, Y: plot.Y, W: 2, H: plot.H})
 	text := l.e.Text
 	if text == "" {
-		text = xValueText(x, xKind{time: p.xTime})
+		text = xText(x, p.xTime)
 	}
 	gap := f.spec.gap / 2
 	spots := func(w, h float64) []spot {
@@ -263,23 +382,20 @@ func (l eventLayer) draw(f *frame, p *placed, plot layout.Box) error {
 		}
 		return s
 	}
-	if _, _, ok := f.placeText(p, plot, noteText{text: text, class: "plumb-event-label", fill: f.th.muted, attrs: attrs}, Point{pos, plot.Y}, spots); !ok {
-		f.hidden(i, text, "event")
-	}
-	return nil
+	return &pending{order: 1, note: noteText{text: text, class: "plumb-event-label", fill: f.th.muted, attrs: attrs}, near: Point{pos, plot.Y}, spots: spots, mark: i, what: "event", line: layout.Box{X: pos - 1, Y: plot.Y, W: 2, H: plot.H}, across: true}, nil
 }
 
-func (l eventLayer) name() string {
+func (l eventLine) name() string {
 	if !l.e.At.IsZero() {
 		return dateText(l.e.At)
 	}
 	return numValue(l.e.X)
 }
 
-// periodLayer shades a span of x.
-type periodLayer struct{ p Period }
+// periodShade shades a span of x.
+type periodShade struct{ p Period }
 
-func (l periodLayer) widen(f *frame, x, y *axisDomain) {
+func (l periodShade) widen(f *frame, x, y *axisDomain) {
 	isTime, ok := xAxisOf(x)
 	if !ok {
 		return
@@ -291,33 +407,35 @@ func (l periodLayer) widen(f *frame, x, y *axisDomain) {
 	}
 }
 
-func (l periodLayer) describe(isTime bool) string {
+func (l periodShade) describe(isTime bool) string {
 	if isTime && !l.p.FromAt.IsZero() {
-		return xValueText(seconds(l.p.FromAt), xKind{time: true}) + " to " + xValueText(seconds(l.p.ToAt), xKind{time: true})
+		return xText(seconds(l.p.FromAt), true) + " to " + xText(seconds(l.p.ToAt), true)
 	}
-	return numValue(l.p.From) + " to " + numValue(l.p.To)
+	return xText(l.p.From, false) + " to " + xText(l.p.To, false)
 }
 
 // The shade of a period: the context colour at 30% over white, lighter
 // than the grid, so that grid lines and data stay visible across it.
 const periodOpacity = 0.3
 
-func (l periodLayer) draw(f *frame, p *placed, plot layout.Box) error {
+// mark inserts the period's shade at the scene's mark at, behind the
+// panel's data, and returns its label (nil for a period without text).
+func (l periodShade) mark(f *frame, p *placed, plot layout.Box, at int) (*pending, error) {
 	name := l.describe(p.xTime)
 	if noScale(p.xs) || p.horizontal || len(p.cats) > 0 {
-		return annotationError("Periods", name, "periods shade a span of a number or time axis; this chart has none")
+		return nil, annotationError("Periods", name, "periods shade a span of a number or time axis; this chart has none")
 	}
 	from, err := xOf(l.p.From, l.p.FromAt, p.xTime, "Periods")
 	if err != nil {
-		return err
+		return nil, err
 	}
 	to, err := xOf(l.p.To, l.p.ToAt, p.xTime, "Periods")
 	if err != nil {
-		return err
+		return nil, err
 	}
 	x0, x1 := round2(p.xs.Map(from)), round2(p.xs.Map(to))
 	if err := firstError(onPlot(x0, p.xs.R0, p.xs.R1, "Periods", name), onPlot(x1, p.xs.R0, p.xs.R1, "Periods", name)); err != nil {
-		return err
+		return nil, err
 	}
 	if x0 > x1 {
 		x0, x1 = x1, x0
@@ -326,10 +444,9 @@ func (l periodLayer) draw(f *frame, p *placed, plot layout.Box) error {
 	// Behind everything the panel drew, grid lines included: the shade
 	// is context, and the data must read across it.
 	shade := Mark{Kind: Rect, Class: "plumb-period", X: x0, Y: plot.Y, W: round2(x1 - x0), H: plot.H, Fill: f.th.context, Opacity: periodOpacity, Attrs: attrs}
-	at := min(max(p.start, 0), len(f.scene.Marks))
 	f.scene.Marks = slices.Insert(f.scene.Marks, at, shade)
 	if l.p.Text == "" {
-		return nil
+		return nil, nil
 	}
 	gap := f.spec.gap / 2
 	spots := func(w, h float64) []spot {
@@ -341,20 +458,17 @@ func (l periodLayer) draw(f *frame, p *placed, plot layout.Box) error {
 		}
 		return s
 	}
-	if _, _, ok := f.placeText(p, plot, noteText{text: l.p.Text, class: "plumb-period-label", fill: f.th.muted, attrs: attrs}, Point{x0, plot.Y}, spots); !ok {
-		f.hidden(at, l.p.Text, "period")
-	}
-	return nil
+	return &pending{order: 3, note: noteText{text: l.p.Text, class: "plumb-period-label", fill: f.th.muted, attrs: attrs}, near: Point{x0, plot.Y}, spots: spots, mark: at, what: "period", line: layout.Box{X: x0, Y: plot.Y, W: 0, H: plot.H}, across: true}, nil
 }
 
-// calloutLayer sets a note beside one category's mark.
-type calloutLayer struct{ c Callout }
+// calloutNote sets a note beside one category's mark.
+type calloutNote struct{ c Callout }
 
-func (l calloutLayer) widen(*frame, *axisDomain, *axisDomain) {}
-
-func (l calloutLayer) draw(f *frame, p *placed, plot layout.Box) error {
+// label returns the callout's note, to be placed beside its category's
+// mark once every annotation's line is drawn.
+func (l calloutNote) label(f *frame, p *placed) (*pending, error) {
 	if len(p.cats) == 0 {
-		return annotationError("Callouts", strconv.Quote(l.c.Label), "callouts go beside a category's bar or dot; this chart has no categories")
+		return nil, annotationError("Callouts", strconv.Quote(l.c.Label), "callouts go beside a category's bar or dot; this chart has no categories")
 	}
 	var c catPlace
 	labels := make([]string, len(p.cats))
@@ -366,7 +480,7 @@ func (l calloutLayer) draw(f *frame, p *placed, plot layout.Box) error {
 		}
 	}
 	if !found {
-		return annotationError("Callouts", strconv.Quote(l.c.Label), "no category has this label%s", closest(l.c.Label, labels))
+		return nil, annotationError("Callouts", strconv.Quote(l.c.Label), "no category has this label%s", closest(l.c.Label, labels))
 	}
 	gap := f.spec.gap
 	// The point the note belongs to: the mark's end, in the middle of
@@ -401,14 +515,7 @@ func (l calloutLayer) draw(f *frame, p *placed, plot layout.Box) error {
 		return s
 	}
 	attrs := []Attr{{"label", l.c.Label}}
-	sp, moved, ok := f.placeText(p, plot, noteText{text: l.c.Text, class: "plumb-callout", fill: f.th.text, attrs: attrs, leader: true}, end, spots)
-	if !ok {
-		return annotationError("Callouts", strconv.Quote(l.c.Label), "the note %q finds no free place beside its mark; shorten it or give a larger canvas", l.c.Text)
-	}
-	if moved {
-		f.leader(end, sp.box, attrs)
-	}
-	return nil
+	return &pending{order: 0, note: noteText{text: l.c.Text, class: "plumb-callout", fill: f.th.text, attrs: attrs, leader: true}, near: end, spots: spots, mark: -1, what: "callout"}, nil
 }
 
 // leader joins a moved note to the point it belongs to: from the point to

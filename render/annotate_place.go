@@ -9,17 +9,19 @@ import (
 )
 
 // This file places annotation text. Every label is measured as it will be
-// set, tried at the places its annotation prefers (beside its line, above
-// its bar), then anywhere in the plot nearest to the point it belongs to,
-// and taken at the first place where it overlaps no text the panel already
-// drew (tick labels, value labels, direct labels, earlier annotations) and
+// set and tried at the places its annotation prefers (beside its line,
+// along its reference line, above its bar); a callout, which a leader can
+// join to its mark, is also tried anywhere in the plot, nearest first. It
+// takes the first place where it overlaps no text the panel already drew
+// (tick labels, value labels, direct labels, earlier annotations) and
 // stays inside the plot, so that it never reaches the frame's title or
-// notes. A label too long for the places it prefers is wrapped, then
-// shortened with its whole text as a tooltip. Places clear of the data
-// marks and annotation lines come first, in any setting; only when there
-// are none may a label lie over a mark, still never over text. Each placed box joins placed.text, so that later labels avoid
-// it. The lines branch's label placer will take this over; until then it
-// is built on layout's boxes and measuring only.
+// notes. The whole text, wrapped if need be, comes before a shortened one
+// (with the whole text as a tooltip); places clear of the data marks come
+// before places crossing annotation lines, and only when there is no such
+// place may a label lie over a mark, still never over text. Each placed
+// box joins placed.text, so that later labels avoid it. The lines
+// branch's label placer will take this over; until then this is built on
+// layout's boxes and measuring only.
 
 // spot is one place an annotation's text may take: the box its lines fill
 // and the side they are aligned to.
@@ -30,11 +32,15 @@ type spot struct {
 
 // noteText is an annotation's text and how it is drawn.
 type noteText struct {
-	text   string
-	class  string
-	fill   Colour
-	attrs  []Attr
-	leader bool // a moved note is joined to near by a leader, which must cross no text
+	text  string
+	class string
+	fill  Colour
+	attrs []Attr
+	// leader: the note may go anywhere in the plot, nearest to near
+	// first, joined to near by a leader that crosses no text. Without
+	// one a label stays at its own places, beside what it labels, where
+	// no reader can take it for another line's.
+	leader bool
 }
 
 // setting is one way of setting a text: its lines and the block they make.
@@ -79,22 +85,22 @@ func (f *frame) settings(text string, maxW float64) []setting {
 }
 
 // placeText measures a note, finds it a free place inside bounds (the
-// plot) and draws it. spots gives the places the annotation prefers for a
-// block w by h; after them every place in bounds is tried, nearest to near
-// first. It returns the place taken and whether it is one of the scanned
+// plot), clear of the panel's text and marks and of the boxes in avoid,
+// preferably of the annotation lines in lines too, and draws it. spots gives the places the annotation prefers for a
+// block w by h; after them, for a note with a leader, every place in
+// bounds is tried, nearest to near first. It returns the place taken and whether it is one of the scanned
 // places rather than the annotation's own (a moved note may need a
 // leader). ok is false when no place is free in any setting: nothing is
 // drawn.
-func (f *frame) placeText(p *placed, bounds layout.Box, n noteText, near Point, spots func(w, h float64) []spot) (_ spot, moved, ok bool) {
+func (f *frame) placeText(p *placed, avoid, lines []layout.Box, bounds layout.Box, n noteText, near Point, spots func(w, h float64) []spot) (_ spot, moved, ok bool) {
 	sets := f.settings(n.text, math.Min(bounds.W, 24*f.spec.text))
-	// Three tiers of free: clear of every mark; crossing annotation lines
-	// but covering no filled mark; anywhere but over text. Text over a
-	// filled mark loses its contrast, so every setting, even shortened,
-	// is tried clear of marks first.
+	// Two tiers of free: clear of every mark; crossing annotation lines
+	// but covering no mark. Text over a filled mark loses its contrast
+	// and hides data, so it is never set there: a label with no free
+	// place is left to its caller.
 	const (
 		clearAll = iota
 		crossLines
-		overMarks
 	)
 	free := func(b layout.Box, tier int) bool {
 		// A hundredth of a pixel of margin: positions are written to two
@@ -108,9 +114,14 @@ func (f *frame) placeText(p *placed, bounds layout.Box, n noteText, near Point, 
 				return false
 			}
 		}
-		for _, m := range p.marks {
-			if tier == clearAll || (tier == crossLines && !lineBox(m)) {
-				if b.Overlaps(m) {
+		for _, m := range slices.Concat(p.marks, avoid) {
+			if b.Overlaps(m) {
+				return false
+			}
+		}
+		if tier == clearAll {
+			for _, l := range lines {
+				if b.Overlaps(l) {
 					return false
 				}
 			}
@@ -118,11 +129,11 @@ func (f *frame) placeText(p *placed, bounds layout.Box, n noteText, near Point, 
 		return true
 	}
 	// The whole text crossing a dashed line reads better than a shortened
-	// one clear of it; a shortened one better than text over a bar.
+	// one clear of it.
 	passes := []struct {
 		tier int
 		cut  bool
-	}{{clearAll, false}, {crossLines, false}, {clearAll, true}, {crossLines, true}, {overMarks, true}}
+	}{{clearAll, false}, {crossLines, false}, {clearAll, true}, {crossLines, true}}
 	for _, pass := range passes {
 		tier := pass.tier
 		for _, s := range sets {
@@ -130,15 +141,19 @@ func (f *frame) placeText(p *placed, bounds layout.Box, n noteText, near Point, 
 				continue
 			}
 			own := spots(s.w, s.h)
-			for k, c := range append(own, scan(bounds, s.w, s.h, near)...) {
+			cands := own
+			if n.leader {
+				cands = append(own, scan(bounds, s.w, s.h, near)...)
+			}
+			for k, c := range cands {
 				moved := k >= len(own)
 				if !free(c.box, tier) {
 					continue
 				}
 				if moved && n.leader {
-					// A leader crosses no text, and before the last tier
-					// is short enough to read as a pointer.
-					if d := distance(near, nearestIn(c.box, near)); f.leaderCrosses(p, near, c.box) || (tier < overMarks && d > maxLeader*f.spec.text) {
+					// A leader crosses no text and is short enough to
+					// read as a pointer.
+					if d := distance(near, nearestIn(c.box, near)); f.leaderCrosses(p, near, c.box) || d > maxLeader*f.spec.text {
 						continue
 					}
 				}
@@ -155,10 +170,6 @@ func (f *frame) placeText(p *placed, bounds layout.Box, n noteText, near Point, 
 const maxLeader = 6
 
 func distance(a, b Point) float64 { return math.Hypot(a.X-b.X, a.Y-b.Y) }
-
-// lineBox reports a box that is a line (an annotation's reference line or
-// event), which text may cross before it covers a filled mark.
-func lineBox(b layout.Box) bool { return b.W <= 2 || b.H <= 2 }
 
 // leaderCrosses reports whether a leader from the point to the box would
 // cross text the panel drew: a leader must join a note to its mark

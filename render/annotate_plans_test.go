@@ -185,8 +185,15 @@ func (p *seriesPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 		line[i] = Point{round2(xs.Map(p.x[i])), round2(ys.Map(p.y[i]))}
 	}
 	f.scene.Add(Mark{Kind: Path, Class: "plumb-mark", Lines: [][]Point{line}, Stroke: f.th.neutral, StrokeWidth: 2})
+	// One box per segment, widened by the stroke: a line's marks are
+	// where its ink is, not the box of the whole line.
+	var marks []layout.Box
+	for i := 1; i < len(line); i++ {
+		a, b := line[i-1], line[i]
+		marks = append(marks, layout.Box{X: math.Min(a.X, b.X) - 1, Y: math.Min(a.Y, b.Y) - 1, W: math.Abs(b.X-a.X) + 2, H: math.Abs(b.Y-a.Y) + 2})
+	}
 	_ = sp
-	return placed{xs: xs, ys: ys, xTime: p.time, values: p.y, text: textBoxesSince(f, start)}, nil
+	return placed{xs: xs, ys: ys, xTime: p.time, values: p.y, text: textBoxesSince(f, start), marks: marks}, nil
 }
 
 func (p *seriesPlan) describe() (string, string) { return "series", "Series" }

@@ -383,7 +383,7 @@ func TestPlaceTextWrapsThenShortens(t *testing.T) {
 	p := &placed{}
 	bounds := layout.Box{X: 10, Y: 10, W: 130, H: 200}
 	long := "the harbour was closed for the whole winter season while the new breakwater was built"
-	_, _, ok := f.placeText(p, bounds, noteText{text: long, class: "plumb-ref-label"}, Point{10, 10}, func(w, h float64) []spot {
+	_, _, ok := f.placeText(p, nil, nil, bounds, noteText{text: long, class: "plumb-ref-label"}, Point{10, 10}, func(w, h float64) []spot {
 		return []spot{{layout.Box{X: 10, Y: 10, W: w, H: h}, Start}}
 	})
 	require.True(t, ok)
@@ -391,10 +391,11 @@ func TestPlaceTextWrapsThenShortens(t *testing.T) {
 	assert.Greater(t, len(lines), 1, "wrapped")
 	assert.Equal(t, long, lines[0].Tooltip, "cut after three lines: the whole text is the tooltip")
 
-	// A box that holds one short line only: the text is shortened.
+	// A box that holds one short line only: the text is shortened, at
+	// the place the scan finds (a note with a leader may go anywhere).
 	f, _ = newFrame(Common{})
 	p = &placed{}
-	_, _, ok = f.placeText(p, layout.Box{W: 90, H: 20}, noteText{text: long, class: "plumb-ref-label"}, Point{}, func(w, h float64) []spot { return nil })
+	_, _, ok = f.placeText(p, nil, nil, layout.Box{W: 90, H: 20}, noteText{text: long, class: "plumb-ref-label", leader: true}, Point{}, func(w, h float64) []spot { return nil })
 	require.True(t, ok)
 	lines = marksOf(f.scene, "plumb-ref-label")
 	require.Len(t, lines, 1)
@@ -403,7 +404,7 @@ func TestPlaceTextWrapsThenShortens(t *testing.T) {
 
 	// No room at all: nothing is drawn and ok is false.
 	f, _ = newFrame(Common{})
-	_, _, ok = f.placeText(&placed{}, layout.Box{W: 10, H: 5}, noteText{text: long}, Point{}, func(w, h float64) []spot { return nil })
+	_, _, ok = f.placeText(&placed{}, nil, nil, layout.Box{W: 10, H: 5}, noteText{text: long, leader: true}, Point{}, func(w, h float64) []spot { return nil })
 	assert.False(t, ok)
 	assert.Empty(t, f.scene.Marks)
 }
