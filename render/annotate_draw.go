@@ -183,7 +183,8 @@ func (l refLine) widen(f *frame, x, y *axisDomain) {
 	// The mean and median lie within the data: only a given value can
 	// fall outside it.
 	if d := valueAxis(x, y); d != nil && l.r.Stat == "" {
-		f.widenFor(d, fmt.Sprintf("the reference line at %s", numValue(l.r.Value)), "value axis", l.r.Value)
+		v := l.r.Value
+		f.widenFor(d, "the reference line at "+scale.ValueFormat([]float64{d.lo, d.hi, v}, "").Format(v), "value axis", v)
 	}
 }
 

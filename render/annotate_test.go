@@ -368,6 +368,21 @@ func TestAnnotationsNeverOverlap(t *testing.T) {
 			var b bytes.Buffer
 			require.NoError(t, WriteSVG(&b, s))
 			assertFinite(t, b.Bytes())
+			// A label left out is said in a note that counts as a change.
+			hidden := 0
+			for _, m := range s.Marks {
+				if m.Tooltip != "" && (m.Class == "plumb-ref" || m.Class == "plumb-event" || m.Class == "plumb-period") {
+					hidden++
+				}
+			}
+			if hidden > 0 {
+				assert.Contains(t, noteCodes(s), "annotation-hidden")
+				for _, n := range s.Notes {
+					if n.Code == "annotation-hidden" {
+						assert.True(t, n.Changed)
+					}
+				}
+			}
 		})
 		placedLabels += len(marksOf(s, "plumb-ref-label")) + len(marksOf(s, "plumb-callout")) + len(marksOf(s, "plumb-event-label"))
 	}
@@ -407,4 +422,31 @@ func TestPlaceTextWrapsThenShortens(t *testing.T) {
 	_, _, ok = f.placeText(&placed{}, nil, nil, layout.Box{W: 10, H: 5}, noteText{text: long, leader: true}, Point{}, func(w, h float64) []spot { return nil })
 	assert.False(t, ok)
 	assert.Empty(t, f.scene.Marks)
+}
+
+// BenchmarkAnnotations draws a 30-row bar panel without annotations and
+// with eight, the placing of their labels included.
+func BenchmarkAnnotations(b *testing.B) {
+	labels, vals := make([]string, 30), make([]float64, 30)
+	for i := range labels {
+		labels[i] = fmt.Sprintf("%s %d", islands[i%len(islands)], i)
+		vals[i] = float64(100 + (i*37)%250)
+	}
+	a := Annotations{
+		Refs:     []Ref{{Value: 200, Text: "Break-even"}, {Stat: StatMean}, {Stat: StatMedian}, {Value: 400, Text: "Capacity of the fleet"}},
+		Callouts: []Callout{{Label: labels[3], Text: "new pier"}, {Label: labels[10], Text: "closed in winter"}, {Label: labels[20], Text: "fare cut in May"}, {Label: labels[29], Text: "new route"}},
+	}
+	for _, bc := range []struct {
+		name string
+		a    Annotations
+	}{{"none", Annotations{}}, {"eight", a}} {
+		p := rowsPanel(Common{Annotations: bc.a}, labels, vals, false, false)
+		b.Run(bc.name, func(b *testing.B) {
+			for b.Loop() {
+				if _, err := FigureScene(FigureOptions{}, p); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
 }
