@@ -273,7 +273,10 @@ func (l refLine) mark(f *frame, p *placed, plot layout.Box) (*pending, error) {
 			text = l.r.Stat + " " + text
 		}
 	}
-	mark := Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{line}, Stroke: f.th.text, StrokeWidth: 1, Dash: []float64{4, 3}, Cap: CapButt, Attrs: attrs}
+	// As the index base line of a line chart: in the baseline colour,
+	// thinner than a bar baseline because no mark starts on it (see
+	// "Theme" in DEVELOPERS.md).
+	mark := Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{line}, Stroke: f.th.baseline, StrokeWidth: 1, Join: JoinRound, Cap: CapRound, Attrs: attrs}
 	i := len(f.scene.Marks)
 	f.scene.Add(mark)
 	gap := f.spec.gap / 2
@@ -368,8 +371,9 @@ func (l eventLine) mark(f *frame, p *placed, plot layout.Box) (*pending, error) 
 		return nil, err
 	}
 	attrs := []Attr{{"x", xData(x, p.xTime)}}
+	// In the context colour, below 3:1, so that it never reads as data.
 	i := len(f.scene.Marks)
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-event", Lines: [][]Point{{{pos, plot.Y}, {pos, plot.Y + plot.H}}}, Stroke: f.th.muted, StrokeWidth: 1, Attrs: attrs})
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-event", Lines: [][]Point{{{pos, plot.Y}, {pos, plot.Y + plot.H}}}, Stroke: f.th.context, StrokeWidth: 1, Join: JoinRound, Cap: CapRound, Attrs: attrs})
 	text := l.e.Text
 	if text == "" {
 		text = xText(x, p.xTime)

@@ -450,3 +450,37 @@ func BenchmarkAnnotations(b *testing.B) {
 		})
 	}
 }
+
+// In a grid, each panel draws its own annotations in its own cell, and a
+// reference that widens one panel's axis widens every panel sharing it.
+func TestAnnotationsInAGrid(t *testing.T) {
+	x := []float64{1, 2, 3, 4, 5, 6}
+	var panels []Panel
+	for i := range 4 {
+		y := []float64{10, 12, 11, 14, 13, 15}
+		a := Annotations{Events: []Event{{X: 3.5, Text: "Refit"}}}
+		if i == 0 {
+			a.Refs = []Ref{{Value: 40, Text: "Capacity"}}
+		}
+		p := seriesPanel(Common{Annotations: a}, x, y, false)
+		p.Title = fmt.Sprintf("Vessel %c", 'A'+i)
+		panels = append(panels, p)
+	}
+	f, err := newFrame(Common{Title: "Fuel", Width: 800})
+	require.NoError(t, err)
+	var cells []gridCell
+	for _, p := range panels {
+		plan, err := p.plan(f)
+		require.NoError(t, err)
+		cells = append(cells, gridCell{title: p.Title, plan: plan, layers: p.layers})
+	}
+	res, err := f.drawGrid(cells, gridOptions{cols: 2, shareY: true}, f.plotTop())
+	require.NoError(t, err)
+	s := f.finish(res.bottom)
+	assertNoOverlap(t, s)
+	assert.Len(t, marksOf(s, "plumb-event"), 4)
+	assert.Len(t, marksOf(s, "plumb-ref"), 1)
+	for i, p := range res.placed {
+		assert.GreaterOrEqual(t, p.ys.D1, 40.0, "panel %d shares the widened axis", i)
+	}
+}
