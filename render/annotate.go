@@ -16,6 +16,10 @@ import (
 // placed where it overlaps no other text of the panel: wrapped, shortened
 // with the whole text as a tooltip, or, when no place is left at all, kept
 // as the tooltip of its mark (a note coded "annotation-hidden" says so).
+// A period's shade is drawn behind everything its panel drew. A bad
+// annotation fails the chart with an *OptionError whose Option is the
+// field (Refs, Events, Periods or Callouts) and which wraps ErrAnnotation.
+// Common embeds Annotations, so every chart's options take them.
 type Annotations struct {
 	Refs     []Ref
 	Events   []Event
