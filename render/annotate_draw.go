@@ -494,27 +494,57 @@ func (l calloutNote) label(f *frame, p *placed) (*pending, error) {
 	if !p.horizontal {
 		end = Point{c.centre, c.end}
 	}
-	// Its own place: beside the mark's end, or past the mark's own value
+	// Its own place: beyond the mark's end, or past the mark's own value
 	// label there; anywhere else is found by the placer's scan, nearest
-	// first, and joined to the mark by a leader.
+	// first, and joined to the mark by a leader. Beyond is away from
+	// zero: to the left of a negative bar, under a negative column.
 	own := func(b layout.Box) bool { return distance(end, nearestIn(b, end)) <= 2*gap }
+	ax := p.ys
+	if p.horizontal {
+		ax = p.xs
+	}
+	zero := ax.Map(math.Max(math.Min(ax.D0, ax.D1), math.Min(0, math.Max(ax.D0, ax.D1))))
+	if noScale(ax) {
+		zero = math.Inf(-1)
+		if !p.horizontal {
+			zero = math.Inf(1)
+		}
+	}
 	spots := func(w, h float64) []spot {
 		var s []spot
 		if p.horizontal {
 			y := c.centre - h/2
-			s = append(s, spot{layout.Box{X: c.end + gap, Y: y, W: w, H: h}, Start})
+			if c.end >= zero {
+				s = append(s, spot{layout.Box{X: c.end + gap, Y: y, W: w, H: h}, Start})
+				for _, b := range p.text {
+					if own(b) && b.X >= c.end {
+						s = append(s, spot{layout.Box{X: b.X + b.W + gap, Y: y, W: w, H: h}, Start})
+					}
+				}
+				return s
+			}
+			s = append(s, spot{layout.Box{X: c.end - gap - w, Y: y, W: w, H: h}, End})
 			for _, b := range p.text {
-				if own(b) && b.X >= c.end {
-					s = append(s, spot{layout.Box{X: b.X + b.W + gap, Y: y, W: w, H: h}, Start})
+				if own(b) && b.X+b.W <= c.end {
+					s = append(s, spot{layout.Box{X: b.X - gap - w, Y: y, W: w, H: h}, End})
 				}
 			}
 			return s
 		}
 		x := c.centre - w/2
-		s = append(s, spot{layout.Box{X: x, Y: c.end - gap - h, W: w, H: h}, Middle})
+		if c.end <= zero {
+			s = append(s, spot{layout.Box{X: x, Y: c.end - gap - h, W: w, H: h}, Middle})
+			for _, b := range p.text {
+				if own(b) && b.Y+b.H <= c.end+gap {
+					s = append(s, spot{layout.Box{X: x, Y: b.Y - gap - h, W: w, H: h}, Middle})
+				}
+			}
+			return s
+		}
+		s = append(s, spot{layout.Box{X: x, Y: c.end + gap, W: w, H: h}, Middle})
 		for _, b := range p.text {
-			if own(b) && b.Y+b.H <= c.end+gap {
-				s = append(s, spot{layout.Box{X: x, Y: b.Y - gap - h, W: w, H: h}, Middle})
+			if own(b) && b.Y >= c.end-gap {
+				s = append(s, spot{layout.Box{X: x, Y: b.Y + b.H + gap, W: w, H: h}, Middle})
 			}
 		}
 		return s

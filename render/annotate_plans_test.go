@@ -2,6 +2,7 @@ package render
 
 import (
 	"math"
+	"slices"
 
 	"plumb/layout"
 	"plumb/scale"
@@ -54,9 +55,21 @@ func (p *rowsPlan) measure(f *frame, cellW float64, e edges) insets {
 	}
 	lh := lineHeight(sp.text)
 	if p.vertical {
-		return insets{left: 4 * sp.text, right: sp.text, top: lh, bottom: lh + sp.gap}
+		return insets{left: 4 * sp.text, right: sp.text, top: lh, bottom: lh + sp.gap + p.negRoom(f)}
 	}
-	return insets{left: labelW + sp.gap, right: 4 * sp.text, top: sp.gap, bottom: f.xLabelTop(0) + lh}
+	return insets{left: labelW + sp.gap + p.negRoom(f), right: 4 * sp.text, top: sp.gap, bottom: f.xLabelTop(0) + lh}
+}
+
+// negRoom is the room the value labels of negative marks take beyond the
+// plot, between it and the category labels.
+func (p *rowsPlan) negRoom(f *frame) float64 {
+	if slices.ContainsFunc(p.values, func(v float64) bool { return v < 0 }) {
+		if p.vertical {
+			return lineHeight(f.spec.text) + f.spec.gap
+		}
+		return 5 * f.spec.text
+	}
+	return 0
 }
 
 func (p *rowsPlan) height(f *frame, plotW, room float64) (float64, error) {
@@ -108,17 +121,25 @@ func (p *rowsPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 		if p.vertical {
 			c.centre = plot.X + band*(float64(i)+0.5)
 			mark = layout.Box{X: c.centre - band*0.35, Y: math.Min(end, base), W: band * 0.7, H: math.Abs(end - base)}
-			c.end = math.Min(end, base)
+			c.end = end
 			if short, _ := f.wrap(l, sp.text, false, band-sp.gap, 1); len(short) == 1 {
-				f.text(c.centre, plot.Y+plot.H+sp.gap+asc, short[0], sp.text, false, f.th.text, "plumb-label", Middle)
+				f.text(c.centre, plot.Y+plot.H+p.negRoom(f)+sp.gap+asc, short[0], sp.text, false, f.th.text, "plumb-label", Middle)
 			}
-			f.text(c.centre, c.end-sp.gap-desc, format.Format(v), sp.text, false, f.th.text, "plumb-value", Middle)
+			if end <= base {
+				f.text(c.centre, end-sp.gap-desc, format.Format(v), sp.text, false, f.th.text, "plumb-value", Middle)
+			} else {
+				f.text(c.centre, end+sp.gap+asc, format.Format(v), sp.text, false, f.th.text, "plumb-value", Middle)
+			}
 		} else {
 			c.centre = plot.Y + band*(float64(i)+0.5)
 			mark = layout.Box{X: math.Min(end, base), Y: c.centre - band*0.35, W: math.Abs(end - base), H: band * 0.7}
-			c.end = math.Max(end, base)
-			f.text(plot.X-sp.gap, c.centre+(asc-desc)/2, l, sp.text, false, f.th.text, "plumb-label", End)
-			f.text(c.end+sp.gap, c.centre+(asc-desc)/2, format.Format(v), sp.text, false, f.th.text, "plumb-value", Start)
+			c.end = end
+			f.text(plot.X-sp.gap-p.negRoom(f), c.centre+(asc-desc)/2, l, sp.text, false, f.th.text, "plumb-label", End)
+			if end >= base {
+				f.text(end+sp.gap, c.centre+(asc-desc)/2, format.Format(v), sp.text, false, f.th.text, "plumb-value", Start)
+			} else {
+				f.text(end-sp.gap, c.centre+(asc-desc)/2, format.Format(v), sp.text, false, f.th.text, "plumb-value", End)
+			}
 		}
 		if p.dots {
 			r := band * 0.25

@@ -230,6 +230,27 @@ func TestCalloutBesideItsMark(t *testing.T) {
 	}
 }
 
+// A callout on a negative bar or column goes beyond its end, away from
+// zero, where its value label is.
+func TestCalloutOnNegativeMarks(t *testing.T) {
+	vals := []float64{42, -8, 75, -31, 20} // room beyond the callout's bar, left of -8
+	for _, vertical := range []bool{false, true} {
+		c := Common{Annotations: Annotations{Callouts: []Callout{{Label: "Vellmar Sound", Text: "fewer sailings"}}}}
+		s, p, err := drawOne(t, c, rowsPanel(c, islands, vals, vertical, false))
+		require.NoError(t, err)
+		co := marksOf(s, "plumb-callout")
+		require.NotEmpty(t, co)
+		cat := p.cats[1]
+		if vertical {
+			assert.Greater(t, co[0].Y, cat.end, "under the negative column")
+		} else {
+			assert.Less(t, co[0].X, cat.end, "left of the negative bar")
+			assert.Equal(t, End, co[0].Anchor)
+		}
+		assertNoOverlap(t, s)
+	}
+}
+
 // Every bad annotation is an OptionError naming the option, whose cause
 // says what would work.
 func TestAnnotationErrors(t *testing.T) {
@@ -305,6 +326,9 @@ func TestAnnotationsNeverOverlap(t *testing.T) {
 		for i := range labels {
 			labels[i] = fmt.Sprintf("%s %d", islands[i%len(islands)], i)
 			vals[i] = (0.2 + r.Float64()) * scaleV
+			if trial%3 == 0 && r.IntN(3) == 0 {
+				vals[i] = -vals[i] // negative bars and columns grow the other way
+			}
 		}
 		var a Annotations
 		for range r.IntN(4) {
