@@ -233,9 +233,9 @@ func TestCalloutBesideItsMark(t *testing.T) {
 // A callout on a negative bar or column goes beyond its end, away from
 // zero, where its value label is.
 func TestCalloutOnNegativeMarks(t *testing.T) {
-	vals := []float64{42, -8, 75, -31, 20} // room beyond the callout's bar, left of -8
+	vals := []float64{42, -8, 75, -60, 20} // room beyond the callout's bar, left of -8
 	for _, vertical := range []bool{false, true} {
-		c := Common{Annotations: Annotations{Callouts: []Callout{{Label: "Vellmar Sound", Text: "fewer sailings"}}}}
+		c := Common{Width: 800, Annotations: Annotations{Callouts: []Callout{{Label: "Vellmar Sound", Text: "fewer sailings"}}}}
 		s, p, err := drawOne(t, c, rowsPanel(c, islands, vals, vertical, false))
 		require.NoError(t, err)
 		co := marksOf(s, "plumb-callout")
