@@ -48,6 +48,12 @@ type axisDomain struct {
 	lo, hi  float64  // number and time: the data's extent before nice widening
 	integer bool     // every value on the axis is a whole number
 	labels  []string // categories, in drawing order
+	// shared: the grid gave this domain to every panel along its
+	// direction, so inner panels may leave its labels to the outer ones.
+	shared bool
+	// mixed: categories of panels whose lists differ were combined, so
+	// every panel must still label its own.
+	mixed bool
 }
 
 // union is the domain that holds both d and o. Domains of different kinds
@@ -65,6 +71,7 @@ func (d axisDomain) union(o axisDomain) axisDomain {
 		d.lo, d.hi = math.Min(d.lo, o.lo), math.Max(d.hi, o.hi)
 		d.integer = d.integer && o.integer
 	case domainCategory:
+		d.mixed = d.mixed || o.mixed || !slices.Equal(d.labels, o.labels)
 		for _, l := range o.labels {
 			if !slices.Contains(d.labels, l) {
 				d.labels = append(d.labels, l)
@@ -237,15 +244,22 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 	}
 	// Room around the plot areas: the widest per column, the tallest per row.
 	cellW := (width - float64(cols-1)*gutter) / float64(cols)
+	// Whole pixels line the panels of a grid up; a lone panel has nothing
+	// to line up with and keeps the room it measured.
+	whole, wholeDown := math.Ceil, math.Floor
+	if single {
+		whole = func(v float64) float64 { return v }
+		wholeDown = whole
+	}
 	left, right := make([]float64, cols), make([]float64, cols)
 	above, below := make([]float64, rows), make([]float64, rows)
 	for i, c := range cells {
 		in := c.plan.measure(f, cellW, edgeOf(i))
 		r, col := i/cols, i%cols
-		left[col] = math.Max(left[col], math.Ceil(in.left))
-		right[col] = math.Max(right[col], math.Ceil(in.right))
-		above[r] = math.Max(above[r], math.Ceil(in.top))
-		below[r] = math.Max(below[r], math.Ceil(in.bottom))
+		left[col] = math.Max(left[col], whole(in.left))
+		right[col] = math.Max(right[col], whole(in.right))
+		above[r] = math.Max(above[r], whole(in.top))
+		below[r] = math.Max(below[r], whole(in.bottom))
 	}
 	titleH := 0.0
 	for _, c := range cells {
@@ -257,9 +271,9 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 	for c := range cols {
 		plotW -= left[c] + right[c]
 	}
-	plotW = math.Floor(plotW / float64(cols))
+	plotW = wholeDown(plotW / float64(cols))
 	minW := sp.text * minPanelChars
-	if plotW < minW {
+	if plotW < minW && !(single && plotW > 0) {
 		return gridResult{}, fmt.Errorf("%d %s do not fit in %g px with %g px text: each plot would be %.0f px wide, less than %.0f; give a wider canvas (%s) or fewer columns", n, plural(n, "panel", "panels"), f.width, sp.text, plotW, minW, f.c.name("Width"))
 	}
 	plotH := 0.0
@@ -268,8 +282,9 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 		for r := range rows {
 			fixed += above[r] + below[r]
 		}
-		plotH = math.Floor((room - fixed) / float64(rows))
-		if plotH < minPlotHeight(sp, !single) {
+		plotH = wholeDown((room - fixed) / float64(rows))
+		// A lone panel says itself what it needs, in its own terms.
+		if plotH < minPlotHeight(sp, !single) && !(single && plotH > 0) {
 			return gridResult{}, fmt.Errorf("%d %s of panels do not fit in a %g px high figure with %g px text: each plot would be %.0f px high; give a taller canvas (%s) or fewer panels", rows, plural(rows, "row", "rows"), f.spec.height, sp.text, plotH, f.c.name("Height"))
 		}
 		for _, c := range cells {
@@ -283,7 +298,7 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 			if err != nil {
 				return gridResult{}, err
 			}
-			plotH = math.Max(plotH, math.Ceil(h))
+			plotH = math.Max(plotH, whole(h))
 		}
 	}
 	res := gridResult{cells: make([]layout.Box, n), placed: make([]placed, n), origin: make([]Point, n)}
@@ -354,9 +369,11 @@ func (f *frame) shareDomains(cells []gridCell, o gridOptions) {
 		x, y := xs[i], ys[i]
 		if o.shareX && x.kind != domainNone && x.kind == ux.kind {
 			x = ux
+			x.shared = true
 		}
 		if o.shareY && y.kind != domainNone && y.kind == uy.kind {
 			y = uy
+			y.shared = true
 		}
 		c.plan.share(x, y)
 	}

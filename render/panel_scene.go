@@ -57,24 +57,6 @@ func (p *scenePlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 
 func (p *scenePlan) describe() (string, string) { return p.s.Desc, p.s.Title }
 
-// BarsPanel plans a bar chart for a cell of a figure.
-func BarsPanel(labels []string, values []float64, opt BarsOptions) Panel {
-	return scenePanel(opt.Common, func(c Common) (*Scene, error) {
-		o := opt
-		o.Common = c
-		return BarsScene(labels, values, o)
-	})
-}
-
-// DotsPanel plans a dot plot for a cell of a figure.
-func DotsPanel(labels []string, values []float64, opt DotsOptions) Panel {
-	return scenePanel(opt.Common, func(c Common) (*Scene, error) {
-		o := opt
-		o.Common = c
-		return DotsScene(labels, values, o)
-	})
-}
-
 // LinesPanel plans a line chart for a cell of a figure.
 func LinesPanel(series []Series, opt LinesOptions) Panel {
 	return scenePanel(opt.Common, func(c Common) (*Scene, error) {

@@ -353,7 +353,7 @@ func (c *rowChart) rowsThatFit() int {
 	}
 	sp := f.spec
 	lh := lineHeight(sp.text)
-	axisH := sp.gap + lh + c.unitLineH()
+	axisH := sp.gap + lh + c.unitLineH(f.width-2*sp.pad)
 	// The note line under the chart takes one small line when rows are left out.
 	room := f.fixedPlotBottom() - lineHeight(sp.small) - axisH - f.plotTop()
 	n := int(room / (lh + sp.gap/2))
@@ -519,15 +519,9 @@ func calendarShort(label string) (string, bool) {
 	return "", false
 }
 
-// accessibleTitle names an untitled chart for assistive technology.
-func (c *rowChart) accessibleTitle() string {
-	kind, _, _ := strings.Cut(c.describe(), ",")
-	return kind
-}
-
 // describe writes the plain-language <desc>: what is plotted, the extremes,
 // and what was combined.
-func (c *rowChart) describe() string {
+func (c *rowChart) describeText() string {
 	kind := "Bar chart"
 	switch {
 	case c.dots:
