@@ -59,9 +59,7 @@ func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]No
 // BarsScene builds the bar chart's scene without writing it: a figure of
 // one untitled panel, the options' title heading the figure.
 func BarsScene(labels []string, values []float64, opt BarsOptions) (*Scene, error) {
-	o := opt
-	o.Notes = nil // the frame opens the scene's notes with them
-	return figureScene(opt.Common, gridOptions{}, []Panel{alone(BarsPanel(labels, values, o))})
+	return figureScene(opt.Common, gridOptions{}, []Panel{rowPanel(labels, values, opt, false, true)})
 }
 
 // Dots draws a dot plot of values by label and writes it as SVG to w.
@@ -75,30 +73,38 @@ func Dots(w io.Writer, labels []string, values []float64, opt DotsOptions) ([]No
 
 // DotsScene builds the dot plot's scene without writing it.
 func DotsScene(labels []string, values []float64, opt DotsOptions) (*Scene, error) {
-	o := opt
-	o.Notes = nil
-	return figureScene(opt.Common, gridOptions{}, []Panel{alone(DotsPanel(labels, values, o))})
+	return figureScene(opt.Common, gridOptions{}, []Panel{rowPanel(labels, values, BarsOptions{Common: opt.Common, RowOptions: opt.RowOptions}, true, true)})
 }
 
 // BarsPanel plans a bar chart for a cell of a figure; the options' title
 // is the panel's heading.
 func BarsPanel(labels []string, values []float64, opt BarsOptions) Panel {
-	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
-		return newRowChart(f, labels, values, opt, false)
-	})
+	return rowPanel(labels, values, opt, false, false)
 }
 
 // DotsPanel plans a dot plot for a cell of a figure.
 func DotsPanel(labels []string, values []float64, opt DotsOptions) Panel {
-	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
-		return newRowChart(f, labels, values, BarsOptions{Common: opt.Common, RowOptions: opt.RowOptions}, true)
-	})
+	return rowPanel(labels, values, BarsOptions{Common: opt.Common, RowOptions: opt.RowOptions}, true, false)
 }
 
-// alone makes p the whole body of its figure: no heading of its own, the
-// figure's title says what it is.
-func alone(p Panel) Panel {
-	p.Title = ""
+// rowPanel is the Panel of a bar chart or dot plot. A chart drawn alone is
+// the whole body of its figure: no heading of its own (the figure's title
+// says what it is), the caller's notes already in the frame, and nothing
+// above it but the frame's gap.
+func rowPanel(labels []string, values []float64, opt BarsOptions, dots, alone bool) Panel {
+	if alone {
+		opt.Notes = nil
+	}
+	p := newPanel(opt.Common, func(f *frame) (panelPlan, error) {
+		c, err := newRowChart(f, labels, values, opt, dots)
+		if c != nil {
+			c.alone = alone
+		}
+		return c, err
+	})
+	if alone {
+		p.Title = ""
+	}
 	return p
 }
 
@@ -107,6 +113,9 @@ func alone(p Panel) Panel {
 type rowChart struct {
 	opt  BarsOptions // a dot plot's options, with the bar-only fields zero
 	dots bool
+	// alone: the chart is its figure's only panel, under the frame's gap
+	// rather than a panel's heading.
+	alone bool
 
 	f        *frame
 	rows     []row
@@ -310,37 +319,33 @@ func (c *rowChart) insideColour(fill Colour) Colour {
 	return col
 }
 
-// wrapLabels wraps every category label to at most maxLines lines of
-// width, noting each shortened one, and returns the lines with the widest
-// line's width and the most lines any label needs.
-func (c *rowChart) wrapLabels(width float64, maxLines int) ([][]string, float64, int) {
-	f, size := c.f, c.f.spec.text
-	wrapped := make([][]string, len(c.rows))
-	widest, most := 0.0, 1
+// wrapLabels writes the category axis: every label wrapped to at most
+// maxLines lines of width, each shortened one noted. It returns the axis
+// (its band still to be set) with the widest line's width and the most
+// lines any label needs.
+func (c *rowChart) wrapLabels(width float64, maxLines int, upright bool) (axis, float64, int) {
+	cats := make([]catLabel, len(c.rows))
 	for i, r := range c.rows {
-		text := r.label
+		cats[i] = catLabel{text: r.label, full: r.label, bold: r.highlight, fill: c.labelFill(r)}
 		if r.short != "" {
-			text = r.short
-		}
-		lines, cut := f.wrap(text, size, r.highlight, width, maxLines)
-		wrapped[i] = lines
-		if cut {
-			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
-		}
-		most = max(most, len(lines))
-		for _, l := range lines {
-			widest = math.Max(widest, f.measure(l, size, r.highlight))
+			cats[i].text = r.short
 		}
 	}
-	return wrapped, widest, most
+	a, widest, most, cut := c.f.categoryAxis(cats, 0, width, maxLines, upright)
+	for i, r := range c.rows {
+		if cut[i] {
+			c.f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", r.label))
+		}
+	}
+	return a, widest, most
 }
 
 // wrapLabelsQuiet is wrapLabels without its notes, for estimates.
-func (c *rowChart) wrapLabelsQuiet(width float64, maxLines int) ([][]string, float64, int) {
+func (c *rowChart) wrapLabelsQuiet(width float64, maxLines int, upright bool) (axis, float64, int) {
 	notes := len(c.f.scene.Notes)
-	w, widest, most := c.wrapLabels(width, maxLines)
+	a, widest, most := c.wrapLabels(width, maxLines, upright)
 	c.f.scene.Notes = c.f.scene.Notes[:notes]
-	return w, widest, most
+	return a, widest, most
 }
 
 // valueTexts formats every row's value label and measures it.
@@ -381,14 +386,6 @@ func (c *rowChart) labelFill(r row) Colour {
 		return c.f.th.muted
 	}
 	return c.f.th.text
-}
-
-// tooltip is the full label when the drawn lines shortened it.
-func tooltip(label string, lines []string) string {
-	if strings.Join(lines, " ") != label {
-		return label
-	}
-	return ""
 }
 
 // axisTitle names the value axis: what is measured and its unit.

@@ -46,7 +46,7 @@ func (c *rowChart) measureColumns(cellW float64, e edges) insets {
 	maxLines := 3
 	if band := (cellW - guess - sp.gap) / float64(n); band > sp.gap && v.labels {
 		c.abbreviateCalendar(band - sp.gap)
-		_, _, maxLines = c.wrapLabelsQuiet(band-sp.gap, 3)
+		_, _, maxLines = c.wrapLabelsQuiet(band-sp.gap, 3, false)
 	}
 	labelsH := float64(maxLines)*lh + sp.gap
 	if !v.labels {
@@ -81,13 +81,19 @@ func (c *rowChart) measureColumns(cellW float64, e edges) insets {
 		v.measured = (cellW - v.tickW - sp.gap) / float64(n)
 		notes, short := len(f.scene.Notes), c.shortLabels()
 		c.abbreviateCalendar(v.measured - sp.gap)
-		_, _, v.lines = c.wrapLabelsQuiet(v.measured-sp.gap, maxLines)
+		_, _, v.lines = c.wrapLabelsQuiet(v.measured-sp.gap, maxLines, false)
 		f.scene.Notes = f.scene.Notes[:notes]
 		for i := range c.rows {
 			c.rows[i].short = short[i]
 		}
 	}
 	in := insets{top: v.titleH + v.rt, bottom: v.rb}
+	if face := f.fonts.Face(false); hasPos && !c.alone {
+		// The value label over the tallest bar: a chart alone lets it
+		// reach into the frame's gap above, a panel keeps it under its
+		// heading.
+		in.top = v.titleH + math.Max(v.rt, sp.gap/2+face.Ascent(sp.text)+face.Descent(sp.text))
+	}
 	if v.labels {
 		in.bottom += sp.gap + float64(v.lines)*lh
 	}
@@ -127,7 +133,6 @@ func (c *rowChart) heightColumns(plotW, room float64) (float64, error) {
 // box's height and the categories its width.
 func (c *rowChart) drawColumns(plot layout.Box, e edges) placed {
 	f, sp, v := c.f, c.f.spec, &c.vc
-	lh := lineHeight(sp.text)
 	asc, desc := f.fonts.Face(false).Ascent(sp.text), f.fonts.Face(false).Descent(sp.text)
 	n := len(c.rows)
 	if title := c.axisTitle(); title != "" {
@@ -163,12 +168,14 @@ func (c *rowChart) drawColumns(plot layout.Box, e edges) placed {
 	if !showValues {
 		f.scene.Note("value-labels-dropped", false, "left out the value labels: even with three significant digits they are wider than the columns; the axis carries the values (or drop "+c.opt.name("Vertical")+")")
 	}
-	var wrapped [][]string
+	var cat axis
 	if v.labels {
 		c.abbreviateCalendar(band - sp.gap)
 		// Words wrap at their boundaries, up to the lines measured, before any is shortened.
-		wrapped, _, _ = c.wrapLabels(band-sp.gap, v.lines)
+		cat, _, _ = c.wrapLabels(band-sp.gap, v.lines, false)
+		cat.band = band
 	}
+	cd := axisDraw{pos: scale.Linear{R0: plotL}, labelAt: bottom + sp.gap + asc, labels: true}
 	p := placed{ys: ys, cats: make([]catPlace, n)}
 	for i, r := range c.rows {
 		cx := plotL + (float64(i)+0.5)*band
@@ -189,10 +196,7 @@ func (c *rowChart) drawColumns(plot layout.Box, e edges) placed {
 		if !v.labels {
 			continue
 		}
-		tip := tooltip(r.label, wrapped[i])
-		for j, l := range wrapped[i] {
-			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: cx, Y: bottom + sp.gap + asc + float64(j)*lh, Text: l, Size: sp.text, Bold: r.highlight, Fill: c.labelFill(r), Anchor: Middle, Tooltip: tip})
-		}
+		f.drawTick(cat, cd, i)
 	}
 	return p
 }

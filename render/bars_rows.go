@@ -15,7 +15,7 @@ type rowsFit struct {
 	labels    bool          // the panel labels its categories
 	ticks     bool          // the panel labels its value axis
 	maxLines  int           // lines a category label may take
-	wrapped   [][]string    // the category labels, wrapped
+	cat       axis          // the category axis, labels wrapped
 	labelCol  float64       // the widest label line
 	linesUsed int           // the most lines any label takes
 	vtext     []string      // value labels
@@ -47,10 +47,10 @@ func (c *rowChart) measureRows(cellW float64, e edges) insets {
 		}
 	}
 	h.labels = c.catLabels(e)
-	h.wrapped, h.labelCol, h.linesUsed = make([][]string, len(c.rows)), 0, 1
+	h.cat, h.labelCol, h.linesUsed = axis{}, 0, 1
 	h.plotL = 0
 	if h.labels {
-		h.wrapped, h.labelCol, h.linesUsed = c.wrapLabels(cellW*0.38, h.maxLines)
+		h.cat, h.labelCol, h.linesUsed = c.wrapLabels(cellW*0.38, h.maxLines, true)
 		h.plotL = h.labelCol + sp.gap*1.5
 	}
 	h.vtext, h.vw = c.valueTexts()
@@ -76,8 +76,9 @@ func (c *rowChart) heightRows(room float64) (float64, error) {
 		if h.band < 2*lh+sp.gap && h.linesUsed > 1 && h.labels {
 			// The room a grid gave is less than the figure's: one line
 			// of label, no wider than the column measured for two.
-			h.wrapped, _, h.linesUsed = c.wrapLabelsQuiet(h.labelCol, 1)
+			h.cat, _, h.linesUsed = c.wrapLabelsQuiet(h.labelCol, 1, true)
 		}
+		h.cat.band = h.band
 		return room, nil
 	}
 	if c.dots {
@@ -86,6 +87,7 @@ func (c *rowChart) heightRows(room float64) (float64, error) {
 	} else {
 		h.band = math.Max(float64(h.linesUsed)*lh+sp.gap*1.5, sp.text*2.1)
 	}
+	h.cat.band = h.band
 	return float64(n) * h.band, nil
 }
 
@@ -102,7 +104,7 @@ type rowGeom struct {
 // drawRows draws horizontal bars or dots, one row per category, with the
 // value domain spanning the plot box.
 func (c *rowChart) drawRows(plot layout.Box, e edges) placed {
-	sp, h := c.f.spec, &c.hz
+	f, sp, h := c.f, c.f.spec, &c.hz
 	c.fitTicks(plot.W, true)
 	g := rowGeom{top: plot.Y, band: h.band, radius: sp.text * 0.36, plotL: plot.X - h.rl, x0: plot.X, x1: plot.X + plot.W}
 	g.markH = math.Min(math.Max(g.band*0.7, sp.text*0.9), g.band-sp.gap/2)
@@ -119,7 +121,10 @@ func (c *rowChart) drawRows(plot layout.Box, e edges) placed {
 		if inside && math.Abs(r.value)*k < h.vw[i]+2*sp.gap {
 			inside = false // the grid gave a shorter axis than measured
 		}
-		end := c.drawRow(&g, i, r, h.wrapped[i], h.vtext[i], inside)
+		if h.labels {
+			f.drawTick(h.cat, axisDraw{vertical: true, pos: scale.Linear{R0: g.top}, labelAt: g.plotL - sp.gap*1.5, labels: true}, i)
+		}
+		end := c.drawRow(&g, i, r, h.vtext[i], inside)
 		p.cats[i] = catPlace{label: r.label, centre: g.top + (float64(i)+0.5)*g.band, size: g.band, end: end}
 	}
 	return p
@@ -277,19 +282,13 @@ func (c *rowChart) drawAxisBelow(g *rowGeom, bottom float64, labels bool) {
 	}
 }
 
-// drawRow draws row i: its label right-aligned against the plot, its bar or
-// dot, and its value label. It returns the x of the mark's far end.
-func (c *rowChart) drawRow(g *rowGeom, i int, r row, lines []string, vtext string, inside bool) float64 {
+// drawRow draws row i's bar or dot and its value label, after its label.
+// It returns the x of the mark's far end.
+func (c *rowChart) drawRow(g *rowGeom, i int, r row, vtext string, inside bool) float64 {
 	f, sp := c.f, c.f.spec
-	lh := lineHeight(sp.text)
 	face := f.fonts.Face(false)
 	cy := g.top + (float64(i)+0.5)*g.band
 	textY := cy + (face.Ascent(sp.text)-face.Descent(sp.text))/2
-	tip := tooltip(r.label, lines)
-	for j, l := range lines {
-		y := textY + (float64(j)-float64(len(lines)-1)/2)*lh
-		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: g.plotL - sp.gap*1.5, Y: y, Text: l, Size: sp.text, Bold: r.highlight, Fill: c.labelFill(r), Anchor: End, Tooltip: tip})
-	}
 	xv := round2(g.xs.Map(r.value))
 	if c.dots {
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-guide", Lines: [][]Point{{{g.x0, round2(cy)}, {xv, round2(cy)}}}, Stroke: f.th.context, StrokeWidth: 1, Join: JoinRound, Cap: CapRound, Dash: []float64{1, 3}})
