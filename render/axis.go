@@ -37,9 +37,9 @@ type axis struct {
 type axisKind int
 
 const (
-	numberTicks axisKind = iota // nice steps of 1, 2, 2.5 and 5
-	timeTicks                   // calendar steps, instants as Unix seconds
-	categoryTicks               // one band per category, ticks at the indexes (see categoryAxis)
+	numberTicks   axisKind = iota // nice steps of 1, 2, 2.5 and 5
+	timeTicks                     // calendar steps, instants as Unix seconds
+	categoryTicks                 // one band per category, ticks at the indexes (see categoryAxis)
 )
 
 // xKind says what the x values are, which decides their ticks.

@@ -74,4 +74,3 @@ func valueTicks(lo, hi float64, m, floor int, k valueKind) axis {
 	a.d0, a.d1 = extent(vals)
 	return a
 }
-
