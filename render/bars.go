@@ -34,7 +34,10 @@ type BarsOptions struct {
 	RowOptions
 	Additive bool // the values are parts of a whole (counts, sums), so Other may sum them
 	Vertical bool // stand the bars up; labels then sit under narrow columns
-	Percent  bool // show each value as a share of the total
+	Percent  bool // show each value as a share of the total (with series stacked: of its row's total)
+	// Layout says how SeriesBars draws several values per category:
+	// LayoutDots (the default), LayoutStack or LayoutSide.
+	Layout SeriesLayout
 }
 
 // DotsOptions configures a dot plot: like bars, but values are positions, so
@@ -128,12 +131,26 @@ type rowChart struct {
 
 	hz rowsFit // horizontal rows, as measured
 	vc colsFit // vertical columns, as measured
+
+	// names are the series of a chart of several values per category
+	// (nil for one value per category), drawn as layout says.
+	names  []string
+	layout SeriesLayout
+	sr     seriesFit
 }
 
 // newRowChart plans a bar chart or dot plot: it validates the data, applies
 // Percent, the order, Top and Other, and fixes the panel's own domain.
 func newRowChart(f *frame, labels []string, values []float64, opt BarsOptions, dots bool) (*rowChart, error) {
 	c := &rowChart{opt: opt, dots: dots, f: f}
+	return c.plan(labels, values, nil)
+}
+
+// plan builds the rows of the chart from parallel labels and values (and
+// with several series, each row's value in each series): the steps bars,
+// dots and their series share.
+func (c *rowChart) plan(labels []string, values []float64, series [][]float64) (*rowChart, error) {
+	f, opt := c.f, c.opt
 	if c.opt.Names == nil {
 		c.opt.Names = f.c.Names
 	}
@@ -142,7 +159,15 @@ func newRowChart(f *frame, labels []string, values []float64, opt BarsOptions, d
 	if err := checkRows(labels, values); err != nil {
 		return nil, err
 	}
-	if err := firstError(checkFinite("From", c.opt.From), checkFinite("To", c.opt.To), checkSpan("values and bounds", values, bounds(c.opt.From, c.opt.To))); err != nil {
+	all := values
+	for _, vs := range series {
+		for _, v := range vs {
+			if !math.IsNaN(v) {
+				all = append(all, v)
+			}
+		}
+	}
+	if err := firstError(checkFinite("From", c.opt.From), checkFinite("To", c.opt.To), checkSpan("values and bounds", all, bounds(c.opt.From, c.opt.To))); err != nil {
 		return nil, err
 	}
 	for _, n := range opt.Notes {
@@ -158,8 +183,16 @@ func newRowChart(f *frame, labels []string, values []float64, opt BarsOptions, d
 	c.rows = make([]row, len(labels))
 	for i := range labels {
 		c.rows[i] = row{label: labels[i], value: values[i], raw: values[i], highlight: hl[labels[i]]}
+		if series != nil {
+			c.rows[i].series = series[i]
+		}
 	}
-	if c.opt.Percent {
+	switch {
+	case c.opt.Percent && series != nil:
+		if err := c.rowShares(); err != nil {
+			return nil, err
+		}
+	case c.opt.Percent:
 		if err := c.toShares(); err != nil {
 			return nil, err
 		}
@@ -237,6 +270,9 @@ func (c *rowChart) valueLabels(e edges) bool {
 }
 
 func (c *rowChart) measure(f *frame, cellW float64, e edges) insets {
+	if c.names != nil {
+		return c.measureSeries(cellW, e)
+	}
 	if c.opt.Vertical {
 		return c.measureColumns(cellW, e)
 	}
@@ -244,6 +280,9 @@ func (c *rowChart) measure(f *frame, cellW float64, e edges) insets {
 }
 
 func (c *rowChart) height(f *frame, plotW, room float64) (float64, error) {
+	if c.names != nil {
+		return c.heightSeries(room)
+	}
 	if c.opt.Vertical {
 		return c.heightColumns(plotW, room)
 	}
@@ -253,9 +292,12 @@ func (c *rowChart) height(f *frame, plotW, room float64) (float64, error) {
 func (c *rowChart) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	first := len(f.scene.Marks)
 	var p placed
-	if c.opt.Vertical {
+	switch {
+	case c.names != nil:
+		p = c.drawSeries(plot)
+	case c.opt.Vertical:
 		p = c.drawColumns(plot, e)
-	} else {
+	default:
 		p = c.drawRows(plot, e)
 	}
 	p.text, p.marks = c.f.boxesSince(first)
@@ -264,6 +306,9 @@ func (c *rowChart) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 
 func (c *rowChart) describe() (string, string) {
 	d := c.describeText()
+	if c.names != nil {
+		d = c.describeSeries()
+	}
 	kind, _, _ := strings.Cut(d, ",")
 	return d, kind
 }
@@ -392,10 +437,14 @@ func (c *rowChart) labelFill(r row) Colour {
 func (c *rowChart) axisTitle() string {
 	name := c.opt.ValueName
 	if c.opt.Percent {
-		if name == "" {
-			return "Share of total (%)"
+		total := "total"
+		if c.names != nil {
+			total = "row total" // a stack of 100% rows
 		}
-		return "Share of total " + name + " (%)"
+		if name == "" {
+			return "Share of " + total + " (%)"
+		}
+		return "Share of " + total + " " + name + " (%)"
 	}
 	// A currency sign is on every tick already (see tickLabels).
 	if c.opt.Unit != "" && name != "" && !scale.IsCurrency(c.opt.Unit) && !namesUnit(name, c.opt.Unit) {
@@ -426,8 +475,25 @@ func (c *rowChart) labels() []string {
 	return l
 }
 
-// values returns the plotted values of the rows.
+// values returns the plotted values of the rows: with series, every
+// series value and a stack's totals.
 func (c *rowChart) values() []float64 {
+	if c.names != nil {
+		var v []float64
+		for _, r := range c.rows {
+			total := 0.0
+			for _, x := range r.series {
+				if !math.IsNaN(x) {
+					v = append(v, x)
+					total += x
+				}
+			}
+			if c.layout == LayoutStack {
+				v = append(v, total)
+			}
+		}
+		return v
+	}
 	v := make([]float64, len(c.rows))
 	for i, r := range c.rows {
 		v[i] = r.value

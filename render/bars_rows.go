@@ -137,7 +137,7 @@ func (c *rowChart) drawRows(plot layout.Box, e edges) placed {
 // then fit inside their bars give their room back (which only lengthens
 // the bars). It reports which labels sit inside.
 func (c *rowChart) fitValueAxis(plotL, right float64, vw []float64) (inside []bool, rl, rr float64) {
-	f, sp := c.f, c.f.spec
+	sp := c.f.spec
 	inside = make([]bool, len(c.rows))
 	radius := sp.text * 0.36
 	var x0, x1 float64
@@ -160,26 +160,7 @@ func (c *rowChart) fitValueAxis(plotL, right float64, vw []float64) (inside []bo
 	}
 	place := func() {
 		rl, rr := reserve()
-		for pass := 0; pass < 3; pass++ {
-			x0, x1 = plotL+rl, right-rr
-			c.fitTicks(x1-x0, true)
-			// The end tick labels are centred on their ticks: keep them in the cell.
-			labels := c.ax.labels
-			if k := len(labels); k > 0 {
-				lastHalf := f.measure(labels[k-1], sp.text, false) / 2
-				if x1+lastHalf > right {
-					rr = math.Max(rr, lastHalf)
-					continue
-				}
-				// A bound far below zero (a first label like "−1000×10²⁷")
-				// beside short category labels reaches past the left edge.
-				if firstHalf := f.measure(labels[0], sp.text, false) / 2; x0-firstHalf < 0 {
-					rl = math.Max(rl, firstHalf-plotL)
-					continue
-				}
-			}
-			break
-		}
+		x0, x1 = c.placeAxis(plotL, right, rl, rr)
 	}
 	place()
 	if c.dots {
@@ -220,6 +201,34 @@ func (c *rowChart) fitValueAxis(plotL, right float64, vw []float64) (inside []bo
 		}
 		place()
 	}
+}
+
+// placeAxis sets the pixel ends of the value domain in a cell from plotL
+// to right with room rl and rr beyond them, and fits the ticks to the
+// length between; the outer tick labels, centred on their ticks, widen
+// that room until they stay in the cell.
+func (c *rowChart) placeAxis(plotL, right, rl, rr float64) (x0, x1 float64) {
+	f, sp := c.f, c.f.spec
+	for pass := 0; pass < 3; pass++ {
+		x0, x1 = plotL+rl, right-rr
+		c.fitTicks(x1-x0, true)
+		labels := c.ax.labels
+		if k := len(labels); k > 0 {
+			lastHalf := f.measure(labels[k-1], sp.text, false) / 2
+			if x1+lastHalf > right {
+				rr = math.Max(rr, lastHalf)
+				continue
+			}
+			// A bound far below zero (a first label like "−1000×10²⁷")
+			// beside short category labels reaches past the left edge.
+			if firstHalf := f.measure(labels[0], sp.text, false) / 2; x0-firstHalf < 0 {
+				rl = math.Max(rl, firstHalf-plotL)
+				continue
+			}
+		}
+		break
+	}
+	return x0, x1
 }
 
 // maxLabelShare is the most of a bar row the value labels outside the bars
