@@ -236,7 +236,9 @@ func (c *rowChart) drawSeries(plot layout.Box) placed {
 					continue
 				}
 				x0, x1 := round2(g.xs.Map(cum)), round2(g.xs.Map(cum+v))
-				f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: x0, Y: cy - g.markH/2, W: x1 - x0, H: g.markH, Fill: h.colours[s], Attrs: c.seriesAttrs(r, s)})
+				// data-start is where the segment starts on the value axis.
+				attrs := append(c.seriesAttrs(r, s), Attr{"start", dataNumber(cum)})
+				f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark", X: x0, Y: cy - g.markH/2, W: x1 - x0, H: g.markH, Fill: h.colours[s], Attrs: attrs})
 				cum += v
 			}
 			end = round2(g.xs.Map(cum))

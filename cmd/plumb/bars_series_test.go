@@ -1,0 +1,86 @@
+package main
+
+import (
+	"bytes"
+	"strings"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+)
+
+// Invented landings: long (one row per harbour, year and catch; the East
+// quay has no 2025 row and West landing two 2026 rows) and wide.
+const (
+	landingsLong = "harbour,year,catch_t\nNorth harbour,2024,120\nNorth harbour,2025,100\nNorth harbour,2026,90\n" +
+		"East quay,2024,80\nEast quay,2026,99\nSouth pier,2024,45\nSouth pier,2025,60\nSouth pier,2026,70\n" +
+		"West landing,2024,10\nWest landing,2025,5\nWest landing,2026,9\nWest landing,2026,3\n"
+	landingsWide = "harbour,nets,lines,pots,traps\nNorth harbour,50,40,30,1\nEast quay,20,,60,2\nSouth pier,10,15,20,3\n"
+)
+
+// runCSV runs plumb on a CSV given on standard input.
+func runCSV(t *testing.T, csv string, args ...string) (out, errs string, code int) {
+	t.Helper()
+	var o, e bytes.Buffer
+	code = run(append([]string{args[0], "-", "--format", "csv"}, args[1:]...), strings.NewReader(csv), &o, &e)
+	return o.String(), e.String(), code
+}
+
+func TestSeriesCLI(t *testing.T) {
+	tests := []struct {
+		name  string
+		csv   string
+		args  []string
+		marks int    // data marks drawn
+		want  string // in the SVG
+	}{
+		// One dot per category and series: 4 harbours x 3 years, one missing.
+		{"dots long", landingsLong, []string{"dots", "--series", "year"}, 11, `data-series="2025"`},
+		{"bars long default draws dots", landingsLong, []string{"bars", "--label", "harbour", "--series", "year", "--value", "catch_t"}, 11, "<circle"},
+		{"stack long", landingsLong, []string{"bars", "--series", "year", "--stack"}, 11, `data-start=`},
+		{"stack percent", landingsLong, []string{"bars", "--series", "year", "--stack", "--percent"}, 11, "Share of row total"},
+		{"side wide", landingsWide, []string{"bars", "--value", "nets,lines,pots", "--side"}, 8, `data-series="pots"`},
+		{"dots wide", landingsWide, []string{"dots", "--value", "nets,lines,pots,traps"}, 11, `data-series="traps"`},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errs, code := runCSV(t, tc.csv, append(tc.args, "--quiet")...)
+			require.Equal(t, exitOK, code, errs)
+			root := checkFigure(t, []byte(out))
+			n := len(root.all("circle", "plumb-mark")) + len(root.all("rect", "plumb-mark"))
+			assert.Equal(t, tc.marks, n)
+			assert.Contains(t, out, tc.want)
+			if tc.args[0] == "bars" && strings.Contains(out, "<rect") {
+				checkBars(t, root)
+			}
+		})
+	}
+	// West landing's two 2026 rows are summed, and the note says so.
+	_, errs, code := runCSV(t, landingsLong, "dots", "--series", "year", "--agg", "sum")
+	require.Equal(t, exitOK, code, errs)
+	assert.Contains(t, errs, `"West landing / 2026" (2 rows)`)
+}
+
+func TestSeriesCLIErrors(t *testing.T) {
+	tests := []struct {
+		name string
+		csv  string
+		args []string
+		code int
+		want string
+	}{
+		{"four side by side", landingsWide, []string{"bars", "--value", "nets,lines,pots,traps", "--side"}, exitData, "--side: 4 series side by side"},
+		{"percent needs stack", landingsLong, []string{"bars", "--series", "year", "--percent"}, exitUsage, "add --stack"},
+		{"stack needs series", landingsLong, []string{"bars", "--stack"}, exitUsage, "--series COLUMN"},
+		{"both layouts", landingsLong, []string{"bars", "--series", "year", "--stack", "--side"}, exitUsage, "give one"},
+		{"series with two values", landingsWide, []string{"bars", "--series", "harbour", "--value", "nets,lines"}, exitUsage, "one value column"},
+		{"missing series column", landingsLong, []string{"bars", "--label", "harbour", "--value", "catch_t", "--series", "yaer"}, exitData, "yaer"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			_, errs, code := runCSV(t, tc.csv, tc.args...)
+			assert.Equal(t, tc.code, code, errs)
+			assert.Contains(t, errs, tc.want)
+		})
+	}
+}
