@@ -187,12 +187,7 @@ func (c *rowChart) plan(labels []string, values []float64, series [][]float64) (
 			c.rows[i].series = series[i]
 		}
 	}
-	switch {
-	case c.opt.Percent && series != nil:
-		if err := c.rowShares(); err != nil {
-			return nil, err
-		}
-	case c.opt.Percent:
+	if c.opt.Percent && series == nil {
 		if err := c.toShares(); err != nil {
 			return nil, err
 		}
@@ -202,6 +197,13 @@ func (c *rowChart) plan(labels []string, values []float64, series [][]float64) (
 	}
 	if err := c.limitRows(); err != nil {
 		return nil, err
+	}
+	// Rows of 100% are ordered and folded by their amounts, then each is
+	// made shares of its own total (Other's too, from its summed parts).
+	if c.opt.Percent && series != nil {
+		if err := c.rowShares(); err != nil {
+			return nil, err
+		}
 	}
 	if err := c.domain(); err != nil {
 		return nil, err

@@ -225,7 +225,7 @@ func (c *rowChart) valueRange() (lo, hi float64) {
 }
 
 // rowShares turns every stacked row into shares of its own total: rows of
-// 100%, ordered by the first series' share.
+// 100%, still ordered by their amounts.
 func (c *rowChart) rowShares() error {
 	for i := range c.rows {
 		r := &c.rows[i]
@@ -240,10 +240,6 @@ func (c *rowChart) rowShares() error {
 		}
 		for s, v := range r.series {
 			r.series[s] = 100 * v / total
-		}
-		r.value = r.series[0]
-		if math.IsNaN(r.value) {
-			r.value = 0
 		}
 	}
 	c.opt.Unit = "%"
