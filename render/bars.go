@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"strings"
 
 	"plumb/layout"
@@ -197,6 +198,10 @@ func (c *rowChart) plan(labels []string, values []float64, series [][]float64) (
 	}
 	if err := c.limitRows(); err != nil {
 		return nil, err
+	}
+	if slices.ContainsFunc(c.values(), func(v float64) bool { return math.IsInf(v, 0) }) {
+		return nil, &RefusalError{Reason: fmt.Sprintf("the values combined into Other, or a stack's parts, add up to more than the largest number, %.1e", math.MaxFloat64),
+			Instead: fmt.Sprintf("show every category with %s -1, combine them with %s mean, or give the values in a larger unit", c.opt.name("Top"), c.opt.name("Other"))}
 	}
 	// Rows of 100% are ordered and folded by their amounts, then each is
 	// made shares of its own total (Other's too, from its summed parts).

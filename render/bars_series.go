@@ -164,10 +164,19 @@ func newSeriesChart(f *frame, labels []string, series []RowSeries, opt BarsOptio
 		switch {
 		case n == 0:
 			return nil, fmt.Errorf("label %q has no value in any series: leave it out", labels[i])
+		case layout == LayoutStack && math.IsInf(sum, 0):
+			return nil, &OptionError{Option: "Layout", Value: string(LayoutStack), Err: &RefusalError{
+				Reason:  fmt.Sprintf("the parts of %q add up to more than the largest number, %.1e", labels[i], math.MaxFloat64),
+				Instead: "draw one dot per series (the default layout), or give the values in a larger unit"}}
 		case layout == LayoutStack:
 			key[i] = sum
 		default:
-			key[i] = sum / float64(n)
+			// The mean as a sum of parts, which no two large values overflow.
+			for _, ser := range series {
+				if v := ser.Values[i]; !math.IsNaN(v) {
+					key[i] += v / float64(n)
+				}
+			}
 		}
 	}
 	c := &rowChart{opt: opt, dots: dots, f: f, names: names, layout: layout}

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"fmt"
 	"strings"
 	"testing"
 
@@ -82,5 +83,33 @@ func TestSeriesCLIErrors(t *testing.T) {
 			assert.Equal(t, tc.code, code, errs)
 			assert.Contains(t, errs, tc.want)
 		})
+	}
+}
+
+// Several series of extreme values give a figure without NaN or Inf
+// anywhere, or exit 1 with a message.
+func TestSeriesExtremeValues(t *testing.T) {
+	tables := []string{
+		"label,a,b\nNorth,1.7e308,1.7e308\nSouth,1.7e308,1\nEast,8.5e307,3\n",
+		"label,a,b\nNorth,1.7976931348623157e308,1\nSouth,-1.7976931348623157e308,2\nEast,1,3\n",
+		"label,a,b\nNorth,1e-300,1e300\nSouth,1e300,1\nEast,1,1e-300\n",
+		"label,a,b\nNorth,5e-324,1e-323\nSouth,0,0\nEast,0,5e-324\n",
+	}
+	for i, data := range tables {
+		for _, v := range [][]string{{"dots"}, {"bars"}, {"bars", "--stack"}, {"bars", "--stack", "--percent"}, {"bars", "--side"}} {
+			t.Run(fmt.Sprint(i, v), func(t *testing.T) {
+				out, errs, code := runCSV(t, data, append(v, "--value", "a,b", "--quiet")...)
+				switch code {
+				case exitOK:
+					checkFigure(t, []byte(out))
+					assert.False(t, notFinite.MatchString(out), "a number that is not finite in the figure")
+				case exitData:
+					assert.NotEmpty(t, errs)
+					assert.False(t, notFinite.MatchString(errs), errs)
+				default:
+					t.Fatalf("exit %d: %s", code, errs)
+				}
+			})
+		}
 	}
 }
