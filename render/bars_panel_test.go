@@ -87,6 +87,17 @@ func TestBarsGridSharedScales(t *testing.T) {
 				ratios = append(ratios, length/v)
 			}
 			require.Len(t, ratios, 16)
+			// Each category's place: its centre and the end of its bar, for
+			// the layers drawn over the panel.
+			first := res.placed[0].cats[0]
+			assert.Equal(t, harbours[0], first.label)
+			if vertical {
+				assert.InDelta(t, res.placed[0].ys.Map(catches[0][0]), first.end, 0.01)
+			} else {
+				assert.InDelta(t, res.placed[0].xs.Map(catches[0][0]), first.end, 0.01)
+			}
+			assert.NotEmpty(t, res.placed[0].text)
+			assert.Len(t, res.placed[0].marks, 4)
 			for _, r := range ratios {
 				assert.InDelta(t, math.Abs(want), r, 0.02, "bar length per unit")
 			}
@@ -170,9 +181,19 @@ func TestBarsPanelsInRandomBoxes(t *testing.T) {
 				values[j] = (r.Float64()*1.2 - 0.2) * scaleV
 			}
 			c := Common{Title: fmt.Sprintf("Panel %d", i+1)}
-			if r.IntN(3) == 0 {
+			second := make([]float64, k)
+			for j := range second {
+				second[j] = values[j] * (0.5 + r.Float64())
+			}
+			series := []RowSeries{{"this year", values}, {"last year", second}}
+			switch r.IntN(5) {
+			case 0:
 				panels[i] = DotsPanel(labels, values, DotsOptions{Common: c})
-			} else {
+			case 1:
+				panels[i] = SeriesDotsPanel(labels, series, DotsOptions{Common: c})
+			case 2:
+				panels[i] = SeriesBarsPanel(labels, series, BarsOptions{Common: c, Layout: LayoutSide})
+			default:
 				panels[i] = BarsPanel(labels, values, BarsOptions{Common: c, Vertical: vertical})
 			}
 		}

@@ -116,16 +116,27 @@ func (c *rowChart) drawRows(plot layout.Box, e edges) placed {
 	c.drawAxisBelow(&g, bottom, h.ticks)
 	k := (g.x1 - g.x0) / (c.d1 - c.d0)
 	p := placed{xs: g.xs, horizontal: true, cats: make([]catPlace, len(c.rows))}
+	dropped := 0
 	for i, r := range c.rows {
-		inside := h.inside[i]
+		inside, vtext := h.inside[i], h.vtext[i]
 		if inside && math.Abs(r.value)*k < h.vw[i]+2*sp.gap {
-			inside = false // the grid gave a shorter axis than measured
+			// The grid gave a shorter axis than measured: beside the bar
+			// if the room measured holds it, else the axis says the value.
+			inside = false
+			xv := g.xs.Map(r.value)
+			if r.value < 0 && xv-sp.gap-h.vw[i] < plot.X-h.rl || r.value >= 0 && xv+sp.gap+h.vw[i] > plot.X+plot.W+h.rr {
+				vtext = ""
+				dropped++
+			}
 		}
 		if h.labels {
 			f.drawTick(h.cat, axisDraw{vertical: true, pos: scale.Linear{R0: g.top}, labelAt: g.plotL - sp.gap*1.5, labels: true}, i)
 		}
-		end := c.drawRow(&g, i, r, h.vtext[i], inside)
+		end := c.drawRow(&g, i, r, vtext, inside)
 		p.cats[i] = catPlace{label: r.label, centre: g.top + (float64(i)+0.5)*g.band, size: g.band, end: end}
+	}
+	if dropped > 0 {
+		f.scene.Note("value-labels-dropped", false, fmt.Sprintf("left out %d value %s that fit neither in nor beside %s bars in this panel; the axis carries the values", dropped, plural(dropped, "label", "labels"), plural(dropped, "its", "their")))
 	}
 	return p
 }
@@ -315,6 +326,9 @@ func (c *rowChart) drawRow(g *rowGeom, i int, r row, vtext string, inside bool) 
 		fill = c.insideColour(c.fill(r))
 	}
 	// Inside a bar the label sits against its end; outside, beyond it.
+	if vtext == "" {
+		return xv
+	}
 	if (r.value < 0) != inside {
 		f.text(xv-sp.gap, textY, vtext, sp.text, false, fill, "plumb-value", End)
 	} else {
