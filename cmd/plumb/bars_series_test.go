@@ -113,3 +113,38 @@ func TestSeriesExtremeValues(t *testing.T) {
 		}
 	}
 }
+
+// FuzzSeriesCharts draws random tables as several values per category,
+// long and wide, in every layout: a figure without NaN or Inf, or exit 1
+// with a message; never a panic or a usage error.
+func FuzzSeriesCharts(f *testing.F) {
+	for _, seed := range []string{landingsLong, landingsWide, "a,b,c\nx,1,\ny,,2\n", "a,b,c\n\"<i>\",1e308,-1e308\nq,0,0\n", "a,b,c\nx,y,1\nx,y,2\n"} {
+		for v := range uint8(6) {
+			f.Add(seed, v)
+		}
+	}
+	variants := [][]string{
+		{"dots", "--series", "b"},
+		{"bars", "--series", "b", "--stack"},
+		{"bars", "--series", "b", "--stack", "--percent", "--for", "print"},
+		{"bars", "--value", "b,c", "--side", "--for", "slide"},
+		{"dots", "--value", "b,c", "--top", "2"},
+		{"bars", "--value", "b,c", "--stack", "--top", "2", "--order", "label"},
+	}
+	f.Fuzz(func(t *testing.T, data string, variant uint8) {
+		args := append(variants[int(variant)%len(variants)], "--quiet")
+		out, errs, code := runCSV(t, data, args...)
+		switch code {
+		case exitOK:
+			if !notFinite.MatchString(data) {
+				checkNoNaN(t, []byte(out))
+			}
+		case exitData:
+			if errs == "" {
+				t.Fatalf("%v on %q: exit 1 without a message", args, data)
+			}
+		default:
+			t.Fatalf("%v on %q: exit %d: %s", args, data, code, errs)
+		}
+	})
+}
