@@ -160,7 +160,7 @@ func (c *rowChart) plan(labels []string, values []float64, series [][]float64) (
 	if err := checkRows(labels, values); err != nil {
 		return nil, err
 	}
-	all := values
+	all := slices.Clone(values)
 	for _, vs := range series {
 		for _, v := range vs {
 			if !math.IsNaN(v) {
@@ -264,7 +264,7 @@ func (c *rowChart) catLabels(e edges) bool {
 	return e.left
 }
 
-// tickLabels reports whether this panel labels its value axis: always on
+// valueLabels reports whether this panel labels its value axis: always on
 // its own scale, on a shared one only on the grid's outer side.
 func (c *rowChart) valueLabels(e edges) bool {
 	if !c.dom.shared {
