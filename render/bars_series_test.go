@@ -49,6 +49,7 @@ func TestSeriesDotsOneDotPerValue(t *testing.T) {
 		seen[key] = true
 	}
 	assert.False(t, seen["East quay/2025"])
+	assert.Equal(t, "Dot plot of values by category", s.Title, "an untitled chart's accessible name")
 	// One axis: x is linear in the value across every series.
 	x := func(m Mark) (float64, float64) {
 		v, err := strconv.ParseFloat(markAttr(m, "value"), 64)
