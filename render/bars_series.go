@@ -127,10 +127,10 @@ func newSeriesChart(f *frame, labels []string, series []RowSeries, opt BarsOptio
 			Instead: "draw one dot per series on one axis (the default layout), stack them if they are parts of a whole, or one panel per series"}}
 	}
 	if opt.Vertical {
-		return nil, &OptionError{Option: "Vertical", Value: "true", Err: errors.New("several values per category are drawn in horizontal rows; leave it out")}
+		return nil, &OptionError{Option: "Vertical", Err: errors.New("several values per category are drawn in horizontal rows; leave it out")}
 	}
 	if opt.Percent && layout != LayoutStack {
-		return nil, &OptionError{Option: "Percent", Value: "true", Err: fmt.Errorf("shares of a row are drawn as a stack: use %s stack", opt.name("Layout"))}
+		return nil, &OptionError{Option: "Percent", Err: fmt.Errorf("shares of a row are drawn as a stack: use %s stack", opt.name("Layout"))}
 	}
 	names := make([]string, len(series))
 	for s, ser := range series {
