@@ -246,3 +246,24 @@ func TestSeriesTextApart(t *testing.T) {
 		t.Run(fmt.Sprint(trial), func(t *testing.T) { assertNoOverlap(t, s) })
 	}
 }
+
+// BenchmarkSeriesStack plans, folds and draws 10,000 categories of three
+// series into a stack of DefaultTop rows.
+func BenchmarkSeriesStack(b *testing.B) {
+	r := rand.New(rand.NewPCG(1, 2))
+	n := 10_000
+	labels := make([]string, n)
+	series := []RowSeries{{"nets", make([]float64, n)}, {"pots", make([]float64, n)}, {"lines", make([]float64, n)}}
+	for i := range labels {
+		labels[i] = fmt.Sprintf("Landing %d", i)
+		for s := range series {
+			series[s].Values[i] = r.Float64() * 1000
+		}
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := SeriesBarsScene(labels, series, BarsOptions{Layout: LayoutStack}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
