@@ -247,7 +247,7 @@ func rowsPanel(c Common, labels []string, values []float64, vertical, dots bool)
 	})
 }
 
-func seriesPanel(c Common, x, y []float64, isTime bool) Panel {
+func annotSeriesPanel(c Common, x, y []float64, isTime bool) Panel {
 	return newPanel(c, func(*frame) (panelPlan, error) {
 		return &seriesPlan{x: x, y: y, time: isTime}, nil
 	})

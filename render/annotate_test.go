@@ -55,7 +55,7 @@ func TestRefAtAxisValue(t *testing.T) {
 		{"horizontal bars", func(c Common) Panel { return rowsPanel(c, islands, vals, false, false) }, 100},
 		{"columns", func(c Common) Panel { return rowsPanel(c, islands, vals, true, false) }, 100},
 		{"dots", func(c Common) Panel { return rowsPanel(c, islands, vals, false, true) }, 80},
-		{"series", func(c Common) Panel { return seriesPanel(c, []float64{1, 2, 3, 4, 5}, vals, false) }, 100},
+		{"series", func(c Common) Panel { return annotSeriesPanel(c, []float64{1, 2, 3, 4, 5}, vals, false) }, 100},
 	}
 	for _, tc := range cases {
 		t.Run(tc.name, func(t *testing.T) {
@@ -127,7 +127,7 @@ func TestAnnotationsWidenTheDomain(t *testing.T) {
 		Events:  []Event{{X: -3, Text: "Survey starts"}},
 		Periods: []Period{{From: 8, To: 12, Text: "Dry dock"}},
 	}}
-	s, p, err = drawOne(t, c, seriesPanel(c, []float64{1, 2, 3, 4, 5, 6}, []float64{3, 5, 4, 6, 7, 6}, false))
+	s, p, err = drawOne(t, c, annotSeriesPanel(c, []float64{1, 2, 3, 4, 5, 6}, []float64{3, 5, 4, 6, 7, 6}, false))
 	require.NoError(t, err)
 	assert.LessOrEqual(t, p.xs.D0, -3.0)
 	assert.GreaterOrEqual(t, p.xs.D1, 12.0)
@@ -161,7 +161,7 @@ func TestEventAndPeriodOnDates(t *testing.T) {
 		Events:  []Event{{At: at, Text: "New timetable"}},
 		Periods: []Period{{FromAt: day(2021, 3, 1), ToAt: day(2021, 6, 1), Text: "Harbour works"}},
 	}}
-	s, p, err := drawOne(t, c, seriesPanel(c, x, y, true))
+	s, p, err := drawOne(t, c, annotSeriesPanel(c, x, y, true))
 	require.NoError(t, err)
 	ev := marksOf(s, "plumb-event")
 	require.Len(t, ev, 1)
@@ -186,7 +186,7 @@ func TestEventAndPeriodOnDates(t *testing.T) {
 	// A number given on a date axis, and a date on a number axis, are
 	// refused with the reason.
 	c = Common{Annotations: Annotations{Events: []Event{{X: 2021}}}}
-	_, _, err = drawOne(t, c, seriesPanel(c, x, y, true))
+	_, _, err = drawOne(t, c, annotSeriesPanel(c, x, y, true))
 	var oe *OptionError
 	require.ErrorAs(t, err, &oe)
 	assert.Equal(t, "Events", oe.Option)
@@ -200,7 +200,7 @@ func TestEventAndPeriodOnDates(t *testing.T) {
 			xs = []float64{2019, 2020, 2021, 2022}
 		}
 		c = Common{Annotations: Annotations{Events: []Event{both}}}
-		s, _, err = drawOne(t, c, seriesPanel(c, xs, y[:len(xs)], isTime))
+		s, _, err = drawOne(t, c, annotSeriesPanel(c, xs, y[:len(xs)], isTime))
 		require.NoError(t, err)
 		assert.Len(t, marksOf(s, "plumb-event"), 1)
 	}
@@ -256,7 +256,7 @@ func TestCalloutOnNegativeMarks(t *testing.T) {
 func TestAnnotationErrors(t *testing.T) {
 	vals := []float64{42, 118, 75}
 	rows := func(c Common) Panel { return rowsPanel(c, islands[:3], vals, false, false) }
-	series := func(c Common) Panel { return seriesPanel(c, []float64{1, 2, 3}, vals, false) }
+	series := func(c Common) Panel { return annotSeriesPanel(c, []float64{1, 2, 3}, vals, false) }
 	day := time.Date(2021, 1, 1, 0, 0, 0, 0, time.UTC)
 	cases := []struct {
 		name   string
@@ -293,12 +293,13 @@ func TestAnnotationErrors(t *testing.T) {
 // A chart that joins a figure whole (not yet a plan) reports no scales:
 // its annotations are refused rather than drawn in the wrong place or
 // dropped.
-func TestAnnotationsOnWholeChartsAreRefused(t *testing.T) {
-	c := Common{Annotations: Annotations{Refs: []Ref{{Value: 2}}}}
-	_, err := FigureScene(FigureOptions{}, BarsPanel([]string{"a", "b"}, []float64{1, 3}, BarsOptions{Common: c}))
-	var oe *OptionError
-	require.ErrorAs(t, err, &oe)
-	assert.Equal(t, "Refs", oe.Option)
+func TestAnnotationsOnFigurePanels(t *testing.T) {
+	// Every chart is a panel plan, so a panel of a figure draws its own
+	// annotations where its own axis puts them.
+	c := Common{Title: "a", Annotations: Annotations{Refs: []Ref{{Value: 2, Text: "target"}}}}
+	s, err := FigureScene(FigureOptions{}, BarsPanel([]string{"a", "b"}, []float64{1, 3}, BarsOptions{Common: c}), BarsPanel([]string{"c", "d"}, []float64{4, 5}, BarsOptions{}))
+	require.NoError(t, err)
+	assert.Equal(t, 1, classCount(s, "plumb-ref"), "only the panel that asked draws the line")
 }
 
 // Property: whatever the annotations, the chart kind, the medium and the
@@ -359,7 +360,7 @@ func TestAnnotationsNeverOverlap(t *testing.T) {
 			for i := range xs {
 				xs[i] = float64(i)
 			}
-			p = seriesPanel(c, xs, vals, false)
+			p = annotSeriesPanel(c, xs, vals, false)
 		default:
 			p = rowsPanel(c, labels, vals, kind == 1, kind == 2)
 		}
@@ -486,7 +487,7 @@ func TestAnnotationsInAGrid(t *testing.T) {
 		if i == 0 {
 			a.Refs = []Ref{{Value: 40, Text: "Capacity"}}
 		}
-		p := seriesPanel(Common{Annotations: a}, x, y, false)
+		p := annotSeriesPanel(Common{Annotations: a}, x, y, false)
 		p.Title = fmt.Sprintf("Vessel %c", 'A'+i)
 		panels = append(panels, p)
 	}

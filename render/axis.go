@@ -25,6 +25,11 @@ type axis struct {
 	// ends on its outer ticks or at the data, whichever is further out, so
 	// that labels are measured where they will be drawn.
 	extent func([]float64) (d0, d1 float64)
+	// cats are the written labels of a category axis, one per tick, and
+	// band the length of each category's band.
+	cats    []catTick
+	band    float64
+	upright bool // a category axis down the side of a plot
 }
 
 // axisKind says what an axis's values are, which decides its ticks and
@@ -32,8 +37,9 @@ type axis struct {
 type axisKind int
 
 const (
-	numberTicks axisKind = iota // nice steps of 1, 2, 2.5 and 5
-	timeTicks                   // calendar steps, instants as Unix seconds
+	numberTicks   axisKind = iota // nice steps of 1, 2, 2.5 and 5
+	timeTicks                     // calendar steps, instants as Unix seconds
+	categoryTicks                 // one band per category, ticks at the indexes (see categoryAxis)
 )
 
 // xKind says what the x values are, which decides their ticks.
@@ -156,10 +162,13 @@ func thin(a axis, stride int) axis {
 			anchor = i
 		}
 	}
-	out := axis{kind: a.kind, d0: a.d0, d1: a.d1, label: a.label, extent: a.extent}
+	out := axis{kind: a.kind, d0: a.d0, d1: a.d1, label: a.label, extent: a.extent, band: a.band, upright: a.upright}
 	for i := range a.ticks {
 		if (i-anchor)%stride == 0 {
 			out.ticks, out.labels = append(out.ticks, a.ticks[i]), append(out.labels, a.labels[i])
+			if a.cats != nil {
+				out.cats = append(out.cats, a.cats[i])
+			}
 		}
 	}
 	if a.label != nil && (len(out.ticks) > 1 || a.kind == numberTicks) {
@@ -270,6 +279,9 @@ func innerTicks(lo, hi float64, m int, integer bool) []float64 {
 // labelsFit reports whether neighbouring tick labels keep one text height
 // apart on an axis of this length.
 func (f *frame) labelsFit(a axis, length float64) bool {
+	if a.kind == categoryTicks {
+		return f.categoriesFit(a)
+	}
 	if len(a.ticks) < 2 {
 		return true
 	}
@@ -464,6 +476,19 @@ type axisDraw struct {
 // line before its label, so that marks drawn later cover the grid. It is
 // the one drawing path of every chart's axes.
 func (f *frame) draw(a axis, d axisDraw) {
+	for i := range a.ticks {
+		f.drawTick(a, d, i)
+	}
+}
+
+// drawTick draws tick i of the axis: its line and its label, or a
+// category's label lines (categories have bands, not grid lines). Charts
+// that draw each category's label beside its mark call it tick by tick.
+func (f *frame) drawTick(a axis, d axisDraw, i int) {
+	if a.kind == categoryTicks {
+		f.drawCategory(a, d, i)
+		return
+	}
 	sp := f.spec
 	face := f.fonts.Face(false)
 	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
@@ -471,23 +496,22 @@ func (f *frame) draw(a axis, d axisDraw) {
 	if d.tickMarks {
 		class, stroke = "plumb-tick-mark", f.th.muted
 	}
-	for i, t := range a.ticks {
-		p := round2(d.pos.Map(t))
-		if !(d.baseline && t == 0) {
-			line := []Point{{p, d.from}, {p, d.to}}
-			if d.vertical {
-				line = []Point{{d.from, p}, {d.to, p}}
-			}
-			f.scene.Add(Mark{Kind: Path, Class: class, Lines: [][]Point{line}, Stroke: stroke, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
-		}
-		if !d.labels || a.labels[i] == "" {
-			continue
-		}
+	t := a.ticks[i]
+	p := round2(d.pos.Map(t))
+	if !(d.baseline && t == 0) {
+		line := []Point{{p, d.from}, {p, d.to}}
 		if d.vertical {
-			f.text(d.labelAt, p+(asc-desc)/2, a.labels[i], sp.text, false, f.th.muted, "plumb-tick", End)
-		} else {
-			f.text(p, d.labelAt, a.labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
+			line = []Point{{d.from, p}, {d.to, p}}
 		}
+		f.scene.Add(Mark{Kind: Path, Class: class, Lines: [][]Point{line}, Stroke: stroke, StrokeWidth: 1, Join: JoinRound, Cap: CapRound})
+	}
+	if !d.labels || a.labels[i] == "" {
+		return
+	}
+	if d.vertical {
+		f.text(d.labelAt, p+(asc-desc)/2, a.labels[i], sp.text, false, f.th.muted, "plumb-tick", End)
+	} else {
+		f.text(p, d.labelAt, a.labels[i], sp.text, false, f.th.muted, "plumb-tick", Middle)
 	}
 }
 
@@ -518,75 +542,6 @@ func (f *frame) drawXAxis(a axis, left float64, w int, bottom float64, labels bo
 		return bottom
 	}
 	return top + lineHeight(sp.text)
-}
-
-// valueKind says how the value axis of bars and dots is ticked.
-type valueKind struct {
-	zero     bool // the domain includes zero: bars grow from it
-	from, to bool // an end set by the user: kept, the ticks fall inside it
-	integer  bool // whole-number data: whole-number steps
-	label    func([]float64) []string
-}
-
-// fitValue chooses the ticks of a bar or dot chart's value axis of the
-// given length over the data [lo, hi]: about one per 75 px at screen size
-// (scale.TickTarget), fewer when their labels would touch, but never fewer
-// than scale.MinTicks (three beyond 150 px), zero labelled when inside,
-// whole numbers for whole-number data. Labels stacked up a vertical axis
-// need only a line apart, so it takes more ticks and no label test. The
-// axis's domain is the one its ticks give (see axis.extent).
-func (f *frame) fitValue(lo, hi, length float64, horizontal bool, k valueKind) axis {
-	sp := f.spec
-	target := scale.TickTarget(length, sp.text)
-	if !horizontal {
-		target = scale.TickTarget(length*1.4, sp.text)
-	}
-	floor := f.minTicks(length)
-	a := valueTicks(lo, hi, target, floor, k)
-	for m := target - 1; horizontal && m >= floor && len(a.ticks) >= 2 && !f.labelsFit(a, length); m-- {
-		a = valueTicks(lo, hi, m, floor, k)
-	}
-	if !horizontal {
-		return a
-	}
-	// The tick search keeps zero and nice steps, so on a very short axis
-	// its fewest ticks may still be too many to label.
-	return f.thinToFit(a, length)
-}
-
-// valueTicks computes ticks with about m values (at least floor) over
-// [lo, hi], widened to zero for bars. An end set by the user is kept and
-// the ticks fall inside it; the other end extends to its outer tick.
-func valueTicks(lo, hi float64, m, floor int, k valueKind) axis {
-	if k.zero {
-		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
-	}
-	t := scale.NiceTicks(lo, hi, m, scale.TickOptions{Min: floor, Zero: true, Integer: k.integer})
-	vals := t.Values
-	if k.from || k.to {
-		eps := 1e-9 * math.Abs(hi-lo)
-		vals = nil
-		for _, v := range t.Values {
-			if (!k.from || v >= lo-eps) && (!k.to || v <= hi+eps) {
-				vals = append(vals, v)
-			}
-		}
-	}
-	extent := func(ts []float64) (float64, float64) {
-		d0, d1 := lo, hi
-		if n := len(ts); n > 0 {
-			if !k.from {
-				d0 = math.Min(d0, ts[0])
-			}
-			if !k.to {
-				d1 = math.Max(d1, ts[n-1])
-			}
-		}
-		return d0, d1
-	}
-	a := axis{ticks: vals, labels: k.label(vals), label: k.label, extent: extent}
-	a.d0, a.d1 = extent(vals)
-	return a
 }
 
 func formatAll(f scale.Format, vs []float64) []string {

@@ -107,9 +107,7 @@ func TestBarsTickFloor(t *testing.T) {
 			}
 		}
 		medium := []Medium{Screen, Print, Slide}[r.IntN(3)]
-		c := rowChart{opt: BarsOptions{Common: Common{Medium: medium}}}
-		s, err := c.build(labels, values)
-		require.NoError(t, err)
+		s, c := drawRowChart(t, labels, values, BarsOptions{Common: Common{Medium: medium}}, false)
 		var ticks []float64
 		minX, maxX := 1e9, -1e9
 		for _, m := range s.Marks {
@@ -225,4 +223,17 @@ func TestNarrowBarAxisThinsTicks(t *testing.T) {
 			assertNoOverlap(t, s)
 		}
 	}
+}
+
+// drawRowChart draws a bar chart or dot plot alone in its figure and
+// returns the plan with the scene, for tests that read its axis.
+func drawRowChart(t *testing.T, labels []string, values []float64, opt BarsOptions, dots bool) (*Scene, *rowChart) {
+	t.Helper()
+	f, err := newFrame(opt.Common)
+	require.NoError(t, err)
+	c, err := newRowChart(f, labels, values, opt, dots)
+	require.NoError(t, err)
+	res, err := f.drawGrid([]gridCell{{plan: c}}, gridOptions{}, f.plotTop())
+	require.NoError(t, err)
+	return f.finish(res.bottom), c
 }

@@ -244,6 +244,8 @@ func (f *frame) boxesSince(from int) (text, marks []layout.Box) {
 				x -= w
 			}
 			text = append(text, layout.Box{X: x, Y: m.Y - asc, W: w, H: asc + desc})
+		case m.Kind == Rect && strings.Contains(m.Class, "plumb-mark"):
+			marks = append(marks, layout.Box{X: m.X, Y: m.Y, W: m.W, H: m.H})
 		case m.Kind == Circle && strings.Contains(m.Class, "plumb-mark"):
 			marks = append(marks, layout.Box{X: m.X - m.R, Y: m.Y - m.R, W: 2 * m.R, H: 2 * m.R})
 		case m.Kind == Path && strings.Contains(m.Class, "plumb-mark"):

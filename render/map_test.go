@@ -39,15 +39,6 @@ func regionMarks(s *Scene) []Mark {
 	return ms
 }
 
-func markAttr(m Mark, name string) string {
-	for _, a := range m.Attrs {
-		if a.Name == name {
-			return a.Value
-		}
-	}
-	return ""
-}
-
 // Projected areas are in proportion to true areas across latitudes 50-70°N
 // (the check), with one region mark per shape carrying its data.
 func TestMapAreasProportional(t *testing.T) {

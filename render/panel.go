@@ -48,6 +48,12 @@ type axisDomain struct {
 	lo, hi  float64  // number and time: the data's extent before nice widening
 	integer bool     // every value on the axis is a whole number
 	labels  []string // categories, in drawing order
+	// shared: the grid gave this domain to every panel along its
+	// direction, so inner panels may leave its labels to the outer ones.
+	shared bool
+	// mixed: categories of panels whose lists differ were combined, so
+	// every panel must still label its own.
+	mixed bool
 }
 
 // union is the domain that holds both d and o. Domains of different kinds
@@ -65,6 +71,7 @@ func (d axisDomain) union(o axisDomain) axisDomain {
 		d.lo, d.hi = math.Min(d.lo, o.lo), math.Max(d.hi, o.hi)
 		d.integer = d.integer && o.integer
 	case domainCategory:
+		d.mixed = d.mixed || o.mixed || !slices.Equal(d.labels, o.labels)
 		for _, l := range o.labels {
 			if !slices.Contains(d.labels, l) {
 				d.labels = append(d.labels, l)
@@ -253,15 +260,19 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 	}
 	// Room around the plot areas: the widest per column, the tallest per row.
 	cellW := (width - float64(cols-1)*gutter) / float64(cols)
+	// Whole pixels line the panels of a grid up; a lone panel that places
+	// its own marks on pixels has nothing to line up with and keeps the
+	// room it measured.
+	whole, wholeDown := pixelRounding(single, cells)
 	left, right := make([]float64, cols), make([]float64, cols)
 	above, below := make([]float64, rows), make([]float64, rows)
 	for i, c := range cells {
 		in := c.plan.measure(f, cellW, edgeOf(i))
 		r, col := i/cols, i%cols
-		left[col] = math.Max(left[col], math.Ceil(in.left))
-		right[col] = math.Max(right[col], math.Ceil(in.right))
-		above[r] = math.Max(above[r], math.Ceil(in.top))
-		below[r] = math.Max(below[r], math.Ceil(in.bottom))
+		left[col] = math.Max(left[col], whole(in.left))
+		right[col] = math.Max(right[col], whole(in.right))
+		above[r] = math.Max(above[r], whole(in.top))
+		below[r] = math.Max(below[r], whole(in.bottom))
 	}
 	titleH := 0.0
 	for _, c := range cells {
@@ -273,12 +284,12 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 	for c := range cols {
 		plotW -= left[c] + right[c]
 	}
-	plotW = math.Floor(plotW / float64(cols))
+	plotW = wholeDown(plotW / float64(cols))
 	minW := sp.text * minPanelChars
-	if plotW < minW && single {
+	if plotW < minW && single && !(plotW > 0) {
 		return gridResult{}, fmt.Errorf("the plot is too narrow at this width: it would be %.0f px wide, less than %.0f for %g px text; give a wider canvas (%s)", plotW, minW, sp.text, f.c.name("Width"))
 	}
-	if plotW < minW {
+	if plotW < minW && !single {
 		return gridResult{}, fmt.Errorf("%d %s do not fit in %g px with %g px text: each plot would be %.0f px wide, less than %.0f; give a wider canvas (%s) or fewer columns", n, plural(n, "panel", "panels"), f.width, sp.text, plotW, minW, f.c.name("Width"))
 	}
 	rowH, err := f.rowHeights(cells, o, cols, plotW, room, titleH, gutter, above, below, single)
@@ -351,13 +362,14 @@ func (f *frame) rowHeights(cells []gridCell, o gridOptions, cols int, plotW, roo
 	rows := len(above)
 	rowH := make([]float64, rows)
 	own := o.ownHeights && !o.shareY
+	whole, wholeDown := pixelRounding(single, cells)
 	if room <= 0 || own {
 		for i, c := range cells {
 			h, err := c.plan.height(f, plotW, 0)
 			if err != nil {
 				return nil, err
 			}
-			rowH[i/cols] = math.Max(rowH[i/cols], math.Ceil(h))
+			rowH[i/cols] = math.Max(rowH[i/cols], whole(h))
 		}
 		if !own {
 			top := slices.Max(rowH)
@@ -379,14 +391,14 @@ func (f *frame) rowHeights(cells []gridCell, o gridOptions, cols int, plotW, roo
 	}
 	for r := range rows {
 		if own && want > 0 {
-			rowH[r] = math.Floor((room - fixed) * rowH[r] / want)
+			rowH[r] = wholeDown((room - fixed) * rowH[r] / want)
 		} else {
-			rowH[r] = math.Floor((room - fixed) / float64(rows))
+			rowH[r] = wholeDown((room - fixed) / float64(rows))
 		}
-		if rowH[r] < minPlotHeight(sp, !single) && single {
+		if rowH[r] < minPlotHeight(sp, !single) && single && !(rowH[r] > 0) {
 			return nil, fmt.Errorf("the figure's fixed height leaves a %.0f px plot, under the %.0f px a chart needs on this medium to be read: give a taller canvas (%s), or a shorter title and notes, so that it can fit", rowH[r], minPlotHeight(sp, false), f.c.name("Height"))
 		}
-		if rowH[r] < minPlotHeight(sp, !single) {
+		if rowH[r] < minPlotHeight(sp, !single) && !single {
 			return nil, fmt.Errorf("%d %s of panels do not fit in a %g px high figure with %g px text: each plot would be %.0f px high; give a taller canvas (%s) or fewer panels", rows, plural(rows, "row", "rows"), f.spec.height, sp.text, rowH[r], f.c.name("Height"))
 		}
 	}
@@ -396,6 +408,22 @@ func (f *frame) rowHeights(cells []gridCell, o gridOptions, cols int, plotW, roo
 		}
 	}
 	return rowH, nil
+}
+
+// exactRoom is implemented by a plan that rounds its own marks to pixels
+// (bars round both ends of every bar): alone, it keeps the room and the
+// height it measured, unrounded.
+type exactRoom interface{ exactRoom() }
+
+// pixelRounding is how a grid rounds room and heights: up and down to
+// whole pixels, so that the plot areas of neighbouring panels line up,
+// except for a lone panel that rounds its own marks.
+func pixelRounding(single bool, cells []gridCell) (whole, wholeDown func(float64) float64) {
+	if _, ok := cells[0].plan.(exactRoom); single && ok {
+		same := func(v float64) float64 { return v }
+		return same, same
+	}
+	return math.Ceil, math.Floor
 }
 
 // shareDomains gives every plan the domains it must draw: its own, widened
@@ -414,9 +442,11 @@ func (f *frame) shareDomains(cells []gridCell, o gridOptions) {
 		x, y := xs[i], ys[i]
 		if o.shareX && x.kind != domainNone && x.kind == ux.kind {
 			x = ux
+			x.shared = true
 		}
 		if o.shareY && y.kind != domainNone && y.kind == uy.kind {
 			y = uy
+			y.shared = true
 		}
 		c.plan.share(x, y)
 	}
@@ -482,7 +512,16 @@ func figureScene(c Common, o gridOptions, panels []Panel) (*Scene, error) {
 		if p.plan == nil {
 			return nil, fmt.Errorf("panel %d: not made by a chart's Panel function", i+1)
 		}
+		k := len(f.notes)
 		plan, err := p.plan(f)
+		if len(panels) > 1 && p.Title != "" && len(f.notes) > k {
+			// A line under a figure of several panels says which one it
+			// is about.
+			for j := k; j < len(f.notes); j++ {
+				f.notes[j] = p.Title + ": " + f.notes[j]
+			}
+			f.layoutFoot()
+		}
 		if err != nil {
 			if len(panels) > 1 && p.Title != "" {
 				return nil, fmt.Errorf("panel %q: %w", p.Title, err)

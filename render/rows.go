@@ -61,6 +61,11 @@ type row struct {
 	highlight bool
 	other     int    // > 0: this row combines that many categories
 	short     string // the label as drawn when it takes a standard short form ("Jan")
+	// series are the category's value in each series (SeriesBars,
+	// SeriesDots), NaN where it has none; value is then the key the
+	// categories are ordered and folded by.
+	series []float64
+	seen   []int // the Other row: how many folded rows had a value in each series
 }
 
 // checkRows validates parallel label and value slices.
@@ -172,6 +177,7 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 		other.value += r.value
 		other.raw += r.raw
 		other.other++
+		foldSeries(&other, r)
 		names = append(names, r.label)
 	}
 	if other.other == 0 {
@@ -183,6 +189,7 @@ func combineTail(rows []row, top int, sum bool) ([]row, string) {
 		other.raw /= float64(other.other)
 		how = "averaged"
 	}
+	meanSeries(&other, sum)
 	other.label = fmt.Sprintf("Other (%d)", other.other)
 	out = append(out, other)
 	return out, fmt.Sprintf("combined the %d smallest of %d categories into %q (%s): %s",
@@ -353,7 +360,7 @@ func (c *rowChart) rowsThatFit() int {
 	}
 	sp := f.spec
 	lh := lineHeight(sp.text)
-	axisH := sp.gap + lh + c.unitLineH()
+	axisH := sp.gap + lh + c.unitLineH(f.width-2*sp.pad)
 	// The note line under the chart takes one small line when rows are left out.
 	room := f.fixedPlotBottom() - lineHeight(sp.small) - axisH - f.plotTop()
 	n := int(room / (lh + sp.gap/2))
@@ -409,10 +416,7 @@ func (c *rowChart) toShares() error {
 // domain fixes the value domain: bars always include zero and end on nice
 // ticks; dots fit the data. --from and --to may widen, never hide.
 func (c *rowChart) domain() error {
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, r := range c.rows {
-		lo, hi = math.Min(lo, r.value), math.Max(hi, r.value)
-	}
+	lo, hi := c.valueRange()
 	if !c.dots {
 		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
 		if c.opt.From != nil && *c.opt.From > lo {
@@ -519,15 +523,9 @@ func calendarShort(label string) (string, bool) {
 	return "", false
 }
 
-// accessibleTitle names an untitled chart for assistive technology.
-func (c *rowChart) accessibleTitle() string {
-	kind, _, _ := strings.Cut(c.describe(), ",")
-	return kind
-}
-
 // describe writes the plain-language <desc>: what is plotted, the extremes,
 // and what was combined.
-func (c *rowChart) describe() string {
+func (c *rowChart) describeText() string {
 	kind := "Bar chart"
 	switch {
 	case c.dots:

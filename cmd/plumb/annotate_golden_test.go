@@ -16,7 +16,7 @@ import (
 // runs (the flags are read and the chart drawn) but its picture is not
 // pinned. The lead sets it to true after merging, then writes the goldens
 // with -update and looks at them.
-const chartsArePlans = false
+const chartsArePlans = true
 
 // annotationFigure is one annotation kind on one chart kind, pinned in
 // golden/annot-NAME.svg, with the mark the annotation must leave.

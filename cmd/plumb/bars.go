@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"strings"
 
 	"plumb/internal/table"
 	"plumb/render"
@@ -18,6 +19,7 @@ type rowsRun struct {
 	row  *render.RowOptions // the RowOptions of bars or dot, whichever is drawn
 
 	label, value, agg string
+	series            string // long input: the column naming each row's series
 }
 
 func newRows(dots bool) *rowsRun {
@@ -40,7 +42,8 @@ func (r *rowsRun) flags() []flagDef {
 	o := r.row
 	defs := []flagDef{
 		{name: "label", arg: "COLUMN", usage: "column with the category labels (default: the first column)", value: stringValue{&r.label}},
-		{name: "value", arg: "COLUMN", usage: "column with the values (default: the first numeric column after the labels)", value: stringValue{&r.value}},
+		{name: "value", arg: "COLUMN", usage: "column with the values (default: the first numeric column after the labels); several, comma-separated, are one series each", value: stringValue{&r.value}},
+		{name: "series", arg: "COLUMN", usage: "long format: COLUMN naming the series of each row; each category then gets one value per series", value: stringValue{&r.series}},
 		{name: "order", sets: []string{"Order"}, values: orders, def: string(render.ByValue), usage: "order of categories: value (largest first), label, or data (as in the file)",
 			value: choiceValue[render.Order]{p: &o.Order, values: orders}},
 	}
@@ -69,12 +72,20 @@ func (r *rowsRun) flags() []flagDef {
 	if !r.dots {
 		defs = append(defs,
 			flagDef{name: "vertical", sets: []string{"Vertical"}, usage: "stand the bars up (horizontal bars read better with long labels)", value: boolValue{&r.bars.Vertical}},
-			flagDef{name: "percent", sets: []string{"Percent"}, usage: "show each value as a percentage of the total", value: boolValue{&r.bars.Percent}})
+			flagDef{name: "percent", sets: []string{"Percent"}, usage: "show each value as a percentage of the total (with --stack: of its row's total)", value: boolValue{&r.bars.Percent}},
+			flagDef{name: "stack", sets: []string{"Layout"}, usage: "with series: stack them as parts of a whole, the total at the end (default: one dot per series)", value: layoutValue{&r.bars.Layout, render.LayoutStack}},
+			flagDef{name: "side", sets: []string{"Layout"}, usage: fmt.Sprintf("with series: bars side by side, for at most %d series", render.MaxSideSeries), value: layoutValue{&r.bars.Layout, render.LayoutSide}})
 	}
 	return append(defs, r.shared.flags()...)
 }
 
 func (r *rowsRun) load(path string, stdin io.Reader, given func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
+	if r.series != "" || strings.Contains(r.value, ",") {
+		return r.loadSeries(path, stdin, given)
+	}
+	if r.bars.Layout != "" {
+		return nil, nil, usagef("--%s lays out several series: give them with --series COLUMN or several --value columns", r.bars.Layout)
+	}
 	d, err := loadLabelled(path, r.readOptions(), r.label, r.value, r.agg, stdin)
 	if err != nil {
 		return nil, nil, err
@@ -138,4 +149,39 @@ func (r *rowsRun) shares() (x, y bool) {
 		return false, true
 	}
 	return true, false
+}
+
+// loadSeries reads a table of several values per category and draws
+// them: one dot per series by default, --stack or --side for bars.
+func (r *rowsRun) loadSeries(path string, stdin io.Reader, given func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
+	if r.bars.Percent && r.bars.Layout != render.LayoutStack {
+		return nil, nil, usagef("--percent with series shows each row as shares of its total: add --stack")
+	}
+	var cols []string
+	for _, c := range strings.Split(r.value, ",") {
+		if c = strings.TrimSpace(c); c != "" {
+			cols = append(cols, c)
+		}
+	}
+	d, err := loadSeries(path, r.readOptions(), r.label, r.series, cols, r.agg, stdin)
+	if err != nil {
+		return nil, nil, err
+	}
+	o := r.row
+	if o.Unit == "" {
+		o.Unit = d.unit
+	}
+	if o.ValueName == "" {
+		o.ValueName = d.valueCol
+	}
+	o.LabelName = d.labelCol
+	o.Averages = r.agg != "sum" && r.agg != "count"
+	r.bars.Additive = r.bars.Layout == render.LayoutStack || (given("agg") && !o.Averages) || (r.agg == "sum" && d.repeated)
+	return d.notes, func(w io.Writer) ([]render.Note, error) {
+		if r.dots {
+			return render.SeriesDots(w, d.labels, d.series, r.dot)
+		}
+		notes, err := render.SeriesBars(w, d.labels, d.series, r.bars)
+		return notes, layoutWords(err, r.bars.Layout)
+	}, nil
 }

@@ -220,8 +220,15 @@ func checkBars(t *testing.T, root *svgNode) {
 		if vertical {
 			length, start, end = bh, y+bh, y
 		}
-		// Bars start at zero: positive bars leave the baseline, negative ones end on it.
-		if v >= 0 && math.Abs(start-zero) > 0.006 || v < 0 && math.Abs(end-zero) > 0.006 && !vertical || v < 0 && vertical && math.Abs(y-zero) > 0.006 {
+		// A stacked segment starts where the segments before it end.
+		if s, ok := b.Attr["data-start"]; ok && !vertical && v > 0 {
+			from, err := strconv.ParseFloat(s, 64)
+			// Each end is rounded to 0.005 px, which the short segment's
+			// pixels per unit carry over the length before it.
+			if err != nil || math.Abs(x-(zero+from*bw/v)) > 0.02+0.01*from/v {
+				t.Errorf("segment %q/%q (value %g from %s) starts at x=%g", b.Attr["data-label"], b.Attr["data-series"], v, s, x)
+			}
+		} else if v >= 0 && math.Abs(start-zero) > 0.006 || v < 0 && math.Abs(end-zero) > 0.006 && !vertical || v < 0 && vertical && math.Abs(y-zero) > 0.006 {
 			t.Errorf("bar %q (value %g) does not start at the baseline %g: x=%g y=%g w=%g h=%g", b.Attr["data-label"], v, zero, x, y, bw, bh)
 		}
 		if v == 0 {
