@@ -236,7 +236,6 @@ func TestBarsPanelOptionError(t *testing.T) {
 	}
 }
 
-
 // The category axis: bands of equal length, ticks at their centres,
 // labels wrapped to the width given, and thinned when they would touch.
 func TestCategoryAxis(t *testing.T) {
