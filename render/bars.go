@@ -451,19 +451,6 @@ func (c *rowChart) axisTitle() string {
 	return name
 }
 
-// namesUnit reports whether a value name already says its unit, as
-// "Weight (g)" or a column called "rainfall_mm" does, so the axis title
-// does not say it twice.
-func namesUnit(name, unit string) bool {
-	n, u := strings.ToLower(name), strings.ToLower(unit)
-	for _, form := range []string{"(" + u + ")", "_" + u, " " + u, "[" + u + "]"} {
-		if strings.Contains(n, form+" ") || strings.HasSuffix(n, form) {
-			return true
-		}
-	}
-	return false
-}
-
 // labels returns the categories in drawing order.
 func (c *rowChart) labels() []string {
 	l := make([]string, len(c.rows))

@@ -11,7 +11,6 @@ import (
 	"unicode"
 	"unicode/utf8"
 
-	"plumb/internal/suggest"
 	"plumb/scale"
 )
 
@@ -266,18 +265,6 @@ func findLabels(want []string, have []string) error {
 	}
 	return nil
 }
-
-// closest suggests the nearest of the candidates, as "; did you mean ...?".
-func closest(s string, cands []string) string {
-	if best, ok := suggest.Closest(s, cands); ok {
-		return fmt.Sprintf("; did you mean %q?", best)
-	}
-	return ""
-}
-
-// dataNumber formats a value for a data-* attribute: the shortest text that
-// reads back as the same float64, so audits measure against exact data.
-func dataNumber(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 
 // limitRows applies Top and Other: it folds the rows beyond Top into one
 // Other row when that is honest, or leaves them out and says so in a note
@@ -575,11 +562,4 @@ func (c *rowChart) describeText() string {
 		fmt.Fprintf(&b, " Highlighted: %s.", strings.Join(c.opt.Highlight, ", "))
 	}
 	return b.String()
-}
-
-func plural(n int, one, many string) string {
-	if n == 1 {
-		return one
-	}
-	return many
 }

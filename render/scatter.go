@@ -168,20 +168,10 @@ func newScatterPlan(f *frame, x, y []float64, opt ScatterOptions) (*scatterPlan,
 	return p, nil
 }
 
-func finiteValue(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
-
 // maxAxisValue bounds the values a number axis places: nice ticks and the
 // margins beyond the data go up to ten times past them, which must stay
 // below the largest float64 (1.8e308).
 const maxAxisValue = math.MaxFloat64 / 1e4
-
-// axisRoom refuses values an axis cannot hold, with what would fix them.
-func axisRoom(what string, lo, hi float64) error {
-	if math.Max(math.Abs(lo), math.Abs(hi)) > maxAxisValue {
-		return fmt.Errorf("the %s run from %g to %g, too near the largest number (%.1e) to place on an axis: divide them by a power of ten first", what, lo, hi, math.MaxFloat64)
-	}
-	return nil
-}
 
 // finiteRange is the least and greatest of values that are all finite and
 // at least one: plain comparisons, which math.Min's care for NaN would
@@ -197,17 +187,6 @@ func finiteRange(v []float64) (lo, hi float64) {
 		}
 	}
 	return lo, hi
-}
-
-// groupedCount is "1 point" or "1,234 points".
-func groupedCount(n int, one, many string) string {
-	return scale.Format{Group: true}.Format(float64(n)) + " " + plural(n, one, many)
-}
-
-// plainNumberKind ticks a number axis that need not reach zero, in whole steps
-// for whole-number data.
-func plainNumberKind(v []float64) valueKind {
-	return valueKind{integer: wholeNumbers(v), label: func(t []float64) []string { return formatAll(scale.TickFormat(t, ""), t) }}
 }
 
 // setGroups gives each point its group and each group its colour. One
@@ -366,47 +345,6 @@ func (p *scatterPlan) margin(f *frame) float64 {
 		return 2 * hexRadius(f.spec, !p.titles)
 	}
 	return markRadius(f.spec) + 1
-}
-
-// fitNumberAxes chooses the ticks of both axes for a plot of w × h over
-// the domains, then widens each axis's ends, beyond its ticks, as far as
-// it takes to keep the data margin pixels inside the plot: marks never
-// reach past the axes, and no tick is added for the room (an axis of
-// kilometres gains no −50).
-func fitNumberAxes(f *frame, dx, dy axisDomain, kx, ky valueKind, w, h, margin float64) (axis, axis) {
-	fit := func(d axisDomain, length float64, horizontal bool, k valueKind) axis {
-		lo, hi := d.lo, d.hi
-		if hi == lo {
-			a := math.Max(1, math.Abs(lo)*0.1)
-			lo, hi = lo-a, hi+a
-		}
-		a := f.fitValue(lo, hi, length, horizontal, k)
-		if length > 4*margin && a.d1 > a.d0 {
-			// Solve for the ends that put lo and hi margin px inside.
-			d0, d1 := a.d0, a.d1
-			for range 3 {
-				unit := (d1 - d0) / length
-				d0 = math.Min(a.d0, lo-margin*unit)
-				d1 = math.Max(a.d1, hi+margin*unit)
-			}
-			a.d0, a.d1 = d0, d1
-		}
-		return a
-	}
-	return fit(dx, w, true, kx), fit(dy, h, false, ky)
-}
-
-// tickLabelWidth is the widest tick label an axis over d gives at any of a
-// few lengths, for measuring before the length is known.
-func tickLabelWidth(f *frame, d axisDomain, k valueKind, horizontal bool) float64 {
-	w := 0.0
-	for _, l := range []float64{120, 240, 480, 960} {
-		a := f.fitValue(d.lo, d.hi, l, horizontal, k)
-		for _, s := range a.labels {
-			w = math.Max(w, f.measure(s, f.spec.text, false))
-		}
-	}
-	return w
 }
 
 func (p *scatterPlan) measure(f *frame, cellW float64, e edges) insets {
