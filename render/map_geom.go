@@ -65,6 +65,13 @@ func project(regions []Region, p scale.Projection, lon0 float64) []projected {
 					x, y := p.Project(lon0+math.Max(-179.9999, math.Min(179.9999, d)), v[1])
 					pts = append(pts, Point{x, y})
 				}
+				// Outer rings one way round and holes the other, whatever
+				// the file's winding (RFC 7946 asks for it but readers
+				// must not rely on it), so that the non-zero fill rule
+				// leaves every hole open.
+				if outer := len(pp) == 0; (signedArea(pts) > 0) != outer {
+					slices.Reverse(pts)
+				}
 				pp = append(pp, pts)
 			}
 			if len(pp) > 0 {
@@ -387,3 +394,14 @@ func (q poleQueue) Less(i, j int) bool { return q[i].max > q[j].max }
 func (q poleQueue) Swap(i, j int)      { q[i], q[j] = q[j], q[i] }
 func (q *poleQueue) Push(x any)        { *q = append(*q, x.(poleCell)) }
 func (q *poleQueue) Pop() any          { old := *q; c := old[len(old)-1]; *q = old[:len(old)-1]; return c }
+
+// signedArea is the shoelace area of a ring, positive when it runs
+// counter-clockwise with y up.
+func signedArea(r []Point) float64 {
+	a := 0.0
+	for i := range r {
+		j := (i + 1) % len(r)
+		a += r[i].X*r[j].Y - r[j].X*r[i].Y
+	}
+	return a / 2
+}

@@ -194,3 +194,19 @@ func TestMapNoData(t *testing.T) {
 	assert.Equal(t, 1, classCount(s, "plumb-nodata")-1, "one region and the key's swatch")
 	assert.Contains(t, s.Desc, "1 region has no data")
 }
+
+// A hole stays open whichever way the file winds its rings.
+func TestMapHolesEitherWinding(t *testing.T) {
+	outer := orb.Ring{{0, 50}, {4, 50}, {4, 54}, {0, 54}, {0, 50}}
+	for _, hole := range []orb.Ring{
+		{{1, 51}, {1, 53}, {3, 53}, {3, 51}, {1, 51}}, // opposite to the outer ring
+		{{1, 51}, {3, 51}, {3, 53}, {1, 53}, {1, 51}}, // the same way round
+	} {
+		r := []Region{{Name: "ring", Shape: orb.MultiPolygon{{outer, hole}}}}
+		s, err := MapScene(r, []string{"ring"}, []float64{1}, MapOptions{})
+		require.NoError(t, err)
+		m := regionMarks(s)[0]
+		require.Len(t, m.Lines, 2)
+		assert.NotEqual(t, signedArea(m.Lines[0]) > 0, signedArea(m.Lines[1]) > 0, "outer and hole wind opposite ways")
+	}
+}

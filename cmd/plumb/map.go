@@ -277,7 +277,7 @@ func joinShapes(file string, feats []*geojson.Feature, key string, names []strin
 		}
 	}
 	if skippedGeom > 0 {
-		notes = append(notes, render.Note{Code: "map-geometry", Text: fmt.Sprintf("%d features of %s are not polygons and are not drawn", skippedGeom, file)})
+		notes = append(notes, render.Note{Code: "map-geometry", Text: fmt.Sprintf("%d %s of %s not polygons and not drawn", skippedGeom, pluralS2(skippedGeom, "feature is", "features are"), file)})
 	}
 	var noShape []string
 	for _, n := range names {
