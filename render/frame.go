@@ -27,6 +27,10 @@ type Common struct {
 	// Names says how errors and notes name options; nil names the fields.
 	Names OptionNames
 
+	// Annotations are drawn over the data: reference lines, events,
+	// periods and callouts.
+	Annotations Annotations
+
 	// Notes are decisions the caller made before drawing, such as which
 	// columns it read and how; they open the scene's notes, so that the
 	// figure's metadata records them with the chart's own.

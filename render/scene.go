@@ -115,7 +115,14 @@ type Note struct {
 // String returns the note's text.
 func (n Note) String() string { return n.Text }
 
-// Note records a decision plumb made for the user.
+// Note records a decision plumb made for the user. A note already recorded
+// (the same code and text, as from several panels of one figure) is kept
+// once.
 func (s *Scene) Note(code string, changed bool, text string) {
+	for _, n := range s.Notes {
+		if n.Code == code && n.Text == text {
+			return
+		}
+	}
 	s.Notes = append(s.Notes, Note{Code: code, Text: text, Changed: changed})
 }
