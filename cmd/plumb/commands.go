@@ -37,6 +37,9 @@ func commandTable() []command {
 		{name: "dots", summary: "compare values far from zero", synopsis: dataSynopsis, chart: func() chart { return newRows(true) }},
 		{name: "lines", summary: "change over time or order, banked to 45°", synopsis: dataSynopsis, chart: func() chart { return newLines() }},
 		{name: "diff", summary: "the difference of two series, a − b against zero", synopsis: dataSynopsis, chart: func() chart { return newDiff() }},
+		{name: "span", summary: "ranges per category, low to high with the middle marked", synopsis: dataSynopsis, chart: func() chart { return newSpan() }},
+		{name: "box", summary: "distributions per group as Tukey box plots", synopsis: dataSynopsis, chart: func() chart { return newBox() }},
+		{name: "hist", summary: "the distribution of one column, in bins on nice edges", synopsis: dataSynopsis, chart: func() chart { return newHist() }},
 		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
 		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)

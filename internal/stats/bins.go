@@ -40,6 +40,12 @@ type BinOptions struct {
 	// Width gives the bin width exactly; edges are whole multiples of it.
 	// Bins and Width are exclusive.
 	Width float64
+	// Integer says every value is a whole number: widths chosen by rule are
+	// then whole numbers too (1, 2, 5, 10, 20, 25, ...), so that every bin
+	// holds the same number of possible values; a width of 2.5 over
+	// counts would give bins of three and two values in turn.
+	// Every bin, the last too, is then closed on the left only.
+	Integer bool
 	// MaxBins bounds the count (default DefaultMaxBins); a chosen width
 	// that would exceed it is widened to the next nice number that fits,
 	// and Histogram.Widened says so. A given Width that exceeds it is an
@@ -50,7 +56,11 @@ type BinOptions struct {
 // Histogram is the result of binning: k bins between k+1 edges, each bin
 // [Edges[i], Edges[i+1]) closed on the left, except the last, which is
 // closed on both sides, so that a maximum that falls on a nice edge is
-// counted in the bin below it rather than in a bin of its own.
+// counted in the bin below it rather than in a bin of its own. Whole-number
+// data (BinOptions.Integer) is the exception: there every bin is closed on
+// the left only and the last edge lies above the maximum, because bins of
+// whole widths hold whole numbers, and closing the last would give it one
+// more (with width 1, the two largest values would share a bar).
 type Histogram struct {
 	Edges  []float64
 	Counts []int
@@ -63,7 +73,13 @@ type Histogram struct {
 	// Widened is true when the width was widened to keep the count under
 	// MaxBins.
 	Widened bool
+
+	open bool // the last bin is closed on the left only
 }
+
+// LastClosed reports whether the last bin holds its upper edge too (see
+// Histogram): true unless the data were binned as whole numbers.
+func (h Histogram) LastClosed() bool { return !h.open }
 
 // Density is the height of bin i as a density: count / (n · width), so
 // that the bars' areas sum to 1.
@@ -130,11 +146,11 @@ func Bin(sorted []float64, o BinOptions) (Histogram, error) {
 	case o.Width != 0 && !(o.Width > 0 && !math.IsInf(o.Width, 0)):
 		return Histogram{}, fmt.Errorf("%w: a bin width of %g; give a positive number", ErrBinOptions, o.Width)
 	}
-	h := Histogram{N: n}
+	h := Histogram{N: n, open: o.Integer}
 	if o.Width > 0 {
 		h.Rule, h.Raw, h.Width = BinWidth, o.Width, o.Width
 		edge := func(i float64) float64 { return i * o.Width }
-		first, k := cover(lo, hi, o.Width, edge)
+		first, k := cover(lo, hi, o.Width, edge, o.Integer)
 		if k > float64(maxBins) {
 			return Histogram{}, fmt.Errorf("%w: a bin width of %g makes %.0f bins over %g to %g; give a width of at least %g", ErrBinOptions, o.Width, k, lo, hi, (hi-lo)/float64(maxBins))
 		}
@@ -168,8 +184,11 @@ func Bin(sorted []float64, o BinOptions) (Histogram, error) {
 	} else {
 		w = nearestNice(h.Raw)
 	}
+	for o.Integer && (w.value() < 1 || w.value() != math.Trunc(w.value())) {
+		w = w.next()
+	}
 	for {
-		first, k := cover(lo, hi, w.value(), w.edge)
+		first, k := cover(lo, hi, w.value(), w.edge, o.Integer)
 		if k <= float64(maxBins) || math.IsInf(w.value(), 0) {
 			h.Width = w.value()
 			if err := h.setEdges(first, k, w.edge, lo, hi); err != nil {
@@ -178,6 +197,9 @@ func Bin(sorted []float64, o BinOptions) (Histogram, error) {
 			break
 		}
 		w = w.next()
+		for o.Integer && w.value() != math.Trunc(w.value()) {
+			w = w.next()
+		}
 		h.Widened = true
 	}
 	h.count(sorted)
@@ -189,7 +211,7 @@ func Bin(sorted []float64, o BinOptions) (Histogram, error) {
 // hi on an edge stays in the bin below. Edges are edge(i), computed, so the
 // indices are checked against them, not against lo/w, which may round
 // across a whole number.
-func cover(lo, hi, w float64, edge func(float64) float64) (first, k float64) {
+func cover(lo, hi, w float64, edge func(float64) float64, open bool) (first, k float64) {
 	first = math.Floor(lo / w)
 	// A few steps at most: beyond the precision of float64 indices a step
 	// changes nothing, and setEdges rejects the result.
@@ -204,6 +226,9 @@ func cover(lo, hi, w float64, edge func(float64) float64) (first, k float64) {
 		k--
 	}
 	for i := 0; i < 4 && edge(first+k) < hi; i++ {
+		k++
+	}
+	if open && edge(first+k) == hi {
 		k++
 	}
 	return first, k
@@ -236,9 +261,13 @@ func (h *Histogram) count(sorted []float64) {
 	// Sorted values fill bins in order: one pass, with each value compared
 	// against the edges themselves rather than a computed index, so that
 	// the rule the doc states holds exactly at every edge.
+	last := k - 1
+	if h.open {
+		last = k
+	}
 	b := 0
 	for _, x := range sorted {
-		for b < k-1 && x >= h.Edges[b+1] {
+		for b < last && x >= h.Edges[b+1] {
 			b++
 		}
 		h.Counts[b]++

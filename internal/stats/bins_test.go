@@ -75,6 +75,14 @@ func TestBin(t *testing.T) {
 		// Decimal widths give exact decimal edges (0.3, not 0.30000000000000004).
 		{"decimals", []float64{0.1, 0.2, 0.3, 0.35, 0.5}, BinOptions{Bins: 4}, BinCount, 0.1,
 			[]float64{0.1, 0.2, 0.3, 0.4, 0.5}, []int{1, 1, 2, 1}},
+		// Whole-number data: width 3 would round to 2.5, which splits the
+		// integers unevenly; the next whole nice width is 5.
+		{"integers", methodsX, BinOptions{Bins: 10, Integer: true}, BinCount, 5,
+			[]float64{0, 5, 10, 15, 20, 25, 30, 35}, []int{3, 5, 1, 0, 0, 0, 1}},
+		// A width below 1 for integers becomes 1, and the maximum has a bin
+		// of its own: every bin is closed on the left only.
+		{"integers narrow", []float64{1, 2, 2, 3}, BinOptions{Bins: 20, Integer: true}, BinCount, 1,
+			[]float64{1, 2, 3, 4}, []int{1, 2, 1}},
 		{"negative", []float64{-7, -3, -1}, BinOptions{Width: 2}, BinWidth, 2,
 			[]float64{-8, -6, -4, -2, 0}, []int{1, 0, 1, 1}},
 	}
@@ -119,7 +127,7 @@ func checkHistogram(t *testing.T, sorted []float64, h Histogram) {
 	want := make([]int, k)
 	for _, x := range sorted {
 		b := k - 1
-		for i := range k - 1 {
+		for i := range k {
 			if x < h.Edges[i+1] {
 				b = i
 				break

@@ -58,6 +58,11 @@ func generate(dir string) error {
 			return err
 		}
 	}
+	for _, ds := range distributionSets {
+		if err := writeCSV(filepath.Join(dir, ds.file), ds.make(rand.New(rand.NewPCG(seed, ds.stream)))); err != nil {
+			return err
+		}
+	}
 	return nil
 }
 
