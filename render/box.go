@@ -89,7 +89,7 @@ func planBox(f *frame, groups []Group, opt BoxOptions) (*valueRows, error) {
 		rows[i] = boxRow{label: g.Label, values: s, box: stats.TukeyBoxSorted(s)}
 		all = append(all, s)
 		if len(s) < MinBoxN {
-			small = append(small, fmt.Sprintf("%q (%d)", g.Label, len(s)))
+			small = append(small, fmt.Sprintf("%q (n = %d)", g.Label, len(s)))
 		}
 	}
 	if err := checkSpan("values", all...); err != nil {
@@ -98,7 +98,6 @@ func planBox(f *frame, groups []Group, opt BoxOptions) (*valueRows, error) {
 	p.integer = scale.IsInteger(flatten(all))
 	p.vfmt = scale.ValueFormat(flatten(all), opt.Unit)
 	for _, r := range rows {
-		r := r
 		p.rows = append(p.rows, valueRow{
 			label: r.label, key: r.box.Median, lo: r.values[0], hi: r.values[len(r.values)-1],
 			right: fmt.Sprintf("n = %s", groupThousands(len(r.values))),
@@ -115,7 +114,7 @@ func planBox(f *frame, groups []Group, opt BoxOptions) (*valueRows, error) {
 	}
 	if len(small) > 0 {
 		f.scene.Note("box-small", true, fmt.Sprintf("drew the values instead of a box for %d %s with fewer than %d values: %s; a box of so few values would show a spread the data cannot support",
-			len(small), plural(len(small), "group", "groups"), MinBoxN, listNames(small, 5)))
+			len(small), plural(len(small), "group", "groups"), MinBoxN, strings.Join(small[:min(len(small), 5)], ", ")+moreNames(len(small), 5)))
 	}
 	outliers := 0
 	for _, r := range rows {
@@ -180,6 +179,14 @@ func drawBox(f *frame, r boxRow, xs scale.Linear, cy, thick float64) ([]layout.B
 		end = math.Max(end, x(v)+radius)
 	}
 	return boxes, end
+}
+
+// moreNames is ", and k more" when a list of n was cut to max.
+func moreNames(n, max int) string {
+	if n <= max {
+		return ""
+	}
+	return fmt.Sprintf(", and %d more", n-max)
 }
 
 // white is the page: the median's gap in a box.

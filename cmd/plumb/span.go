@@ -1,12 +1,20 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"slices"
 	"strings"
 
 	"plumb/render"
+)
+
+// Causes of a DataError specific to ranges.
+var (
+	ErrRangeOrder = errors.New("the range's low, middle and high are out of order")
+	ErrMarkTwice  = errors.New("a second row to overlay for one category")
+	ErrNoMatch    = errors.New("no row matches")
 )
 
 // spanRun is one run of plumb span: ranges given by --low --mid --high
@@ -144,8 +152,8 @@ func (r *spanRun) loadGiven(path string, stdin io.Reader) ([]render.Range, []ren
 		seen[names[i]] = i
 		rg := render.Range{Label: names[i], Low: vals[0][i], Mid: vals[1][i], High: vals[2][i]}
 		if !(rg.Low <= rg.Mid && rg.Mid <= rg.High) {
-			return nil, nil, &DataError{File: t.File, Line: t.Line(i), Column: r.mid, Text: fmt.Sprint(rg.Mid), Err: ErrBadNumber,
-				Hint: fmt.Sprintf("low %g, middle %g and high %g are out of order; a range needs low ≤ middle ≤ high (check the order of --low --mid --high)", rg.Low, rg.Mid, rg.High)}
+			return nil, nil, &DataError{File: t.File, Line: t.Line(i), Column: r.mid, Text: fmt.Sprint(rg.Mid), Err: ErrRangeOrder,
+				Hint: fmt.Sprintf("low %g, middle %g, high %g; a range needs low ≤ middle ≤ high (check which columns --low --mid --high name)", rg.Low, rg.Mid, rg.High)}
 		}
 		if r.mark != "" {
 			if m := vals[3][i]; m == m {
@@ -232,8 +240,8 @@ func (r *spanRun) loadComputed(path string, stdin io.Reader) ([]render.Range, []
 				continue
 			}
 			if at >= 0 {
-				return nil, nil, &DataError{File: t.File, Line: t.Line(i), Column: whereCol, Text: cells[i], Err: ErrDuplicateLabel,
-					Hint: fmt.Sprintf("line %d is also %s=%s for %q; --mark-where must pick one row per category", t.Line(at), whereCol, whereVal, g.groups[k].Label)}
+				return nil, nil, &DataError{File: t.File, Line: t.Line(i), Column: whereCol, Text: cells[i], Err: ErrMarkTwice,
+					Hint: fmt.Sprintf("line %d is %s=%s for %q too; --mark-where must pick one row per category (add a condition to the data, or filter it first)", t.Line(at), whereCol, whereVal, g.groups[k].Label)}
 			}
 			at = i
 		}
@@ -244,8 +252,8 @@ func (r *spanRun) loadComputed(path string, stdin io.Reader) ([]render.Range, []
 		}
 	}
 	if found == 0 {
-		return nil, nil, &DataError{File: t.File, Column: whereCol, Text: whereVal, Err: ErrEmpty,
-			Hint: fmt.Sprintf("no row with a value has %s=%s; check the value (--mark-where COL=VALUE)", whereCol, whereVal)}
+		return nil, nil, &DataError{File: t.File, Column: whereCol, Text: whereVal, Err: ErrNoMatch,
+			Hint: fmt.Sprintf("no row with a value has %s=%s; check the value, which must equal the cell's text (--mark-where COL=VALUE)", whereCol, whereVal)}
 	}
 	notes = append(notes, render.Note{Code: "span-where", Text: fmt.Sprintf("the ranges include the %s=%s rows that the dots mark", whereCol, whereVal)})
 	return ranges, notes, nil

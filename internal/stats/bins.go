@@ -152,7 +152,7 @@ func Bin(sorted []float64, o BinOptions) (Histogram, error) {
 		edge := func(i float64) float64 { return i * o.Width }
 		first, k := cover(lo, hi, o.Width, edge, o.Integer)
 		if k > float64(maxBins) {
-			return Histogram{}, fmt.Errorf("%w: a bin width of %g makes %.0f bins over %g to %g; give a width of at least %g", ErrBinOptions, o.Width, k, lo, hi, (hi-lo)/float64(maxBins))
+			return Histogram{}, fmt.Errorf("%w: a bin width of %g makes %.0f bins over %g to %g; give a width of at least %.3g", ErrBinOptions, o.Width, k, lo, hi, (hi-lo)/float64(maxBins)*1.001)
 		}
 		if err := h.setEdges(first, k, edge, lo, hi); err != nil {
 			return Histogram{}, err
