@@ -90,6 +90,17 @@ func planHist(f *frame, values []float64, opt HistOptions) (*histPlan, error) {
 	opt.Unit = strings.TrimSpace(opt.Unit)
 	maxBins := max(8, int((f.width-2*f.spec.pad)/minBarPx))
 	h, err := stats.Bin(s, stats.BinOptions{Bins: opt.Bins, Width: opt.Width, MaxBins: maxBins, Integer: scale.IsInteger(s)})
+	if err != nil && !errors.Is(err, stats.ErrBinOptions) {
+		return nil, fmt.Errorf("%w; divide the values by a power of ten, or give a wider %s", err, opt.name("Width"))
+	}
+	if errors.Is(err, stats.ErrTooManyBins) {
+		// The width is usable, but not over this data on this canvas.
+		msg := strings.TrimPrefix(err.Error(), stats.ErrTooManyBins.Error()+": ")
+		reason, instead, _ := strings.Cut(msg, "; ")
+		return nil, &OptionError{Option: "Width", Value: numValue(opt.Width), Err: &RefusalError{
+			Reason:  fmt.Sprintf("%s, bars narrower than %d px", reason, minBarPx),
+			Instead: fmt.Sprintf("%s, give %s N, or leave both out to choose by rule", instead, opt.name("Bins"))}}
+	}
 	if err != nil {
 		option := "Bins"
 		if opt.Width != 0 {

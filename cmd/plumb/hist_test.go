@@ -98,7 +98,7 @@ func TestHistErrors(t *testing.T) {
 		{[]string{"--bins", "4", "--width", "2"}, 2, "not both"},
 		{[]string{"--width", "0"}, 2, `--width "0": give a positive number`},
 		{[]string{"--bins", "-3"}, 2, "--bins -3"},
-		{[]string{"--width", "0.0000001"}, 2, "--width"},
+		{[]string{"--width", "0.0000001"}, 1, "bars narrower than 2 px"},
 	} {
 		code, _, errs := plumb(t, "v\n1\n2\n30\n", append([]string{"hist", "-"}, tc.args...)...)
 		assert.Equal(t, tc.code, code, "%v: %s", tc.args, errs)

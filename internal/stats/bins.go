@@ -90,9 +90,16 @@ func (h Histogram) Density(i int) float64 {
 	return float64(h.Counts[i]) / float64(h.N) / h.Width
 }
 
-// Errors of bin options.
+// Errors of binning.
 var (
+	// ErrBinOptions is a bin count or width that cannot be used.
 	ErrBinOptions = errors.New("bin options")
+	// ErrTooManyBins is a given width that would make more than MaxBins
+	// bins over the data; errors.Is(err, ErrBinOptions) holds too.
+	ErrTooManyBins = fmt.Errorf("%w: too many bins", ErrBinOptions)
+	// ErrPrecision is data whose bin edges float64 cannot tell apart at
+	// the width chosen (values near 1e20 binned half a unit wide).
+	ErrPrecision = errors.New("beyond float64 precision")
 )
 
 // SturgesBins is Sturges' (1926) bin count ⌈log₂ n⌉ + 1 for n ≥ 1
@@ -152,7 +159,7 @@ func Bin(sorted []float64, o BinOptions) (Histogram, error) {
 		edge := func(i float64) float64 { return i * o.Width }
 		first, k := cover(lo, hi, o.Width, edge, o.Integer)
 		if k > float64(maxBins) {
-			return Histogram{}, fmt.Errorf("%w: a bin width of %g makes %.0f bins over %g to %g; give a width of at least %.3g", ErrBinOptions, o.Width, k, lo, hi, (hi-lo)/float64(maxBins)*1.001)
+			return Histogram{}, fmt.Errorf("%w: a bin width of %g makes %.0f bins over %g to %g; give a width of at least %.3g", ErrTooManyBins, o.Width, k, lo, hi, (hi-lo)/float64(maxBins)*1.001)
 		}
 		if err := h.setEdges(first, k, edge, lo, hi); err != nil {
 			return Histogram{}, err
@@ -238,18 +245,18 @@ func cover(lo, hi, w float64, edge func(float64) float64, open bool) (first, k f
 // filled later; values too large for their edges are an error.
 func (h *Histogram) setEdges(first, k float64, edge func(float64) float64, lo, hi float64) error {
 	if !(k >= 1) || k > float64(math.MaxInt32) || math.IsInf(1/h.Width, 0) {
-		return fmt.Errorf("%w: the values %g to %g cannot be binned at width %g", ErrBinOptions, lo, hi, h.Width)
+		return fmt.Errorf("%w: the values %g to %g cannot be binned at width %g", ErrPrecision, lo, hi, h.Width)
 	}
 	h.Edges = make([]float64, int(k)+1)
 	for i := range h.Edges {
 		e := edge(first + float64(i))
 		if math.IsInf(e, 0) || math.IsNaN(e) || (i > 0 && !(e > h.Edges[i-1])) {
-			return fmt.Errorf("%w: the values %g to %g cannot be binned at width %g: the edges are beyond float64 precision", ErrBinOptions, lo, hi, h.Width)
+			return fmt.Errorf("the values %g to %g cannot be binned at width %g: the edges are %w", lo, hi, h.Width, ErrPrecision)
 		}
 		h.Edges[i] = e
 	}
 	if h.Edges[0] > lo || h.Edges[len(h.Edges)-1] < hi {
-		return fmt.Errorf("%w: the values %g to %g cannot be binned at width %g: the edges are beyond float64 precision", ErrBinOptions, lo, hi, h.Width)
+		return fmt.Errorf("the values %g to %g cannot be binned at width %g: the edges are %w", lo, hi, h.Width, ErrPrecision)
 	}
 	return nil
 }

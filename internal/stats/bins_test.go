@@ -214,12 +214,20 @@ func TestBinErrors(t *testing.T) {
 		{Width: math.Inf(1)},
 		{Width: 1e-9},
 	} {
+		if o.Width == 1e-9 {
+			if _, err := Bin(s, o); !errors.Is(err, ErrTooManyBins) {
+				t.Errorf("Bin(%+v) error %v, want ErrTooManyBins", o, err)
+			}
+		}
 		if _, err := Bin(s, o); !errors.Is(err, ErrBinOptions) {
 			t.Errorf("Bin(%+v) error %v, want ErrBinOptions", o, err)
 		}
 	}
 	if _, err := Bin(nil, BinOptions{}); !errors.Is(err, ErrEmpty) {
 		t.Errorf("Bin(nil) error %v", err)
+	}
+	if _, err := Bin([]float64{1e20, 1e20}, BinOptions{Width: 0.5}); !errors.Is(err, ErrPrecision) {
+		t.Errorf("binning 1e20 at width 0.5: error %v, want ErrPrecision", err)
 	}
 	if _, err := Bin([]float64{-math.MaxFloat64, math.MaxFloat64}, BinOptions{}); err == nil {
 		t.Errorf("binning the whole float64 range should fail, not overflow")
