@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"strings"
 
 	"plumb/internal/stats"
@@ -48,6 +49,44 @@ func HistPanel(values []float64, opt HistOptions) Panel {
 	})
 }
 
+// HistPanels plans one histogram per group on shared bins: the width is
+// chosen once, from every group's values together (by the rule, Bins or
+// Width of opt), and every panel's edges are multiples of it, so that a
+// bar in one panel covers exactly the values of the bar above or beside
+// it in another. Draw them with Figure and ShareX, so that the bins line
+// up too; ShareY gives equal heights one count.
+func HistPanels(groups []Group, opt HistOptions) []Panel {
+	var pooled []float64
+	for _, g := range groups {
+		pooled = append(pooled, g.Values...)
+	}
+	panels := make([]Panel, len(groups))
+	for i, g := range groups {
+		o := opt
+		o.Title = g.Label
+		panels[i] = newPanel(o.Common, func(f *frame) (panelPlan, error) {
+			all, h, err := chooseBins(f, pooled, opt)
+			if err != nil {
+				return nil, err
+			}
+			if i == 0 {
+				f.scene.Note("bins", false, binsNote(h, histFormat(h, opt), opt)+"; the same bins in every panel")
+			}
+			s, err := stats.Sorted(g.Values)
+			if err != nil {
+				return nil, fmt.Errorf("%s: no values to draw", g.Label)
+			}
+			own, err := stats.Bin(s, stats.BinOptions{Width: h.Width, Integer: scale.IsInteger(all), MaxBins: math.MaxInt32})
+			if err != nil {
+				return nil, fmt.Errorf("%s: %w", g.Label, err)
+			}
+			own.Rule, own.Raw, own.Widened = h.Rule, h.Raw, h.Widened
+			return newHistPlan(s, o, own), nil
+		})
+	}
+	return panels
+}
+
 // histPlan is a histogram planned: its bins counted, nothing placed.
 type histPlan struct {
 	opt     HistOptions
@@ -68,46 +107,66 @@ type histPlan struct {
 const minBarPx = 2
 
 func planHist(f *frame, values []float64, opt HistOptions) (*histPlan, error) {
+	s, h, err := chooseBins(f, values, opt)
+	if err != nil {
+		return nil, err
+	}
+	p := newHistPlan(s, opt, h)
+	f.scene.Note("bins", false, binsNote(h, p.xfmt, opt))
+	return p, nil
+}
+
+// chooseBins sorts the values and bins them by opt's rule, count or width.
+func chooseBins(f *frame, values []float64, opt HistOptions) ([]float64, stats.Histogram, error) {
 	if opt.Bins < 0 {
-		return nil, &OptionError{Option: "Bins", Value: fmt.Sprint(opt.Bins), Err: ErrNegative}
+		return nil, stats.Histogram{}, &OptionError{Option: "Bins", Value: fmt.Sprint(opt.Bins), Err: ErrNegative}
 	}
 	if opt.Bins != 0 && opt.Width != 0 {
-		return nil, &OptionError{Option: "Width", Value: numValue(opt.Width), Err: fmt.Errorf("give %s or %s, not both", opt.name("Bins"), opt.name("Width"))}
+		return nil, stats.Histogram{}, &OptionError{Option: "Width", Value: numValue(opt.Width), Err: fmt.Errorf("give %s or %s, not both", opt.name("Bins"), opt.name("Width"))}
 	}
 	if math.IsNaN(opt.Width) || math.IsInf(opt.Width, 0) || opt.Width < 0 {
-		return nil, &OptionError{Option: "Width", Value: numValue(opt.Width), Err: errors.New("must be a positive number")}
+		return nil, stats.Histogram{}, &OptionError{Option: "Width", Value: numValue(opt.Width), Err: errors.New("must be a positive number")}
 	}
 	s, err := stats.Sorted(values)
 	switch {
 	case errors.Is(err, stats.ErrEmpty):
-		return nil, fmt.Errorf("no values to draw")
+		return nil, stats.Histogram{}, fmt.Errorf("no values to draw")
 	case err != nil:
-		return nil, err
+		return nil, stats.Histogram{}, err
 	}
 	if err := checkSpan("values", s); err != nil {
-		return nil, err
+		return nil, stats.Histogram{}, err
 	}
-	opt.Unit = strings.TrimSpace(opt.Unit)
 	maxBins := max(8, int((f.width-2*f.spec.pad)/minBarPx))
 	h, err := stats.Bin(s, stats.BinOptions{Bins: opt.Bins, Width: opt.Width, MaxBins: maxBins, Integer: scale.IsInteger(s)})
-	if err != nil && !errors.Is(err, stats.ErrBinOptions) {
-		return nil, fmt.Errorf("%w; divide the values by a power of ten, or give a wider %s", err, opt.name("Width"))
-	}
 	if errors.Is(err, stats.ErrTooManyBins) {
 		// The width is usable, but not over this data on this canvas.
 		msg := strings.TrimPrefix(err.Error(), stats.ErrTooManyBins.Error()+": ")
 		reason, instead, _ := strings.Cut(msg, "; ")
-		return nil, &OptionError{Option: "Width", Value: numValue(opt.Width), Err: &RefusalError{
+		return nil, h, &OptionError{Option: "Width", Value: numValue(opt.Width), Err: &RefusalError{
 			Reason:  fmt.Sprintf("%s, bars narrower than %d px", reason, minBarPx),
 			Instead: fmt.Sprintf("%s, give %s N, or leave both out to choose by rule", instead, opt.name("Bins"))}}
+	}
+	if err != nil && !errors.Is(err, stats.ErrBinOptions) {
+		return nil, h, fmt.Errorf("%w; divide the values by a power of ten, or give a wider %s", err, opt.name("Width"))
 	}
 	if err != nil {
 		option := "Bins"
 		if opt.Width != 0 {
 			option = "Width"
 		}
-		return nil, &OptionError{Option: option, Value: numValue(float64(opt.Bins) + opt.Width), Err: errors.New(strings.TrimPrefix(err.Error(), stats.ErrBinOptions.Error()+": "))}
+		return nil, h, &OptionError{Option: option, Value: numValue(float64(opt.Bins) + opt.Width), Err: errors.New(strings.TrimPrefix(err.Error(), stats.ErrBinOptions.Error()+": "))}
 	}
+	return s, h, nil
+}
+
+// histFormat is the format of a histogram's edges and width.
+func histFormat(h stats.Histogram, opt HistOptions) scale.Format {
+	return scale.ValueFormat(append(slices.Clone(h.Edges), h.Width), opt.Unit)
+}
+
+// newHistPlan finishes a plan from its sorted values and their bins.
+func newHistPlan(s []float64, opt HistOptions, h stats.Histogram) *histPlan {
 	p := &histPlan{opt: opt, h: h, sorted: s, heights: make([]float64, len(h.Counts))}
 	peak := 0.0
 	for i, c := range h.Counts {
@@ -117,7 +176,7 @@ func planHist(f *frame, values []float64, opt HistOptions) (*histPlan, error) {
 		}
 		peak = math.Max(peak, p.heights[i])
 	}
-	p.xfmt = scale.ValueFormat(append(append([]float64(nil), h.Edges...), h.Width), opt.Unit)
+	p.xfmt = histFormat(h, opt)
 	p.dx = axisDomain{kind: domainNumber, lo: h.Edges[0], hi: h.Edges[len(h.Edges)-1], integer: scale.IsInteger(h.Edges)}
 	p.dy = axisDomain{kind: domainNumber, lo: 0, hi: peak, integer: !opt.Density}
 	p.xTitle = unitTitle(opt.ValueName, opt.Unit)
@@ -126,8 +185,7 @@ func planHist(f *frame, values []float64, opt HistOptions) (*histPlan, error) {
 	} else {
 		p.yTitle = "Count per bin of " + p.xfmt.Format(h.Width)
 	}
-	f.scene.Note("bins", false, binsNote(h, p.xfmt, opt))
-	return p, nil
+	return p
 }
 
 // binsNote says how the bins were chosen and where values on an edge go.
@@ -195,6 +253,9 @@ func (p *histPlan) measure(f *frame, cellW float64, e edges) insets {
 	if e.top {
 		in.top = f.axisTitle(p.yTitle, cellW*0.9).height(lh) + sp.gap
 	}
+	// The top tick label is centred on the plot's top edge: half of it
+	// stands above, where a panel title below another panel would be.
+	in.top = math.Max(in.top, lh/2)
 	if e.left {
 		a := f.fitValue(p.dy.lo, p.dy.hi, math.Max(cellW*0.55, 1), false, p.yKind())
 		for _, l := range a.labels {
