@@ -40,6 +40,7 @@ func commandTable() []command {
 		{name: "span", summary: "ranges per category, low to high with the middle marked", synopsis: dataSynopsis, chart: func() chart { return newSpan() }},
 		{name: "box", summary: "distributions per group as Tukey box plots", synopsis: dataSynopsis, chart: func() chart { return newBox() }},
 		{name: "hist", summary: "the distribution of one column, in bins on nice edges", synopsis: dataSynopsis, chart: func() chart { return newHist() }},
+		{name: "heat", summary: "a matrix of values as colours, rows and columns ordered (clustered)", synopsis: dataSynopsis, chart: func() chart { return newHeat() }},
 		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
 		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)

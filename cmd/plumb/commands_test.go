@@ -31,6 +31,8 @@ func optionsOf(t *testing.T, ch chart) any {
 		return r.opt
 	case *histRun:
 		return r.opt
+	case *heatRun:
+		return r.opt
 	}
 	t.Fatalf("no options for %T", ch)
 	return nil

@@ -62,6 +62,10 @@ var gallery = []figure{
 	{"palette-categorical", "", []string{"palette", "categorical", "--n", "8"}},
 	{"palette-sequential", "", []string{"palette", "sequential", "--n", "7", "--hue", "blue"}},
 	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
+	{"heat-loads", "loads.csv", []string{"heat", "--row", "weekday", "--col", "hour", "--value", "load_pct", "--order", "cluster", "--tree",
+		"--value-name", "load, % of seats", "--title", "Weekend sailings fill later in the day",
+		"--subtitle", "Share of seats taken by hour of departure; weekdays in cluster order",
+		"--source", "Lantern Isles Ferry Company (fictional), demo data"}},
 }
 
 // demoSynopsis is the usage line of plumb demo.

@@ -18,6 +18,9 @@
 //     width is then rounded to the nearest nice number (1, 2, 2.5 or 5 times
 //     a power of ten, the mantissas of Heckbert 1990 and Talbot et al. 2010
 //     that give round edges) and the edges are whole multiples of it.
+//   - Rows of a matrix are clustered by Ward's (1963) criterion with the
+//     nearest-neighbour chain, and their leaves ordered so that neighbours
+//     are similar, for heat maps (cluster.go, cluster_order.go).
 //
 // Every function takes plain float64 slices. Inputs must be finite: callers
 // read and validate their data first, and the functions report NaN or an

@@ -6,13 +6,10 @@ import (
 	"slices"
 )
 
-// Errors the summaries return; callers name the data that caused them.
-var (
-	// ErrEmpty is returned when there are no values to summarise.
-	ErrEmpty = errors.New("no values")
-	// ErrNotFinite is returned when a value is NaN or infinite.
-	ErrNotFinite = errors.New("a value is not a finite number")
-)
+// ErrEmpty is returned when there are no values to summarise; a value
+// that is NaN or infinite gives ErrNotFinite (cluster.go). Callers name
+// the data that caused them.
+var ErrEmpty = errors.New("no values")
 
 // Sorted returns a sorted copy of xs, or an error when xs is empty or holds
 // a value that is not finite. The other functions of this package that take

@@ -1,0 +1,185 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"plumb/render"
+)
+
+// ErrDuplicateCell is the cause of a DataError for a long-form table that
+// gives one row and column twice.
+var ErrDuplicateCell = errors.New("gives a cell a second value")
+
+// ErrNoRowNames is the cause of a DataError for a wide table whose first
+// column, the row names, cannot be read.
+var ErrNoRowNames = errors.New("the first column has no name")
+
+// heatRun is one run of plumb heat.
+type heatRun struct {
+	shared
+	opt           render.HeatOptions
+	row, col, val string
+}
+
+func newHeat() *heatRun {
+	r := &heatRun{}
+	r.shared = newShared(&r.opt.Common)
+	return r
+}
+
+func (r *heatRun) base() *shared { return &r.shared }
+
+// heatOrders are the values of --order and --col-order.
+var heatOrders = []string{string(render.HeatByData), string(render.HeatByCluster), string(render.HeatByLabel), string(render.HeatByValue)}
+
+func (r *heatRun) flags() []flagDef {
+	o := &r.opt
+	defs := []flagDef{
+		{name: "row", arg: "COLUMN", usage: "long form: column naming each cell's row (with --col and --value); default: wide form, the first column names the rows and every numeric column is a column", value: stringValue{&r.row}},
+		{name: "col", arg: "COLUMN", usage: "long form: column naming each cell's column", value: stringValue{&r.col}},
+		{name: "value", arg: "COLUMN", usage: "long form: column with each cell's value", value: stringValue{&r.val}},
+		{name: "order", sets: []string{"RowOrder"}, values: heatOrders, def: string(render.HeatByData), usage: "order of the rows: data (as in the file), cluster (Ward, similar rows together), label, or value (mean, largest first)",
+			value: choiceValue[render.HeatOrder]{p: &o.RowOrder, values: heatOrders}},
+		{name: "col-order", sets: []string{"ColOrder"}, values: heatOrders, def: string(render.HeatByData), usage: "order of the columns, as --order",
+			value: choiceValue[render.HeatOrder]{p: &o.ColOrder, values: heatOrders}},
+		{name: "tree", sets: []string{"Tree"}, usage: "draw the row dendrogram beside the rows (with --order cluster)", value: boolValue{&o.Tree}},
+		{name: "mid", sets: []string{"Mid"}, arg: "NUMBER", usage: "centre a diverging colour scale on NUMBER (default: 0 when the values have both signs, else a sequential scale)", value: numberValue{&o.Mid}},
+		{name: "value-name", sets: []string{"ValueName"}, arg: "TEXT", usage: "what the values measure, for the colour key (default: the value column's name)", value: stringValue{&o.ValueName}},
+	}
+	return append(defs, r.shared.flags()...)
+}
+
+func (r *heatRun) load(path string, stdin io.Reader, given func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
+	var (
+		m     render.HeatMatrix
+		notes []render.Note
+		name  string
+		err   error
+	)
+	switch {
+	case r.row != "" || r.col != "" || r.val != "":
+		if r.row == "" || r.col == "" || r.val == "" {
+			return nil, nil, usagef("the long form needs --row, --col and --value together")
+		}
+		m, notes, err = r.loadLong(path, stdin)
+		name = r.val
+	default:
+		m, notes, name, err = r.loadWide(path, stdin)
+	}
+	if err != nil {
+		return nil, nil, err
+	}
+	if r.opt.ValueName == "" {
+		r.opt.ValueName = name
+	}
+	return notes, func(w io.Writer) ([]render.Note, error) { return render.Heat(w, m, r.opt) }, nil
+}
+
+// loadLong reads one cell per line: row, column and value columns. Rows
+// and columns keep the order of their first appearance; a cell given
+// twice is an error, since a heat map draws one value per cell.
+func (r *heatRun) loadLong(path string, stdin io.Reader) (render.HeatMatrix, []render.Note, error) {
+	var m render.HeatMatrix
+	t, notes, err := readData(path, r.readOptions(), []string{r.row, r.col, r.val}, stdin)
+	if err != nil {
+		return m, nil, err
+	}
+	rdict, rcodes := t.Codes(r.row)
+	if rdict == nil {
+		return m, nil, t.missingColumn(r.row, 1)
+	}
+	cdict, ccodes := t.Codes(r.col)
+	if cdict == nil {
+		return m, nil, t.missingColumn(r.col, 1)
+	}
+	n, err := t.ReadNumbers(r.val)
+	if err != nil {
+		return m, nil, err
+	}
+	notes = append(notes, renderNotes(n.Notes)...)
+	if len(n.Missing) > 0 {
+		notes = append(notes, skippedNote(t, n.Missing, r.val))
+	}
+	// Codes number the labels in order of first appearance.
+	m.Rows, m.Cols = rdict, cdict
+	m.Values = make([]float64, len(rdict)*len(cdict))
+	for i := range m.Values {
+		m.Values[i] = math.NaN()
+	}
+	line := make([]int, len(m.Values)) // the row of the table that gave each cell, +1
+	for i, v := range n.Values {
+		if math.IsNaN(v) {
+			continue
+		}
+		k := int(rcodes[i])*len(cdict) + int(ccodes[i])
+		if line[k] != 0 {
+			return m, nil, &DataError{File: path, Line: t.Line(i), Column: r.val, Text: fmt.Sprintf("%s, %s", rdict[rcodes[i]], cdict[ccodes[i]]), Err: ErrDuplicateCell,
+				Hint: fmt.Sprintf("line %d already gives row %q, column %q; keep one line per cell or combine them first", t.Line(line[k]-1), rdict[rcodes[i]], cdict[ccodes[i]])}
+		}
+		line[k] = i + 1
+		m.Values[k] = v
+	}
+	if r.opt.Unit == "" {
+		r.opt.Unit = n.Unit
+	}
+	return m, notes, nil
+}
+
+// loadWide reads the first column as row labels and every numeric column
+// after it as a column of the heat map.
+func (r *heatRun) loadWide(path string, stdin io.Reader) (render.HeatMatrix, []render.Note, string, error) {
+	var m render.HeatMatrix
+	t, notes, err := readData(path, r.readOptions(), nil, stdin)
+	if err != nil {
+		return m, nil, "", err
+	}
+	if len(t.Header) < 2 {
+		return m, nil, "", tooFewColumns(t, "a heat map needs a label column and at least one column of values (or --row, --col and --value)")
+	}
+	label := t.Header[0]
+	cols, err := t.NumericColumns(label, nil, 0, true)
+	if err != nil {
+		return m, nil, "", err
+	}
+	if len(cols) == 0 {
+		return m, nil, "", tooFewColumns(t, "a heat map needs at least one numeric column after the labels")
+	}
+	m.Rows = t.Strings(label)
+	if m.Rows == nil {
+		return m, nil, "", &DataError{File: path, Line: 1, Err: ErrNoRowNames, Hint: "give the first column a name in the header: it names the rows"}
+	}
+	m.Cols = cols
+	nr, nc := len(m.Rows), len(cols)
+	m.Values = make([]float64, nr*nc)
+	for j, c := range cols {
+		n, err := t.ReadNumbers(c)
+		if err != nil {
+			return m, nil, "", err
+		}
+		notes = append(notes, renderNotes(n.Notes)...)
+		for i, v := range n.Values[:min(nr, len(n.Values))] {
+			m.Values[i*nc+j] = v
+		}
+		if r.opt.Unit == "" {
+			r.opt.Unit = n.Unit
+		}
+	}
+	notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("rows named by %q, %d numeric columns as the heat map's columns (or give the long form with --row, --col and --value)", label, nc)})
+	var left []string
+	for _, h := range t.Header[1:] {
+		if !slices.Contains(cols, h) {
+			left = append(left, strconv.Quote(h))
+		}
+	}
+	if len(left) > 0 {
+		notes = append(notes, render.Note{Code: "heat-columns-left-out", Changed: true,
+			Text: fmt.Sprintf("left out %s, not read as numbers (fix its cells to draw it)", strings.Join(left, ", "))})
+	}
+	return m, notes, "", nil
+}
