@@ -139,7 +139,13 @@ func drawBox(f *frame, r boxRow, xs scale.Linear, cy, thick float64) ([]layout.B
 	var boxes []layout.Box
 	if len(r.values) < MinBoxN {
 		for _, v := range r.values {
-			f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark plumb-point", X: x(v), Y: y, R: radius, Fill: f.th.neutral,
+			// Values beyond Tukey's fences keep the outlier class, so
+			// that a count of outliers does not depend on n.
+			class := "plumb-mark plumb-point"
+			if v < b.LowFence || v > b.HighFence {
+				class += " plumb-outlier"
+			}
+			f.scene.Add(Mark{Kind: Circle, Class: class, X: x(v), Y: y, R: radius, Fill: f.th.neutral,
 				Attrs: []Attr{{"label", r.label}, {"value", dataNumber(v)}}})
 			boxes = append(boxes, layout.Box{X: x(v) - radius, Y: y - radius, W: 2 * radius, H: 2 * radius})
 		}

@@ -95,6 +95,18 @@ func TestBoxQuartilesAndOutliers(t *testing.T) {
 			}
 		}
 		assert.Equal(t, 3, pts)
+		// Every value beyond its group's fences carries the outlier
+		// class, boxed or not.
+		total := 0
+		for _, vals := range groups {
+			q1, q3 := type7(vals, 0.25), type7(vals, 0.75)
+			for _, v := range vals {
+				if v < q1-1.5*(q3-q1) || v > q3+1.5*(q3-q1) {
+					total++
+				}
+			}
+		}
+		assert.Len(t, root.all("circle", "plumb-outlier"), total)
 		assert.Contains(t, errs, "drew the values instead of a box")
 	}
 }
@@ -127,4 +139,16 @@ func TestBoxErrors(t *testing.T) {
 	assert.Contains(t, errs, `"road"`)
 	code, _, errs = plumb(t, "", "box", p, "--group", "route", "--value", "route")
 	assert.Equal(t, 2, code, errs)
+}
+
+// A group too small for a box is drawn as its values; one beyond Tukey's
+// fences still counts as an outlier.
+func TestBoxSmallGroupOutlier(t *testing.T) {
+	code, out, errs := plumb(t, "g,v\na,1\na,2\na,3\na,100\n", "box", "-", "--group", "g", "--value", "v")
+	require.Equal(t, 0, code, errs)
+	root := checkFigure(t, []byte(out))
+	assert.Len(t, root.all("circle", "plumb-point"), 4)
+	assert.Len(t, root.all("circle", "plumb-outlier"), 1)
+	assert.Empty(t, root.all("rect", "plumb-box"))
+	assert.Contains(t, errs, `"a" (n = 4)`)
 }
