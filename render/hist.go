@@ -250,12 +250,12 @@ func (p *histPlan) measure(f *frame, cellW float64, e edges) insets {
 	sp := f.spec
 	lh := lineHeight(sp.text)
 	var in insets
-	if e.top {
-		in.top = f.axisTitle(p.yTitle, cellW*0.9).height(lh) + sp.gap
-	}
 	// The top tick label is centred on the plot's top edge: half of it
-	// stands above, where a panel title below another panel would be.
-	in.top = math.Max(in.top, lh/2)
+	// stands above, where the unit line or a panel title would be.
+	in.top = lh / 2
+	if e.top {
+		in.top = f.axisTitle(p.yTitle, cellW*0.9).height(lh) + titleLift(f)
+	}
 	if e.left {
 		a := f.fitValue(p.dy.lo, p.dy.hi, math.Max(cellW*0.55, 1), false, p.yKind())
 		for _, l := range a.labels {
@@ -274,6 +274,12 @@ func (p *histPlan) measure(f *frame, cellW float64, e edges) insets {
 		}
 	}
 	return in
+}
+
+// titleLift is the space between the unit line and the plot: a gap, or
+// more when the top tick label, centred on the plot's edge, needs it.
+func titleLift(f *frame) float64 {
+	return math.Max(f.spec.gap, lineHeight(f.spec.text)/2+1)
 }
 
 func (p *histPlan) height(f *frame, plotW, room float64) (float64, error) {
@@ -295,7 +301,7 @@ func (p *histPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	out := placed{xs: xs, ys: ys}
 	if e.top {
 		t := f.axisTitle(p.yTitle, plot.W+plot.X)
-		top := plot.Y - sp.gap - t.height(lh)
+		top := plot.Y - titleLift(f) - t.height(lh)
 		f.drawAxisTitle(t, round2(math.Max(plot.X-f.measure("0", sp.text, false), sp.pad)), top)
 	}
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})

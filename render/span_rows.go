@@ -217,6 +217,8 @@ func (p *valueRows) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 			for j, l := range lines {
 				y := textY + (float64(j)-float64(len(lines)-1)/2)*lh
 				f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: round2(plot.X - sp.gap*1.5), Y: round2(y), Text: l, Size: sp.text, Fill: f.th.text, Anchor: End, Tooltip: tip})
+				w := f.measure(l, sp.text, false)
+				out.text = append(out.text, layout.Box{X: plot.X - sp.gap*1.5 - w, Y: y - asc, W: w, H: lh})
 			}
 		}
 		boxes, end := r.draw(f, xs, cy, thick)
@@ -224,9 +226,11 @@ func (p *valueRows) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 		out.cats = append(out.cats, catPlace{label: r.label, centre: cy, size: p.band, end: end})
 		if r.right != "" {
 			f.text(round2(plot.X+plot.W+sp.gap), round2(textY), r.right, sp.text, false, f.th.muted, "plumb-value plumb-n", Start)
+			out.text = append(out.text, layout.Box{X: plot.X + plot.W + sp.gap, Y: textY - asc, W: f.measure(r.right, sp.text, false), H: lh})
 		}
 		if r.direct != "" {
 			f.text(round2(end+sp.gap), round2(textY), r.direct, sp.text, false, f.th.text, "plumb-label plumb-direct", Start)
+			out.text = append(out.text, layout.Box{X: end + sp.gap, Y: textY - asc, W: f.measure(r.direct, sp.text, false), H: lh})
 		}
 	}
 	return out, nil
