@@ -31,3 +31,26 @@ func ExampleHist() {
 	// 30 to 35: 1
 	// bins of 5 min: the Freedman–Diaconis width 2·IQR·n^(−1/3) = 4.18 min rounded to a nice number; 7 bins from 0 min to 35 min, each holding values from its lower edge up to but not including its upper edge
 }
+
+// Histograms of several groups on shared bins, one panel each: the width
+// is chosen once from all the values, so a bar in one panel covers the
+// same values as the bar under it in the next.
+func ExampleHistPanels() {
+	groups := []render.Group{
+		{Label: "Winter", Values: []float64{2, 4, 4, 5, 6, 7, 8, 9, 11, 30}},
+		{Label: "Summer", Values: []float64{1, 1, 2, 2, 3, 3, 3, 4, 5, 8}},
+	}
+	var svg bytes.Buffer
+	notes, err := render.Figure(&svg, render.FigureOptions{Columns: 1, ShareX: true, ShareY: true}, render.HistPanels(groups, render.HistOptions{Unit: "min"})...)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, n := range notes {
+		if n.Code == "bins" {
+			fmt.Println(n)
+		}
+	}
+	// Output:
+	// bins of 5 min: the Freedman–Diaconis width 2·IQR·n^(−1/3) = 3.32 min rounded to a nice number; 7 bins from 0 min to 35 min, each holding values from its lower edge up to but not including its upper edge; the same bins in every panel
+}

@@ -60,9 +60,11 @@ func (r *spanRun) flags() []flagDef {
 	return append(defs, r.shared.flags()...)
 }
 
-func (r *spanRun) load(path string, stdin io.Reader, _ func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
+func (r *spanRun) load(path string, stdin io.Reader, flagGiven func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
 	given := r.low != "" || r.mid != "" || r.high != ""
 	switch {
+	case given && flagGiven("stat"):
+		return nil, nil, usagef("--stat computes ranges from raw rows (--value); with --low --mid --high the ranges are given as they are")
 	case given && r.value != "":
 		return nil, nil, usagef("give --low --mid --high (ranges as given) or --value (ranges computed from raw rows), not both")
 	case given && (r.low == "" || r.mid == "" || r.high == ""):

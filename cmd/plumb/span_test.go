@@ -120,6 +120,7 @@ func TestSpanErrors(t *testing.T) {
 		{[]string{"--value", "low", "--label", "site", "--mark-where", "site=Z"}, 1, "no row with a value has site=Z"},
 		{[]string{"--value", "low", "--label", "site", "--mark-where", "site=A"}, 1, "line 4"},
 		{nil, 2, "--value"},
+		{[]string{"--low", "low", "--mid", "mid", "--high", "high", "--stat", "quartiles"}, 2, "--stat computes ranges from raw rows"},
 	} {
 		code, _, errs := plumb(t, "", append([]string{"span", p}, tc.args...)...)
 		assert.Equal(t, tc.code, code, "%v: %s", tc.args, errs)
