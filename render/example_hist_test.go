@@ -29,7 +29,7 @@ func ExampleHist() {
 	// 5 to 10: 5
 	// 10 to 15: 1
 	// 30 to 35: 1
-	// bins of 5 min: the Freedman–Diaconis width 2·IQR·n^(−1/3) = 4.18 min rounded to a nice number; 7 bins from 0 min to 35 min, each holding values from its lower edge up to but not including its upper edge
+	// bins of 5 min: the Freedman–Diaconis width 2·IQR·n^(−1/3) = 4.18 min rounded to a nice whole number, as the values are whole; 7 bins from 0 min to 35 min, each holding values from its lower edge up to but not including its upper edge
 }
 
 // Histograms of several groups on shared bins, one panel each: the width
@@ -52,5 +52,5 @@ func ExampleHistPanels() {
 		}
 	}
 	// Output:
-	// bins of 5 min: the Freedman–Diaconis width 2·IQR·n^(−1/3) = 3.32 min rounded to a nice number; 7 bins from 0 min to 35 min, each holding values from its lower edge up to but not including its upper edge; the same bins in every panel
+	// bins of 5 min: the Freedman–Diaconis width 2·IQR·n^(−1/3) = 3.32 min rounded to a nice whole number, as the values are whole; 7 bins from 0 min to 35 min, each holding values from its lower edge up to but not including its upper edge; the same bins in every panel
 }

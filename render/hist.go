@@ -192,13 +192,17 @@ func newHistPlan(s []float64, opt HistOptions, h stats.Histogram) *histPlan {
 func binsNote(h stats.Histogram, vf scale.Format, opt HistOptions) string {
 	var b strings.Builder
 	w := vf.Format(h.Width)
+	nice := "a nice number"
+	if !h.LastClosed() {
+		nice = "a nice whole number, as the values are whole"
+	}
 	switch h.Rule {
 	case stats.FreedmanDiaconis:
-		fmt.Fprintf(&b, "bins of %s: the Freedman–Diaconis width 2·IQR·n^(−1/3) = %s rounded to a nice number", w, scale.ValueFormat([]float64{h.Raw}, opt.Unit).Format(h.Raw))
+		fmt.Fprintf(&b, "bins of %s: the Freedman–Diaconis width 2·IQR·n^(−1/3) = %s rounded to %s", w, scale.ValueFormat([]float64{h.Raw}, opt.Unit).Format(h.Raw), nice)
 	case stats.Sturges:
-		fmt.Fprintf(&b, "bins of %s: the IQR is 0, so Sturges' rule (%d bins over the range) rounded to a nice width", w, stats.SturgesBins(h.N))
+		fmt.Fprintf(&b, "bins of %s: the IQR is 0, so Sturges' rule (%d bins over the range), the width rounded to %s", w, stats.SturgesBins(h.N), nice)
 	case stats.BinCount:
-		fmt.Fprintf(&b, "bins of %s: %d bins asked (%s), width rounded to a nice number", w, opt.Bins, opt.name("Bins"))
+		fmt.Fprintf(&b, "bins of %s: %d bins asked (%s), the width rounded to %s", w, opt.Bins, opt.name("Bins"), nice)
 	case stats.BinWidth:
 		fmt.Fprintf(&b, "bins of %s as given (%s)", w, opt.name("Width"))
 	case stats.SingleValue:
