@@ -29,6 +29,10 @@ type BoxOptions struct {
 	Unit      string // unit of the values, said once in the unit line ("min", "°C"); a currency sign leads every tick
 	ValueName string // what the values measure, for the unit line and the description
 	GroupName string // what the groups are, for the description
+	// Vertical stands the boxes up, one column per group, the names
+	// under them; rows read better with long names, so it is not the
+	// default.
+	Vertical bool
 }
 
 // MinBoxN is the smallest group drawn as a box: below it the quartiles of
@@ -57,7 +61,15 @@ func BoxScene(groups []Group, opt BoxOptions) (*Scene, error) {
 // BoxPanel plans box plots for a cell of a figure.
 func BoxPanel(groups []Group, opt BoxOptions) Panel {
 	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
-		return planBox(f, groups, opt)
+		p, err := planBox(f, groups, opt)
+		switch {
+		case err != nil:
+			return nil, err
+		case opt.Vertical:
+			// Largest median first, on the left, as on vertical bars.
+			return &valueColumns{valueRows: p}, nil
+		}
+		return p, nil
 	})
 }
 
@@ -101,8 +113,8 @@ func planBox(f *frame, groups []Group, opt BoxOptions) (*valueRows, error) {
 		p.rows = append(p.rows, valueRow{
 			label: r.label, key: r.box.Median, lo: r.values[0], hi: r.values[len(r.values)-1],
 			right: fmt.Sprintf("n = %s", groupThousands(len(r.values))),
-			draw: func(f *frame, xs scale.Linear, cy, thick float64) ([]layout.Box, float64) {
-				return drawBox(f, r, xs, cy, thick)
+			draw: func(f *frame, pos scale.Linear, c, thick float64, vertical bool) ([]layout.Box, float64) {
+				return drawBox(f, r, pos, c, thick, vertical)
 			},
 		})
 	}
@@ -129,34 +141,54 @@ func planBox(f *frame, groups []Group, opt BoxOptions) (*valueRows, error) {
 }
 
 // drawBox draws one group's box, median, whiskers and outliers, or its
-// values when there are too few for a box.
-func drawBox(f *frame, r boxRow, xs scale.Linear, cy, thick float64) ([]layout.Box, float64) {
+// values when there are too few for a box, across the value axis at
+// centre c (a row's y, or a column's x when vertical).
+func drawBox(f *frame, r boxRow, pos scale.Linear, c, thick float64, vertical bool) ([]layout.Box, float64) {
 	sp := f.spec
 	b := r.box
-	x := func(v float64) float64 { return round2(xs.Map(v)) }
+	v := func(x float64) float64 { return round2(pos.Map(x)) }
+	c = round2(c)
+	// pt and box turn (along the value axis, across it) into the page.
+	pt := func(along, across float64) Point {
+		if vertical {
+			return Point{X: across, Y: along}
+		}
+		return Point{X: along, Y: across}
+	}
+	box := func(a0, a1, c0, c1 float64) layout.Box {
+		a0, a1 = min(a0, a1), max(a0, a1)
+		if vertical {
+			return layout.Box{X: c0, Y: a0, W: c1 - c0, H: a1 - a0}
+		}
+		return layout.Box{X: a0, Y: c0, W: a1 - a0, H: c1 - c0}
+	}
 	radius := math.Max(2, sp.text*0.28)
-	y := round2(cy)
+	dot := func(x float64) layout.Box { return box(v(x)-radius, v(x)+radius, c-radius, c+radius) }
 	var boxes []layout.Box
+	end := func(x float64) float64 { // the far end of a mark at x, along the value axis
+		if vertical {
+			return v(x) - radius
+		}
+		return v(x) + radius
+	}
 	if len(r.values) < MinBoxN {
-		for _, v := range r.values {
+		for _, x := range r.values {
 			// Values beyond Tukey's fences keep the outlier class, so
 			// that a count of outliers does not depend on n.
 			class := "plumb-mark plumb-point"
-			if v < b.LowFence || v > b.HighFence {
+			if x < b.LowFence || x > b.HighFence {
 				class += " plumb-outlier"
 			}
-			f.scene.Add(Mark{Kind: Circle, Class: class, X: x(v), Y: y, R: radius, Fill: f.th.neutral,
-				Attrs: []Attr{{"label", r.label}, {"value", dataNumber(v)}}})
-			boxes = append(boxes, layout.Box{X: x(v) - radius, Y: y - radius, W: 2 * radius, H: 2 * radius})
+			p := pt(v(x), c)
+			f.scene.Add(Mark{Kind: Circle, Class: class, X: p.X, Y: p.Y, R: radius, Fill: f.th.neutral,
+				Attrs: []Attr{{"label", r.label}, {"value", dataNumber(x)}}})
+			boxes = append(boxes, dot(x))
 		}
-		return boxes, x(r.values[len(r.values)-1]) + radius
+		return boxes, end(r.values[len(r.values)-1])
 	}
 	lw := math.Max(1.5, 2*sp.text/13)
 	whisker := func(from, to float64) {
-		if (to - from) == 0 {
-			return
-		}
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-whisker", Lines: [][]Point{{{x(from), y}, {x(to), y}}}, Stroke: f.th.neutral, StrokeWidth: lw, Cap: CapRound})
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-whisker", Lines: [][]Point{{pt(v(from), c), pt(v(to), c)}}, Stroke: f.th.neutral, StrokeWidth: lw, Cap: CapRound})
 	}
 	// A whisker that ends inside the box (see stats.Box) is not drawn.
 	if b.LowWhisker < b.Q1 {
@@ -165,26 +197,34 @@ func drawBox(f *frame, r boxRow, xs scale.Linear, cy, thick float64) ([]layout.B
 	if b.HighWhisker > b.Q3 {
 		whisker(b.Q3, b.HighWhisker)
 	}
-	x1, x3 := x(b.Q1), x(b.Q3)
-	w := math.Max(x3-x1, 1) // a box of zero IQR still shows as a line
-	top := round2(cy - thick/2)
-	f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark plumb-box", X: x1, Y: top, W: round2(w), H: round2(thick), Fill: f.th.neutral,
+	// A box of zero IQR still shows, as a line 1 px long.
+	a1, a3 := v(b.Q1), v(b.Q3)
+	if math.Abs(a3-a1) < 1 {
+		a3 = a1 + 1
+		if vertical {
+			a3 = a1 - 1
+		}
+	}
+	c0 := round2(c - thick/2)
+	rb := box(a1, a3, c0, round2(c0+thick))
+	f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark plumb-box", X: round2(rb.X), Y: round2(rb.Y), W: round2(rb.W), H: round2(rb.H), Fill: f.th.neutral,
 		Attrs: []Attr{{"label", r.label}, {"q1", dataNumber(b.Q1)}, {"median", dataNumber(b.Median)}, {"q3", dataNumber(b.Q3)},
 			{"low", dataNumber(b.LowWhisker)}, {"high", dataNumber(b.HighWhisker)}, {"n", fmt.Sprint(b.N)}}})
 	// The median is a gap of the page's white across the box: it keeps the
 	// box one colour, reads at any size, and needs no second ink (common
 	// practice).
-	xm := x(b.Median)
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-median", Lines: [][]Point{{{xm, top}, {xm, round2(top + thick)}}}, Stroke: white, StrokeWidth: math.Max(2, lw)})
-	boxes = append(boxes, layout.Box{X: x(b.LowWhisker), Y: top, W: x(b.HighWhisker) - x(b.LowWhisker), H: thick})
-	end := math.Max(x(b.HighWhisker), x3)
-	for _, v := range b.Outliers {
-		f.scene.Add(Mark{Kind: Circle, Class: "plumb-outlier", X: x(v), Y: y, R: radius, Stroke: f.th.neutral, StrokeWidth: 1.25,
-			Attrs: []Attr{{"label", r.label}, {"value", dataNumber(v)}}})
-		boxes = append(boxes, layout.Box{X: x(v) - radius, Y: y - radius, W: 2 * radius, H: 2 * radius})
-		end = math.Max(end, x(v)+radius)
+	m := v(b.Median)
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-median", Lines: [][]Point{{pt(m, c0), pt(m, round2(c0+thick))}}, Stroke: white, StrokeWidth: math.Max(2, lw)})
+	boxes = append(boxes, box(v(b.LowWhisker), v(b.HighWhisker), c0, c0+thick))
+	top := max(b.HighWhisker, b.Q3)
+	for _, x := range b.Outliers {
+		p := pt(v(x), c)
+		f.scene.Add(Mark{Kind: Circle, Class: "plumb-outlier", X: p.X, Y: p.Y, R: radius, Stroke: f.th.neutral, StrokeWidth: 1.25,
+			Attrs: []Attr{{"label", r.label}, {"value", dataNumber(x)}}})
+		boxes = append(boxes, dot(x))
+		top = max(top, x)
 	}
-	return boxes, end
+	return boxes, end(top)
 }
 
 // moreNames is ", and k more" when a list of n was cut to max.

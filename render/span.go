@@ -139,7 +139,7 @@ func planSpan(f *frame, ranges []Range, opt SpanOptions) (*valueRows, error) {
 			lo, hi = math.Min(lo, *r.Mark), math.Max(hi, *r.Mark)
 		}
 		p.rows = append(p.rows, valueRow{label: r.Label, key: r.Mid, lo: lo, hi: hi,
-			draw: func(f *frame, xs scale.Linear, cy, thick float64) ([]layout.Box, float64) {
+			draw: func(f *frame, xs scale.Linear, cy, thick float64, _ bool) ([]layout.Box, float64) {
 				return drawRange(f, r, markName, xs, cy, thick)
 			}})
 	}

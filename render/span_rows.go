@@ -25,9 +25,10 @@ type valueRow struct {
 	lo, hi float64 // the extent of the row's marks in data units
 	right  string  // text in the column right of the plot ("n = 12"), or ""
 	direct string  // a label drawn right of the row's marks (the name of an overlay), or ""
-	// draw adds the row's marks at centre y cy, thick px high, and returns
-	// their boxes and the x where the row's marks end on the right.
-	draw func(f *frame, xs scale.Linear, cy, thick float64) ([]layout.Box, float64)
+	// draw adds the row's marks across the value axis pos at centre c (a
+	// row's y; a column's x when vertical), thick px across, and returns
+	// their boxes and where its marks end towards the high values.
+	draw func(f *frame, pos scale.Linear, c, thick float64, vertical bool) ([]layout.Box, float64)
 }
 
 // valueRows is the panel plan of span and box.
@@ -221,7 +222,7 @@ func (p *valueRows) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 				out.text = append(out.text, layout.Box{X: plot.X - sp.gap*1.5 - w, Y: y - asc, W: w, H: lh})
 			}
 		}
-		boxes, end := r.draw(f, xs, cy, thick)
+		boxes, end := r.draw(f, xs, cy, thick, false)
 		out.marks = append(out.marks, boxes...)
 		out.cats = append(out.cats, catPlace{label: r.label, centre: cy, size: p.band, end: end})
 		if r.right != "" {

@@ -38,6 +38,7 @@ func (r *boxRun) flags() []flagDef {
 			value: choiceValue[render.Order]{p: &o.Order, values: orders}},
 		{name: "unit", sets: []string{"Unit"}, arg: "UNIT", usage: "unit of the values, such as min or kg (default: the sign the cells carry)", value: stringValue{&o.Unit}},
 		{name: "value-name", sets: []string{"ValueName"}, arg: "TEXT", usage: "what the values measure, for the axis (default: the value column's name)", value: stringValue{&o.ValueName}},
+		{name: "vertical", sets: []string{"Vertical"}, usage: "stand the boxes up, one column per group (rows read better with long names)", value: boolValue{&o.Vertical}},
 	}
 	return append(defs, r.shared.flags()...)
 }

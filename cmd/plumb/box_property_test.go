@@ -49,6 +49,9 @@ func TestDistributionProperties(t *testing.T) {
 		switch trial % 3 {
 		case 0:
 			args = []string{"box", "-", "--group", "label", "--value", "value"}
+			if trial%2 == 0 {
+				args = append(args, "--vertical")
+			}
 		case 1:
 			args = []string{"hist", "-", "--value", "value"}
 			if trial%2 == 0 {

@@ -58,7 +58,11 @@ func crossingTable(seed uint64) (string, map[string][]float64) {
 func TestBoxQuartilesAndOutliers(t *testing.T) {
 	for seed := range uint64(6) {
 		data, groups := crossingTable(seed)
-		code, out, errs := plumb(t, data, "box", "-", "--group", "route", "--value", "minutes")
+		args := []string{"box", "-", "--group", "route", "--value", "minutes"}
+		if seed%2 == 1 {
+			args = append(args, "--vertical") // the same marks, stood up
+		}
+		code, out, errs := plumb(t, data, args...)
 		require.Equal(t, 0, code, errs)
 		root := checkFigure(t, []byte(out))
 		boxes := root.all("rect", "plumb-box")
