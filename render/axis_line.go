@@ -5,6 +5,9 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+
+	"plumb/layout"
+	"plumb/scale"
 )
 
 // Aspect ratio limits of a banked plot, as plot height over plot width. A
@@ -37,35 +40,118 @@ func parseAspect(s string) (method string, forced float64, err error) {
 	return "", 0, &OptionError{Option: "Aspect", Value: strconv.Quote(s), Err: errors.New("the ratio is out of range; use width:height such as 16:9")}
 }
 
-// fitPanelsX places cols plots of one width side by side, from left0 to
-// the right edge less labelW (room for end labels beside the last plot). It
-// fits the x ticks to the plot width, then narrows the plots until the
-// outer tick labels, centred on their ticks, stay on the canvas and keep one
-// text height clear of the labels of the neighbouring plot, widening the
-// gutter between plots (at least gap0) as they need. It returns the first
-// plot's left edge, the plot width, the gutter and the axis; the width may
-// come out too small to draw, which callers check.
-func (f *frame) fitPanelsX(left0, labelW float64, cols int, gap0, xlo, xhi float64, k xKind) (left, w, gap float64, ax axis) {
+// minPanelChars is the narrowest plot of a panel in a grid, in characters
+// of text: room for two or three x tick labels.
+const minPanelChars = 7
+
+// lineAxes are the x and y axes of a panel of lines, on a number or time
+// x axis: line charts and difference charts measure, fit and draw them
+// alike.
+type lineAxes struct {
+	xk     xKind
+	yk     yKind
+	x, y   axisDomain // the domains to draw, the grid's when shared
+	labelW float64    // room right of the plot for direct labels
+	xName  string     // the x axis title, under the tick labels
+	// Set by fit.
+	left, w float64 // the room left of the plot and the plot's width
+	ax      axis    // the x axis fitted to w
+}
+
+// yLabelWidth is the room the y tick labels take left of the plot, their
+// gap to it included.
+func (a *lineAxes) yLabelWidth(f *frame) float64 {
+	return math.Ceil(f.yLabelWidth(a.y.lo, a.y.hi, a.yk) + f.spec.gap)
+}
+
+// fit places the plot in a cell cellW wide, with yw px of y tick labels
+// left of it when it has them. It fits the x ticks to the plot width, then
+// narrows the plot until the outer tick labels, centred on their ticks,
+// stay in the cell, and returns the room left and right of the plot. The
+// width may come out too small to draw, which height checks.
+func (a *lineAxes) fit(f *frame, cellW, yw float64, e edges) insets {
 	sp := f.spec
-	cols = max(cols, 1)
-	n := float64(cols)
-	right := f.width - sp.pad
-	w = math.Floor((right - labelW - left0 - (n-1)*gap0) / n)
+	left0 := 0.0
+	if e.left {
+		left0 = yw
+	}
+	w := math.Floor(cellW - a.labelW - left0)
 	for {
-		ax = f.fitX(xlo, xhi, k, w)
-		lo, ro := f.overhang(ax, w)
-		left, gap = math.Max(left0, math.Ceil(sp.pad+lo)), gap0
-		if cols > 1 {
-			gap = math.Max(gap0, math.Ceil(lo+ro+sp.text))
+		a.ax = f.fitX(a.x.lo, a.x.hi, a.xk, w)
+		lo, ro := 0.0, 0.0
+		if e.bottom {
+			lo, ro = f.overhang(a.ax, w)
 		}
-		excess := left + n*w + (n-1)*gap + math.Max(labelW, ro) - right
-		// Each pass narrows the plots, so the loop ends; below a few
+		a.left = math.Max(left0, math.Ceil(lo))
+		excess := a.left + w + math.Max(a.labelW, ro) - cellW
+		// Each pass narrows the plot, so the loop ends; below a few
 		// characters' width no caller draws.
 		if excess <= 0 || w < sp.text*4 {
-			return left, w, gap, ax
+			break
 		}
-		w -= math.Max(1, math.Ceil(excess/n))
+		w -= math.Max(1, math.Ceil(excess))
 	}
+	a.w = w
+	// The grid gives the plot what the cell leaves: floored, the room on
+	// the right gives back exactly w.
+	return insets{left: a.left, right: math.Max(0, math.Floor(cellW-a.left-w))}
+}
+
+// bottom is the room under the plot: the x tick labels and the axis title
+// on the grid's bottom edge, else half a line for the lowest y tick label,
+// which is centred on the plot's bottom edge.
+func (a *lineAxes) bottom(f *frame, e edges) float64 {
+	sp := f.spec
+	if !e.bottom {
+		return halfLine(f)
+	}
+	b := f.xLabelTop(0) + lineHeight(sp.text)
+	if a.xName != "" {
+		b += lineHeight(sp.text)
+	}
+	return b
+}
+
+// halfLine is half a line of text, rounded up: the room the outer y tick
+// labels, centred on the plot's top and bottom edges, reach beyond them.
+func halfLine(f *frame) float64 {
+	face := f.fonts.Face(false)
+	return math.Ceil((face.Ascent(f.spec.text) + face.Descent(f.spec.text)) / 2)
+}
+
+// xAxisFor is the x axis for a plot w px wide: the fitted one, or fitted
+// again when the grid gave another width.
+func (a *lineAxes) xAxisFor(f *frame, w float64) axis {
+	if w != a.w {
+		a.ax, a.w = f.fitX(a.x.lo, a.x.hi, a.xk, w), w
+	}
+	return a.ax
+}
+
+// draw draws both axes of the plot, tick labels on the grid's outer edges
+// only, and the x axis title; it returns the y under them.
+func (a *lineAxes) draw(f *frame, ay axis, ys scale.Linear, plot layout.Box, e edges) float64 {
+	sp := f.spec
+	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
+	f.drawYAxis(ay, ys, plot.X, plot.X+plot.W, e.left)
+	bottom := f.drawXAxis(a.ax, plot.X, int(plot.W), plot.Y+plot.H, e.bottom)
+	if a.xName != "" && e.bottom {
+		f.text(plot.X+plot.W/2, bottom+f.fonts.Face(false).Ascent(sp.text), a.xName, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
+		bottom += lineHeight(sp.text)
+	}
+	f.scene.Add(Mark{Kind: GroupEnd})
+	return bottom
+}
+
+// xyDomains are the domains of a panel of lines over x in [xlo, xhi] and
+// values in [ylo, yhi].
+func xyDomains(xlo, xhi, ylo, yhi float64, xk xKind, yk yKind) (x, y axisDomain) {
+	x = axisDomain{kind: domainNumber, lo: xlo, hi: xhi, integer: xk.integer}
+	if xk.time {
+		x.kind = domainTime
+	}
+	y = axisDomain{kind: domainNumber, lo: ylo, hi: yhi, integer: yk.integer}
+	return x, y
 }
 
 // axisTitleText is an axis or panel title wrapped to its width.

@@ -76,7 +76,7 @@ func HistPanels(groups []Group, opt HistOptions) []Panel {
 			if err != nil {
 				return nil, fmt.Errorf("%s: no values to draw", g.Label)
 			}
-			own, err := stats.Bin(s, stats.BinOptions{Width: h.Width, Integer: scale.IsInteger(all), MaxBins: math.MaxInt32})
+			own, err := stats.BinValues(s, stats.BinOptions{Width: h.Width, Integer: scale.IsInteger(all), MaxBins: math.MaxInt32})
 			if err != nil {
 				return nil, fmt.Errorf("%s: %w", g.Label, err)
 			}
@@ -138,7 +138,7 @@ func chooseBins(f *frame, values []float64, opt HistOptions) ([]float64, stats.H
 		return nil, stats.Histogram{}, err
 	}
 	maxBins := max(8, int((f.width-2*f.spec.pad)/minBarPx))
-	h, err := stats.Bin(s, stats.BinOptions{Bins: opt.Bins, Width: opt.Width, MaxBins: maxBins, Integer: scale.IsInteger(s)})
+	h, err := stats.BinValues(s, stats.BinOptions{Bins: opt.Bins, Width: opt.Width, MaxBins: maxBins, Integer: scale.IsInteger(s)})
 	if errors.Is(err, stats.ErrTooManyBins) {
 		// The width is usable, but not over this data on this canvas.
 		msg := strings.TrimPrefix(err.Error(), stats.ErrTooManyBins.Error()+": ")

@@ -50,18 +50,47 @@ func Lines(w io.Writer, series []Series, opt LinesOptions) ([]Note, error) {
 	return s.Notes, WriteSVG(w, s)
 }
 
-// LinesScene builds the line chart's scene without writing it.
+// LinesScene builds the line chart's scene without writing it: one panel,
+// or small multiples of one panel per series in a grid with shared scales.
 func LinesScene(series []Series, opt LinesOptions) (*Scene, error) {
-	c := &lineChart{opt: opt}
-	return c.build(series)
+	c, err := newLineChart(series, opt, false)
+	if err != nil {
+		return nil, err
+	}
+	o := gridOptions{above: c.yTitle, describe: func() (string, string) { return c.describe(c.multiples), c.accessibleTitle() }}
+	if !c.multiples {
+		return figureScene(opt.Common, o, []Panel{c.panel(-1, "")})
+	}
+	o.shareX, o.shareY, o.below = true, true, opt.XName
+	o.cols = c.multipleColumns()
+	panels := make([]Panel, len(c.series))
+	for i, s := range c.series {
+		panels[i] = c.panel(i, s.Name)
+	}
+	return figureScene(opt.Common, o, panels)
 }
 
+// LinesPanel plans a line chart for a cell of a figure. Its series stay on
+// one panel: small multiples are a figure of their own (LinesScene).
+func LinesPanel(series []Series, opt LinesOptions) Panel {
+	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
+		c, err := newLineChart(series, opt, true)
+		if err != nil {
+			return nil, err
+		}
+		c.start(f)
+		return c.plan(-1, true), nil
+	})
+}
+
+// lineChart is a line chart's data, checked and prepared once for all its
+// panels: cleaned, rebased, its extent and axis kinds found, and what was
+// decided recorded for the notes.
 type lineChart struct {
 	opt    LinesOptions
-	f      *frame
 	series []Series
-	bank   banking
-	unit   string // unit on the y ticks ("%" only; others go in the title)
+	bank   banking // how heights are chosen; each panel banks a copy
+	unit   string  // unit on the y ticks ("%" only; others go in the title)
 	yTitle string
 	// The data's extent over all series, found once: each pass over a
 	// million points costs as much as the rest of the layout.
@@ -69,9 +98,17 @@ type lineChart struct {
 	xk                 xKind
 	yk                 yKind
 	missing            int // missing values over all series
+	multiples          bool
+	// Notes decided before there is a frame, added to it by start.
+	cleanNotes, notes []Note
+	started           bool
+	joint             *jointPanels // the shared height and band of small multiples
 }
 
-func (c *lineChart) build(in []Series) (*Scene, error) {
+// newLineChart checks and prepares the series. inFigure keeps every series
+// on one panel, with a note when small multiples would read better.
+func newLineChart(in []Series, opt LinesOptions, inFigure bool) (*lineChart, error) {
+	c := &lineChart{opt: opt}
 	method, forced, err := parseAspect(c.opt.Aspect)
 	if err != nil {
 		return nil, err
@@ -87,17 +124,9 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	if err != nil {
 		return nil, err
 	}
-	f, err := newFrame(c.opt.Common)
-	if err != nil {
-		return nil, err
-	}
-	c.f = f
-	f.scene.Notes = append(f.scene.Notes, notes...)
+	c.cleanNotes = notes
 	c.series = series
 	c.xk = xKindOf(c.xs(), c.opt.Time)
-	if c.opt.Time {
-		f.noteMilliseconds(dataRange(c.xs()...))
-	}
 	if c.opt.Index || c.opt.IndexAt != nil {
 		if series, err = c.rebase(series); err != nil {
 			return nil, err
@@ -115,37 +144,77 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 	}
 	c.missing = countMissing(series)
 	c.kinds()
-	multiples := len(series) > MaxTogether && !c.opt.Together
-	if multiples && len(series) > MaxPanels {
+	c.multiples = len(series) > MaxTogether && !c.opt.Together && !inFigure
+	if c.multiples && len(series) > MaxPanels {
 		return nil, &RefusalError{Reason: fmt.Sprintf("%d series are too many to compare, on one panel or in a grid of %d small multiples (at most %d panels)", len(series), len(series), MaxPanels),
 			Instead: "highlight a few: draw the ones that matter (choose the series, or filter the rows) and leave the rest out with a note; aggregate: draw a mean or median per x; or filter the series into groups and draw one figure per group"}
 	}
 	switch {
-	case multiples:
-		f.scene.Note("multiples", false, fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the range of all series as a faint band behind each (%s keeps one panel)", len(series), c.opt.name("Together")))
+	case c.multiples:
+		c.note("multiples", false, fmt.Sprintf("%d series are too many for one panel: drew one panel per series with shared scales, the range of all series as a faint band behind each (%s keeps one panel)", len(series), c.opt.name("Together")))
+	case len(series) > MaxTogether && inFigure && !c.opt.Together:
+		c.note("together", false, fmt.Sprintf("kept %d series on one panel of the figure; small multiples, a figure of their own, would read more easily", len(series)))
 	case len(series) > MaxTogether:
-		f.scene.Note("together", false, fmt.Sprintf("kept %d series on one panel as asked (%s); small multiples would read more easily", len(series), c.opt.name("Together")))
+		c.note("together", false, fmt.Sprintf("kept %d series on one panel as asked (%s); small multiples would read more easily", len(series), c.opt.name("Together")))
 	}
-	if !multiples && !c.opt.Index && c.opt.IndexAt == nil {
+	if !c.multiples && !c.opt.Index && c.opt.IndexAt == nil {
 		if n := magnitudeNote(series, c.opt.name("Index")); n != "" {
-			f.scene.Note("magnitude", false, n)
+			c.note("magnitude", false, n)
 		}
 	}
-	var bottom float64
-	if multiples {
-		bottom, err = c.layoutMultiples()
-	} else {
-		bottom, err = c.layoutSingle()
-	}
+	return c, nil
+}
+
+// multipleColumns is the column count of small multiples: a grid about
+// square in panels, so that the columns grow with the count, with fewer
+// columns when a panel would be narrower than minPanelChars characters
+// beside the y tick labels.
+func (c *lineChart) multipleColumns() int {
+	sp, err := c.opt.Medium.spec()
 	if err != nil {
-		return nil, err
+		return 0 // the frame reports the medium
 	}
-	f.scene.Desc = c.describe(multiples)
-	if f.scene.Title == "" {
-		// Untitled figures still need an accessible name.
-		f.scene.Title = c.accessibleTitle()
+	width := sp.width
+	if c.opt.Width > 0 {
+		width = c.opt.Width
 	}
-	return f.finish(bottom), nil
+	n := len(c.series)
+	cols := min(n, int(math.Ceil(math.Sqrt(float64(n)))))
+	gutter := math.Ceil(sp.text)
+	for cols > 1 && (width-2*sp.pad-float64(cols-1)*gutter)/float64(cols) < sp.text*(minPanelChars+4) {
+		cols--
+	}
+	return cols
+}
+
+// note records a decision for the frame that start will be given.
+func (c *lineChart) note(code string, changed bool, text string) {
+	c.notes = append(c.notes, Note{Code: code, Changed: changed, Text: text})
+}
+
+// start adds the chart's notes to the frame, once, in the order they were
+// decided.
+func (c *lineChart) start(f *frame) {
+	if c.started {
+		return
+	}
+	c.started = true
+	f.scene.Notes = append(f.scene.Notes, c.cleanNotes...)
+	if c.opt.Time {
+		f.noteMilliseconds(dataRange(c.xs()...))
+	}
+	for _, n := range c.notes {
+		f.scene.Note(n.Code, n.Changed, n.Text)
+	}
+}
+
+// panel is the Panel of the whole chart (i < 0) or of series i's small
+// multiple, with its heading.
+func (c *lineChart) panel(i int, title string) Panel {
+	return Panel{Title: title, layers: c.opt.Annotations.layers(), plan: func(f *frame) (panelPlan, error) {
+		c.start(f)
+		return c.plan(i, false), nil
+	}}
 }
 
 // kinds decides what the axes must respect: see xKindOf; whole-number
@@ -153,7 +222,7 @@ func (c *lineChart) build(in []Series) (*Scene, error) {
 // of 100, which is always a tick.
 func (c *lineChart) kinds() {
 	if c.xk.years {
-		c.f.scene.Note("years", false, yearsNote)
+		c.note("years", false, yearsNote)
 	}
 	c.yk.unit = c.unit
 	if c.indexed() {
@@ -163,9 +232,6 @@ func (c *lineChart) kinds() {
 	}
 	c.yk.integer = wholeNumbers(c.ys()...)
 }
-
-// yearsNote says that whole-number x values were read as years.
-const yearsNote = "read the x values, whole numbers from 1800 to 2100, as years: ticks fall on whole years and print without a thousands separator"
 
 func (c *lineChart) ys() [][]float64 {
 	out := make([][]float64, len(c.series))
@@ -237,7 +303,7 @@ func (c *lineChart) rebase(series []Series) ([]Series, error) {
 	if c.opt.IndexAt != nil {
 		at = "x = " + c.xText(*c.opt.IndexAt)
 	}
-	c.f.scene.Note("index", true, fmt.Sprintf("rebased every series to 100 at %s (%s), so that the lines compare change, not size", at, c.opt.name("Index")))
+	c.note("index", true, fmt.Sprintf("rebased every series to 100 at %s (%s), so that the lines compare change, not size", at, c.opt.name("Index")))
 	return out, nil
 }
 
@@ -317,11 +383,11 @@ func (c *lineChart) xText(x float64) string { return xValueText(x, c.xk) }
 
 // seriesColors gives each series its colour: one series in Neutral, a few
 // in the categorical palette.
-func (c *lineChart) seriesColors() []Colour {
+func (c *lineChart) seriesColors(f *frame) []Colour {
 	n := len(c.series)
 	out := make([]Colour, n)
 	if n == 1 {
-		out[0] = c.f.th.neutral
+		out[0] = f.th.neutral
 		return out
 	}
 	p, err := palette.Categorical(n)
@@ -329,7 +395,7 @@ func (c *lineChart) seriesColors() []Colour {
 		// More series than colours that stay apart (--together with many
 		// series): all in the neutral colour, for none is told apart.
 		if err != nil || n > palette.MaxCategorical || i >= len(p) {
-			out[i] = c.f.th.neutral
+			out[i] = f.th.neutral
 			continue
 		}
 		out[i] = RGB(p[i])
@@ -346,12 +412,12 @@ const MaxDrawnPoints = 4_000_000
 // reduceAll turns every series into the polyline to draw for plot width w,
 // each reduced per pixel column when it has more than four points per
 // column, and notes the reduction. It declines a chart past MaxDrawnPoints.
-func (c *lineChart) reduceAll(g lineGeom) ([]scale.Polyline, int, error) {
-	return c.reduceWithin(g, MaxDrawnPoints)
+func (c *lineChart) reduceAll(f *frame, g lineGeom) ([]scale.Polyline, int, error) {
+	return c.reduceWithin(f, g, MaxDrawnPoints)
 }
 
 // reduceWithin is reduceAll with the bound on drawn points as a parameter.
-func (c *lineChart) reduceWithin(g lineGeom, limit int) ([]scale.Polyline, int, error) {
+func (c *lineChart) reduceWithin(f *frame, g lineGeom, limit int) ([]scale.Polyline, int, error) {
 	polys := make([]scale.Polyline, len(c.series))
 	before, after, bridged := 0, 0, 0
 	for i, s := range c.series {
@@ -366,112 +432,23 @@ func (c *lineChart) reduceWithin(g lineGeom, limit int) ([]scale.Polyline, int, 
 			Instead: "aggregate the series (a mean or median per x), filter to the few that matter, or draw groups of them in separate figures"}
 	}
 	if after < before {
-		c.f.scene.Note("reduced", false, reduceNote(before, after))
+		f.scene.Note("reduced", false, reduceNote(before, after))
 	}
 	return polys, bridged, nil
 }
 
-// noteMissing records what the missing values did to the drawn lines.
-func (c *lineChart) noteMissing(bridged int, drawn []drawnLine) {
-	if n := missingNote(c.missing, bridged, drawn); n != "" {
-		c.f.scene.Note("missing", true, n)
-	}
-}
-
 // drawBase draws the base of an index, 100, as a labelled reference line
 // across the plot: every line is read against it.
-func (c *lineChart) drawBase(ys scale.Linear, left, right float64) {
+func (c *lineChart) drawBase(f *frame, ys scale.Linear, left, right float64) {
 	if !c.indexed() {
 		return
 	}
 	y := round2(ys.Map(100))
-	c.f.scene.Add(Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: c.f.th.baseline, StrokeWidth: 1, Join: JoinRound, Cap: CapRound,
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-ref", Lines: [][]Point{{{left, y}, {right, y}}}, Stroke: f.th.baseline, StrokeWidth: 1, Join: JoinRound, Cap: CapRound,
 		Attrs: []Attr{{"label", "index base"}, {"value", "100"}}})
 }
 
 func (c *lineChart) indexed() bool { return c.opt.Index || c.opt.IndexAt != nil }
-
-// layoutSingle draws every series on one panel and returns the y under it.
-func (c *lineChart) layoutSingle() (float64, error) {
-	f, sp := c.f, c.f.spec
-	lh := lineHeight(sp.text)
-	face := f.fonts.Face(false)
-	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
-	inner := f.width - 2*sp.pad
-	top := f.plotTop()
-	if c.yTitle != "" {
-		t := f.axisTitle(c.yTitle, f.width-2*sp.pad)
-		f.drawAxisTitle(t, sp.pad, top)
-		top += t.height(lh) + sp.gap
-	}
-	plotTop := top + math.Ceil((asc+desc)/2)
-	colors := c.seriesColors()
-	var labels []endLabel
-	labelW := 0.0
-	switch {
-	case len(c.series) > palette.MaxCategorical:
-		f.scene.Note("unnamed", false, fmt.Sprintf("%d series are more than colours or names can tell apart: drew them alike in one colour, without names; highlight a few, aggregate them, or draw small multiples of fewer", len(c.series)))
-	case len(c.series) > 1:
-		names := make([]string, len(c.series))
-		for i, s := range c.series {
-			names[i] = s.Name
-		}
-		labels, labelW = f.directLabels(names, colors, inner*0.3)
-	}
-	left := math.Ceil(sp.pad + f.yLabelWidth(c.ylo, c.yhi, c.yk) + sp.gap)
-	left, w, _, ax := f.fitPanelsX(left, labelW, 1, 0, c.xlo, c.xhi, c.xk)
-	if w < sp.text*8 {
-		return 0, fmt.Errorf("the plot is too narrow at this width: give a wider canvas (%s) or shorter series names", c.opt.name("Width"))
-	}
-	g := lineGeom{left: left, w: int(w), ax: ax}
-	polys, bridged, err := c.reduceAll(g)
-	if err != nil {
-		return 0, err
-	}
-	room := 0.0
-	if fb := f.fixedPlotBottom(); fb > 0 {
-		room = fb - plotTop - (f.xLabelTop(0) + lh)
-		if c.opt.XName != "" {
-			room -= lh
-		}
-	}
-	h, ay, err := f.plotHeight(&c.bank, polys, c.opt.Time, ax.d1-ax.d0, w, c.ylo, c.yhi, c.yk, room, false)
-	if err != nil {
-		return 0, err
-	}
-	f.scene.Note("aspect", false, c.bank.note(w, h))
-	bottom := plotTop + h
-	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: bottom, R1: plotTop}
-
-	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-	f.drawYAxis(ay, ys, left, left+w, true)
-	axisBottom := f.drawXAxis(ax, left, int(w), bottom, true)
-	if c.opt.XName != "" {
-		f.text(left+w/2, axisBottom+asc, c.opt.XName, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
-		axisBottom += lh
-	}
-	f.scene.Add(Mark{Kind: GroupEnd})
-	c.drawBase(ys, left, left+w)
-
-	width := strokeWidth(sp)
-	drawn := make([]drawnLine, len(c.series))
-	for i, s := range c.series {
-		g.reduce = shouldReduce(c.series[i:i+1], g.w)
-		drawn[i] = g.screen(polys[i], ys)
-		f.addSeries("plumb-mark", s.Name, polys[i], drawn[i], colors[i], width, c.opt.Time)
-		if labels != nil {
-			if p, ok := drawn[i].last(); ok {
-				labels[i].ex, labels[i].ey = p.X, p.Y
-			}
-		}
-	}
-	c.noteMissing(bridged, drawn)
-	if labels != nil && !f.placeLabels(labels, left+w, plotTop, bottom) {
-		f.scene.Note("legend", false, "the series names do not fit beside the line ends: named them in a legend below the chart")
-		axisBottom = f.legend(labels, left, axisBottom)
-	}
-	return axisBottom, nil
-}
 
 // MaxPanels is the most series a line chart splits into small multiples:
 // six rows of five panels still fit a screen or a page with every panel
@@ -480,10 +457,6 @@ func (c *lineChart) layoutSingle() (float64, error) {
 // and an honest figure highlights a few series, aggregates them, or
 // filters them first.
 const MaxPanels = 30
-
-// minPanelChars is the narrowest panel of small multiples, in characters
-// of text: room for two or three x tick labels.
-const minPanelChars = 7
 
 // describe writes the plain-language description: what is plotted, over
 // what range, each series' first and last values and extremes.

@@ -474,12 +474,12 @@ func TestLinesDrawnPointsBound(t *testing.T) {
 	for i := range 20 {
 		series = append(series, Series{Name: fmt.Sprint(i), X: []float64{0, 1, 2}, Y: []float64{1, 2, float64(i)}})
 	}
-	c := &lineChart{f: f, series: series}
+	c := &lineChart{series: series}
 	g := lineGeom{w: 300, ax: axis{d0: 0, d1: 2}}
-	_, _, err = c.reduceWithin(g, 59)
+	_, _, err = c.reduceWithin(f, g, 59)
 	require.Error(t, err)
 	assert.True(t, errors.Is(err, ErrRefused))
 	assert.Contains(t, err.Error(), "aggregate")
-	_, _, err = c.reduceWithin(g, 60)
+	_, _, err = c.reduceWithin(f, g, 60)
 	assert.NoError(t, err)
 }

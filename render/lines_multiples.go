@@ -2,120 +2,101 @@ package render
 
 import (
 	"fmt"
-	"math"
 
+	"plumb/layout"
 	"plumb/scale"
 )
 
-// layoutMultiples draws one panel per series in a grid, all with the same
-// scales; each panel shows its own series strongly over one faint band:
-// the range of all the series, computed once for every panel, so that the
+// jointPanels is what the small multiples of one chart share: one plot
+// size, banked over all the series together so that every panel has one
+// height and one scale, their lines reduced once, and one context band,
+// the range of all the series, computed once for every panel so that the
 // figure grows linearly with the number of series.
-func (c *lineChart) layoutMultiples() (float64, error) {
-	f, sp := c.f, c.f.spec
-	lh := lineHeight(sp.text)
-	face := f.fonts.Face(false)
-	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
-	top := f.plotTop()
-	if c.yTitle != "" {
-		t := f.axisTitle(c.yTitle, f.width-2*sp.pad)
-		f.drawAxisTitle(t, sp.pad, top)
-		top += t.height(lh) + sp.gap
+type jointPanels struct {
+	w, room float64
+	ax      axis
+	polys   []scale.Polyline
+	bridged int
+	bank    banking
+	h       float64
+	ay      axis
+	// Set by the first panel drawn, at the plot's left edge.
+	drawn []drawnLine
+	band  [][]Point
+}
+
+// jointHeight banks every series together for panels plotW wide (or fits
+// the room of a fixed canvas), once for all panels.
+func (c *lineChart) jointHeight(f *frame, plotW, room float64, x, y axisDomain) (*jointPanels, error) {
+	if j := c.joint; j != nil && j.w == plotW && j.room == room {
+		return j, nil
 	}
-	n := len(c.series)
-	left0 := math.Ceil(sp.pad + f.yLabelWidth(c.ylo, c.yhi, c.yk) + sp.gap)
-	// The gutter between panels is two characters, or wider when the
-	// outer x labels of neighbouring panels need it. The grid is about
-	// square in panels, so the columns grow with the count; a panel
-	// narrower than minPanelChars characters reads poorly, so fewer
-	// columns are tried then.
-	hgap0 := math.Ceil(sp.text * 2)
-	cols := min(n, int(math.Ceil(math.Sqrt(float64(n)))))
-	var left, w, hgap float64
-	var ax axis
-	for ; ; cols-- {
-		left, w, hgap, ax = f.fitPanelsX(left0, 0, cols, hgap0, c.xlo, c.xhi, c.xk)
-		if cols == 1 || w >= sp.text*minPanelChars {
-			break
-		}
+	sp := f.spec
+	if plotW < sp.text*6 {
+		return nil, fmt.Errorf("%d panels do not fit at this width: give a wider canvas (%s), or %s for one panel", len(c.series), c.opt.name("Width"), c.opt.name("Together"))
 	}
-	rows := (n + cols - 1) / cols
-	if w < sp.text*6 {
-		return 0, fmt.Errorf("%d panels do not fit at this width: give a wider canvas (%s), or %s for one panel", n, c.opt.name("Width"), c.opt.name("Together"))
+	j := &jointPanels{w: plotW, room: room, bank: c.bank}
+	j.ax = f.fitX(x.lo, x.hi, c.xk, plotW)
+	g := lineGeom{w: int(plotW), ax: j.ax}
+	var err error
+	if j.polys, j.bridged, err = c.reduceAll(f, g); err != nil {
+		return nil, err
 	}
-	g := lineGeom{left: 0, w: int(w), ax: ax}
-	polys, bridged, err := c.reduceAll(g)
+	if j.h, j.ay, err = f.plotHeight(&j.bank, j.polys, c.opt.Time, j.ax.d1-j.ax.d0, plotW, y.lo, y.hi, c.yk, room, true); err != nil {
+		return nil, err
+	}
+	c.joint = j
+	return j, nil
+}
+
+// drawMultiple draws one small multiple: its own series strongly over the
+// band of all of them, on the shared axes.
+func (p *linePlan) drawMultiple(f *frame, plot layout.Box, e edges) (placed, error) {
+	c := p.c
+	from := len(f.scene.Marks)
+	j, err := c.jointHeight(f, plot.W, c.jointRoom(), p.axes.x, p.axes.y)
 	if err != nil {
-		return 0, err
+		return placed{}, err
 	}
-	titleH := lh
-	plotOff := titleH + math.Ceil((asc+desc)/2)
-	room := 0.0
-	if fb := f.fixedPlotBottom(); fb > 0 {
-		// Rows of panels, the last one or two with x labels, within the canvas.
-		over := float64(rows)*(plotOff+sp.gap*2) + 2*(f.xLabelTop(0)+lh)
-		if c.opt.XName != "" {
-			over += lh
+	ax := p.axes.xAxisFor(f, plot.W)
+	ys := scale.Linear{D0: j.ay.d0, D1: j.ay.d1, R0: plot.Y + plot.H, R1: plot.Y}
+	if j.drawn == nil {
+		// The first panel: every panel's lines, for the notes, and the
+		// band, at the plot's left edge; each panel moves them to its own.
+		f.scene.Note("aspect", false, j.bank.note(plot.W, plot.H)+", each panel")
+		g := lineGeom{w: int(plot.W), ax: ax}
+		j.drawn = make([]drawnLine, len(c.series))
+		for i := range c.series {
+			g.reduce = shouldReduce(c.series[i:i+1], g.w)
+			j.drawn[i] = g.screen(j.polys[i], ys)
 		}
-		room = math.Floor((fb - top - over) / float64(rows))
-		if room < minPlotHeight(sp, true) {
-			return 0, fmt.Errorf("%d %s not fit in a %g px high figure: give a taller canvas (%s), or %s for one panel", rows, plural(rows, "row of panels does", "rows of panels do"), f.spec.height, c.opt.name("Height"), c.opt.name("Together"))
+		f.noteMissing(c.missing, j.bridged, j.drawn)
+		j.band = bandPieces(envelope(c.series, ax, g.w), ys)
+	}
+	p.axes.draw(f, j.ay, ys, plot, e)
+	if len(j.band) > 0 {
+		band := make([][]Point, len(j.band))
+		for i, piece := range j.band {
+			band[i] = make([]Point, len(piece))
+			for k, pt := range piece {
+				band[i][k] = Point{round2(pt.X + plot.X), pt.Y}
+			}
 		}
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-context", Lines: band, Closed: true, Fill: f.th.context, Attrs: []Attr{{"series", "range of all series"}}})
 	}
-	h, ay, err := f.plotHeight(&c.bank, polys, c.opt.Time, ax.d1-ax.d0, w, c.ylo, c.yhi, c.yk, room, true)
-	if err != nil {
-		return 0, err
+	c.drawBase(f, ys, plot.X, plot.X+plot.W)
+	s := c.series[p.idx]
+	g := lineGeom{left: plot.X, w: int(plot.W), ax: ax, reduce: shouldReduce(c.series[p.idx:p.idx+1], int(plot.W))}
+	f.addSeries("plumb-mark", s.Name, j.polys[p.idx], g.screen(j.polys[p.idx], ys), f.th.neutral, strokeWidth(f.spec), c.opt.Time)
+	xs := scale.Linear{D0: ax.d0, D1: ax.d1, R0: plot.X, R1: plot.X + plot.W}
+	text, marks := f.boxesSince(from)
+	return placed{xs: xs, ys: ys, text: text, marks: marks}, nil
+}
+
+// jointRoom is the room the panels were last fitted to.
+func (c *lineChart) jointRoom() float64 {
+	if c.joint == nil {
+		return 0
 	}
-	f.scene.Note("aspect", false, c.bank.note(w, h)+", each panel")
-	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: plotOff + h, R1: plotOff}
-	lastRow := n - (rows-1)*cols
-	drawn := make([]drawnLine, n)
-	for i := range c.series {
-		g.reduce = shouldReduce(c.series[i:i+1], g.w)
-		drawn[i] = g.screen(polys[i], ys)
-	}
-	c.noteMissing(bridged, drawn)
-	band := bandPieces(envelope(c.series, ax, g.w), ys)
-	y := top
-	for r := 0; r < rows; r++ {
-		rowH := plotOff + h
-		labelled := r == rows-1 || r == rows-2 && lastRow < cols
-		if labelled {
-			rowH = f.xLabelTop(plotOff+h) + lh
-		}
-		for col := 0; col < cols; col++ {
-			i := r*cols + col
-			if i >= n {
-				break
-			}
-			dx := left + float64(col)*(w+hgap)
-			f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: dx, DY: round2(y), Attrs: []Attr{{"series", c.series[i].Name}}})
-			title, cut := f.wrap(c.series[i].Name, sp.text, true, w, 1)
-			tip := ""
-			if cut {
-				tip = c.series[i].Name
-			}
-			if len(title) > 0 {
-				f.scene.Add(Mark{Kind: Text, Class: "plumb-panel-title", X: 0, Y: asc, Text: title[0], Size: sp.text, Bold: true, Fill: f.th.text, Tooltip: tip})
-			}
-			f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
-			f.drawYAxis(ay, ys, 0, w, col == 0)
-			showX := r == rows-1 || (r+1)*cols+col >= n
-			f.drawXAxis(ax, 0, int(w), plotOff+h, showX)
-			f.scene.Add(Mark{Kind: GroupEnd})
-			if len(band) > 0 {
-				f.scene.Add(Mark{Kind: Path, Class: "plumb-context", Lines: band, Closed: true, Fill: f.th.context, Attrs: []Attr{{"series", "range of all series"}}})
-			}
-			c.drawBase(ys, 0, w)
-			f.addSeries("plumb-mark", c.series[i].Name, polys[i], drawn[i], f.th.neutral, strokeWidth(sp), c.opt.Time)
-			f.scene.Add(Mark{Kind: GroupEnd})
-		}
-		y += rowH + sp.gap*2
-	}
-	bottom := y - sp.gap*2
-	if c.opt.XName != "" {
-		f.text(left+(float64(cols)*w+float64(cols-1)*hgap)/2, bottom+asc, c.opt.XName, sp.text, false, f.th.muted, "plumb-axis-title", Middle)
-		bottom += lh
-	}
-	return bottom, nil
+	return c.joint.room
 }

@@ -153,6 +153,7 @@ type Panel struct {
 	// Title is the panel's heading in a grid; empty draws none.
 	Title string
 
+	name   string // data-panel of an untitled panel of a composed chart ("levels")
 	plan   func(f *frame) (panelPlan, error)
 	layers []panelLayer
 }
@@ -166,6 +167,7 @@ func newPanel(c Common, plan func(f *frame) (panelPlan, error)) Panel {
 // gridCell is one panel of a grid with its heading.
 type gridCell struct {
 	title  string
+	name   string // data-panel when there is no title
 	plan   panelPlan
 	layers []panelLayer
 }
@@ -177,6 +179,14 @@ type gridOptions struct {
 	aspect         float64 // preferred plot height / width for choosing columns; 0 is 0.62
 	above          string  // an axis title said once, above the grid
 	below          string  // an axis title said once, under the grid
+	// ownHeights gives each row of panels its own plot height, the
+	// tallest its panels ask for (a chart over its context panel); on a
+	// fixed canvas the rows share the room in those proportions. Without
+	// it every panel gets one height. It does not combine with shareY.
+	ownHeights bool
+	// describe, when set, describes the grid as one chart (small
+	// multiples, a chart with its context panel) instead of panel by panel.
+	describe func() (desc, name string)
 }
 
 // gridResult is where a grid put its panels, for layers and tests.
@@ -259,32 +269,15 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 	}
 	plotW = math.Floor(plotW / float64(cols))
 	minW := sp.text * minPanelChars
+	if plotW < minW && single {
+		return gridResult{}, fmt.Errorf("the plot is too narrow at this width: it would be %.0f px wide, less than %.0f for %g px text; give a wider canvas (%s)", plotW, minW, sp.text, f.c.name("Width"))
+	}
 	if plotW < minW {
 		return gridResult{}, fmt.Errorf("%d %s do not fit in %g px with %g px text: each plot would be %.0f px wide, less than %.0f; give a wider canvas (%s) or fewer columns", n, plural(n, "panel", "panels"), f.width, sp.text, plotW, minW, f.c.name("Width"))
 	}
-	plotH := 0.0
-	if room > 0 {
-		fixed := float64(rows-1)*gutter + float64(rows)*titleH
-		for r := range rows {
-			fixed += above[r] + below[r]
-		}
-		plotH = math.Floor((room - fixed) / float64(rows))
-		if plotH < minPlotHeight(sp, !single) {
-			return gridResult{}, fmt.Errorf("%d %s of panels do not fit in a %g px high figure with %g px text: each plot would be %.0f px high; give a taller canvas (%s) or fewer panels", rows, plural(rows, "row", "rows"), f.spec.height, sp.text, plotH, f.c.name("Height"))
-		}
-		for _, c := range cells {
-			if _, err := c.plan.height(f, plotW, plotH); err != nil {
-				return gridResult{}, err
-			}
-		}
-	} else {
-		for _, c := range cells {
-			h, err := c.plan.height(f, plotW, 0)
-			if err != nil {
-				return gridResult{}, err
-			}
-			plotH = math.Max(plotH, math.Ceil(h))
-		}
+	rowH, err := f.rowHeights(cells, o, cols, plotW, room, titleH, gutter, above, below, single)
+	if err != nil {
+		return gridResult{}, err
 	}
 	res := gridResult{cells: make([]layout.Box, n), placed: make([]placed, n), origin: make([]Point, n)}
 	y := top
@@ -297,7 +290,7 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 			}
 			c := cells[i]
 			e := edgeOf(i)
-			plot := layout.Box{X: left[col], Y: titleH + above[r], W: plotW, H: plotH}
+			plot := layout.Box{X: left[col], Y: titleH + above[r], W: plotW, H: rowH[r]}
 			var org Point
 			if single {
 				plot.X += x
@@ -307,6 +300,8 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 				attrs := []Attr(nil)
 				if c.title != "" {
 					attrs = []Attr{{"panel", c.title}}
+				} else if c.name != "" {
+					attrs = []Attr{{"panel", c.name}}
 				}
 				f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: org.X, DY: org.Y, Attrs: attrs})
 				f.panelTitle(c.title, asc, left[col]+plotW+right[col])
@@ -327,7 +322,7 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 			res.cells[i] = layout.Box{X: plot.X + org.X, Y: plot.Y + org.Y, W: plot.W, H: plot.H}
 			x += left[col] + plotW + right[col] + gutter
 		}
-		y += titleH + above[r] + plotH + below[r] + gutter
+		y += titleH + above[r] + rowH[r] + below[r] + gutter
 	}
 	res.bottom = y - gutter
 	if o.below != "" {
@@ -336,6 +331,63 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 		res.bottom += belowH
 	}
 	return res, nil
+}
+
+// rowHeights asks the plans for their plot heights at width plotW: one
+// height for every row, the tallest asked for, or each row its own with
+// o.ownHeights. On a fixed canvas (room > 0) the rows fill the room, in
+// equal parts or in the proportions the plans ask for, and every plan is
+// told the height it must fit.
+func (f *frame) rowHeights(cells []gridCell, o gridOptions, cols int, plotW, room, titleH, gutter float64, above, below []float64, single bool) ([]float64, error) {
+	sp := f.spec
+	rows := len(above)
+	rowH := make([]float64, rows)
+	own := o.ownHeights && !o.shareY
+	if room <= 0 || own {
+		for i, c := range cells {
+			h, err := c.plan.height(f, plotW, 0)
+			if err != nil {
+				return nil, err
+			}
+			rowH[i/cols] = math.Max(rowH[i/cols], math.Ceil(h))
+		}
+		if !own {
+			top := slices.Max(rowH)
+			for r := range rowH {
+				rowH[r] = top
+			}
+		}
+		if room <= 0 {
+			return rowH, nil
+		}
+	}
+	fixed := float64(rows-1)*gutter + float64(rows)*titleH
+	for r := range rows {
+		fixed += above[r] + below[r]
+	}
+	want := 0.0
+	for r := range rows {
+		want += rowH[r]
+	}
+	for r := range rows {
+		if own && want > 0 {
+			rowH[r] = math.Floor((room - fixed) * rowH[r] / want)
+		} else {
+			rowH[r] = math.Floor((room - fixed) / float64(rows))
+		}
+		if rowH[r] < minPlotHeight(sp, !single) && single {
+			return nil, fmt.Errorf("the figure's fixed height leaves a %.0f px plot, under the %.0f px a chart needs on this medium to be read: give a taller canvas (%s), or a shorter title and notes, so that it can fit", rowH[r], minPlotHeight(sp, false), f.c.name("Height"))
+		}
+		if rowH[r] < minPlotHeight(sp, !single) {
+			return nil, fmt.Errorf("%d %s of panels do not fit in a %g px high figure with %g px text: each plot would be %.0f px high; give a taller canvas (%s) or fewer panels", rows, plural(rows, "row", "rows"), f.spec.height, sp.text, rowH[r], f.c.name("Height"))
+		}
+	}
+	for i, c := range cells {
+		if _, err := c.plan.height(f, plotW, rowH[i/cols]); err != nil {
+			return nil, err
+		}
+	}
+	return rowH, nil
 }
 
 // shareDomains gives every plan the domains it must draw: its own, widened
@@ -429,19 +481,27 @@ func figureScene(c Common, o gridOptions, panels []Panel) (*Scene, error) {
 			}
 			return nil, err
 		}
-		cells[i] = gridCell{title: p.Title, plan: plan, layers: p.layers}
+		cells[i] = gridCell{title: p.Title, name: p.name, plan: plan, layers: p.layers}
 	}
 	res, err := f.drawGrid(cells, o, f.plotTop())
 	if err != nil {
 		return nil, err
 	}
-	f.describeGrid(cells)
+	f.describeGrid(cells, o)
 	return f.finish(res.bottom), nil
 }
 
 // describeGrid writes the figure's description from its panels': a single
 // chart's own, or each panel's under its heading.
-func (f *frame) describeGrid(cells []gridCell) {
+func (f *frame) describeGrid(cells []gridCell, o gridOptions) {
+	if o.describe != nil {
+		desc, name := o.describe()
+		f.scene.Desc = desc
+		if f.scene.Title == "" {
+			f.scene.Title = name
+		}
+		return
+	}
 	if len(cells) == 1 {
 		desc, name := cells[0].plan.describe()
 		f.scene.Desc = desc

@@ -74,21 +74,3 @@ func DotsPanel(labels []string, values []float64, opt DotsOptions) Panel {
 		return DotsScene(labels, values, o)
 	})
 }
-
-// LinesPanel plans a line chart for a cell of a figure.
-func LinesPanel(series []Series, opt LinesOptions) Panel {
-	return scenePanel(opt.Common, func(c Common) (*Scene, error) {
-		o := opt
-		o.Common = c
-		return LinesScene(series, o)
-	})
-}
-
-// DiffPanel plans a difference chart for a cell of a figure.
-func DiffPanel(a, b Series, opt DiffOptions) Panel {
-	return scenePanel(opt.Common, func(c Common) (*Scene, error) {
-		o := opt
-		o.Common = c
-		return DiffScene(a, b, o)
-	})
-}

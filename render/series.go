@@ -6,11 +6,8 @@ import (
 	"math"
 	"slices"
 	"strconv"
-	"strings"
 	"time"
 
-	"plumb/layout"
-	"plumb/palette"
 	"plumb/scale"
 )
 
@@ -158,6 +155,16 @@ func missingNote(missing, bridged int, drawn []drawnLine) string {
 	return text
 }
 
+// yearsNote says that whole-number x values were read as years.
+const yearsNote = "read the x values, whole numbers from 1800 to 2100, as years: ticks fall on whole years and print without a thousands separator"
+
+// noteMissing records what the missing values did to the drawn lines.
+func (f *frame) noteMissing(missing, bridged int, drawn []drawnLine) {
+	if n := missingNote(missing, bridged, drawn); n != "" {
+		f.scene.Note("missing", true, n)
+	}
+}
+
 // xValueText writes an x value for a note or a description: a date on a
 // time axis, a year as a year (2018, never 2,018), else a number.
 func xValueText(x float64, k xKind) string {
@@ -177,118 +184,6 @@ func xValueText(x float64, k xKind) string {
 		return t.Format("Jan 2006")
 	}
 	return t.Format("2006")
-}
-
-// endLabel is a series name placed at its line's right end.
-type endLabel struct {
-	lines  []string
-	full   string
-	color  Colour // the series colour
-	text   Colour // the text colour: the series' hue, darkened until it reads at 4.5:1
-	ex, ey float64
-}
-
-// directLabels measures the labels and returns the width they need at the
-// right of the plot. Each label takes its series' hue, darkened in OKLCH
-// lightness until it meets the 4.5:1 text contrast of WCAG 2.x on the white
-// background, so that label and line read as one.
-func (f *frame) directLabels(names []string, colors []Colour, maxW float64) ([]endLabel, float64) {
-	sp := f.spec
-	labels := make([]endLabel, len(names))
-	width := 0.0
-	white := palette.SRGB{R: 1, G: 1, B: 1}
-	for i, n := range names {
-		lines, cut := f.wrap(n, sp.text, false, maxW, 2)
-		if cut {
-			f.scene.Note("label-shortened", false, fmt.Sprintf("shortened the label %q to fit; the full text is in its tooltip", n))
-		}
-		txt := f.th.text
-		if dark, ok := palette.DarkenToContrast(colors[i].SRGB(), white, 4.5); ok {
-			txt = RGB(dark)
-		}
-		labels[i] = endLabel{lines: lines, full: n, color: colors[i], text: txt}
-		for _, l := range lines {
-			width = math.Max(width, f.measure(l, sp.text, false))
-		}
-	}
-	return labels, width + f.labelIndent()
-}
-
-// labelIndent is the room between the plot's right edge and label text,
-// where the leaders run.
-func (f *frame) labelIndent() float64 { return f.spec.gap * 3 }
-
-// placeLabels spreads the labels vertically with the least total
-// displacement (layout.Spread) and draws them with leader lines. It returns
-// false, drawing nothing, when they cannot fit between top and bottom.
-// Leaders are thin and in the muted text colour, and run only in the
-// margin right of the plot, from the height of the line's end to the
-// label: in the series' colour and starting at the last point they read as
-// the data going on.
-func (f *frame) placeLabels(labels []endLabel, right, top, bottom float64) bool {
-	sp := f.spec
-	lh := lineHeight(sp.text)
-	face := f.fonts.Face(false)
-	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
-	maxLines := 1
-	want := make([]float64, len(labels))
-	for i, l := range labels {
-		maxLines = max(maxLines, len(l.lines))
-		want[i] = l.ey
-	}
-	// Labels of several lines need a little air between them, or two
-	// wrapped names read as one.
-	gap := lh * float64(maxLines)
-	if maxLines > 1 {
-		gap += sp.gap
-	}
-	// A label of several lines is centred on its place, so keep its extra
-	// lines within the plot's height: above it is the axis title, and below
-	// it the last x tick label may reach under the labels.
-	hang := float64(maxLines-1) * lh / 2
-	if top+hang > bottom-hang {
-		return false
-	}
-	got, ok := layout.Spread(want, gap, top+hang, bottom-hang)
-	if !ok {
-		return false
-	}
-	x := right + f.labelIndent()
-	for i, l := range labels {
-		y := got[i]
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(right + sp.gap/2), round2(l.ey)}, {round2(x - sp.gap/2), round2(y)}}},
-			Stroke: f.th.muted, StrokeWidth: 0.75, Join: JoinRound, Cap: CapRound, Attrs: []Attr{{"series", l.full}}})
-		tip := ""
-		if strings.Join(l.lines, " ") != l.full {
-			tip = l.full
-		}
-		for j, t := range l.lines {
-			base := y + (asc-desc)/2 + (float64(j)-float64(len(l.lines)-1)/2)*lh
-			f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: x, Y: base, Text: t, Size: sp.text, Fill: l.text, Anchor: Start, Tooltip: tip,
-				Attrs: []Attr{{"series", l.full}}})
-		}
-	}
-	return true
-}
-
-// legend draws one row per series under the chart, for when direct labels
-// cannot be placed; it returns the y under it.
-func (f *frame) legend(labels []endLabel, left, y float64) float64 {
-	sp := f.spec
-	lh := lineHeight(sp.text)
-	face := f.fonts.Face(false)
-	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
-	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-legend"})
-	y += sp.gap
-	for _, l := range labels {
-		cy := y + lh/2
-		f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{{{left, round2(cy)}, {left + sp.text*1.5, round2(cy)}}}, Stroke: l.color, StrokeWidth: 2, Join: JoinRound, Cap: CapRound})
-		f.scene.Add(Mark{Kind: Text, Class: "plumb-label", X: left + sp.text*1.5 + sp.gap, Y: cy + (asc-desc)/2, Text: l.full, Size: sp.text, Fill: l.text,
-			Attrs: []Attr{{"series", l.full}}})
-		y += lh
-	}
-	f.scene.Add(Mark{Kind: GroupEnd})
-	return y
 }
 
 // addSeries draws one series: its pieces of two or more points as one

@@ -23,8 +23,18 @@ const notesNamespace = "urn:x-plumb:notes"
 
 // WriteSVG serialises the scene as a standalone SVG document. It decides
 // nothing: every position, size and colour comes from the scene. Output is a
-// pure function of the scene, so identical scenes give identical bytes.
-func WriteSVG(w io.Writer, s *Scene) error { return SVGEncoder{}.Encode(w, s) }
+// pure function of the scene, so identical scenes give identical bytes. A
+// SceneWriter is given the scene itself (its WriteScene), to draw as it
+// chooses.
+func WriteSVG(w io.Writer, s *Scene) error {
+	if sw, ok := w.(SceneWriter); ok {
+		if s == nil {
+			return ErrNoScene
+		}
+		return sw.WriteScene(s)
+	}
+	return SVGEncoder{}.Encode(w, s)
+}
 
 // An SVGEncoder writes scenes as SVG. Its zero value writes standalone
 // documents, as WriteSVG does; the fields serve pages that inline several

@@ -79,7 +79,17 @@ func (r *rowsRun) load(path string, stdin io.Reader, given func(string) bool) ([
 	if err != nil {
 		return nil, nil, err
 	}
-	o := r.row
+	r.finish(d, r.row, &r.bars, given)
+	return d.notes, func(w io.Writer) ([]render.Note, error) {
+		if r.dots {
+			return render.Dots(w, d.labels, d.values, r.dot)
+		}
+		return render.Bars(w, d.labels, d.values, r.bars)
+	}, nil
+}
+
+// finish completes the row options o (and bars, for bars) from the data.
+func (r *rowsRun) finish(d *labelled, o *render.RowOptions, bars *render.BarsOptions, given func(string) bool) {
 	if o.Unit == "" {
 		o.Unit = d.unit // the sign the cells carry, such as % or $
 	}
@@ -91,11 +101,41 @@ func (r *rowsRun) load(path string, stdin io.Reader, given func(string) bool) ([
 	// Values are parts of a whole when they are shares, when the user said
 	// they sum or count, or when repeated labels really were summed; a
 	// single value per label may be a median or a rate, which never adds.
-	r.bars.Additive = r.bars.Percent || (given("agg") && !o.Averages) || (r.agg == "sum" && len(d.repeated) > 0)
-	return d.notes, func(w io.Writer) ([]render.Note, error) {
-		if r.dots {
-			return render.Dots(w, d.labels, d.values, r.dot)
-		}
-		return render.Bars(w, d.labels, d.values, r.bars)
-	}, nil
+	bars.Additive = bars.Percent || (given("agg") && !o.Averages) || (r.agg == "sum" && len(d.repeated) > 0)
+}
+
+// The panel side of bars and dots (panelChart), for --by and figure files.
+
+func (r *rowsRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
+	return readLabelled(path, r.readOptions(), r.label, r.value, r.agg, keep, stdin)
+}
+
+func (r *rowsRun) panel(t *Table, rows []int, c render.Common, given func(string) bool) (panelPart, error) {
+	d, err := labelledRows(t, nil, r.label, r.value, r.agg, rows)
+	if err != nil {
+		return panelPart{}, err
+	}
+	bars, dots := r.bars, r.dot // copies: every panel starts from the flags
+	o := &bars.RowOptions
+	if r.dots {
+		o = &dots.RowOptions
+	}
+	r.finish(d, o, &bars, given)
+	part := panelPart{notes: d.notes, size: sizeOf(d.values, !o.Averages), total: !o.Averages}
+	if r.dots {
+		dots.Common = c
+		part.panel = render.DotsPanel(d.labels, d.values, dots)
+	} else {
+		bars.Common = c
+		part.panel = render.BarsPanel(d.labels, d.values, bars)
+	}
+	return part, nil
+}
+
+// shares: the value axis runs along x, or along y for standing bars.
+func (r *rowsRun) shares() (x, y bool) {
+	if !r.dots && r.bars.Vertical {
+		return false, true
+	}
+	return true, false
 }

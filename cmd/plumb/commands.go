@@ -41,6 +41,9 @@ func commandTable() []command {
 		{name: "box", summary: "distributions per group as Tukey box plots", synopsis: dataSynopsis, chart: func() chart { return newBox() }},
 		{name: "hist", summary: "the distribution of one column, in bins on nice edges", synopsis: dataSynopsis, chart: func() chart { return newHist() }},
 		{name: "heat", summary: "a matrix of values as colours, rows and columns ordered (clustered)", synopsis: dataSynopsis, chart: func() chart { return newHeat() }},
+		{name: "figure", summary: "several charts in one grid, from figure files (.json)", synopsis: figureSynopsis, run: runFigure},
+		{name: "scatter", summary: "how two variables relate: points, binned when many", synopsis: dataSynopsis, chart: func() chart { return newScatter() }},
+		{name: "matrix", summary: "how several variables relate, pair by pair", synopsis: dataSynopsis, chart: func() chart { return newMatrix() }},
 		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
 		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)
@@ -70,6 +73,35 @@ type chart interface {
 	// chosen, unit found in the cells); given reports whether a flag was on
 	// the command line. It returns the notes of loading and the drawing.
 	load(path string, stdin io.Reader, given func(flag string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error)
+}
+
+// A panelChart is a chart that can also be drawn as panels of a figure:
+// the small multiples of --by and the panels of figure files. It stands
+// apart from chart so that a chart without it still builds; --by and
+// figure files refuse such a chart by name.
+type panelChart interface {
+	chart
+	// readTable reads the data file once for every panel, keeping the
+	// columns in keep (the --by column) besides the chart's own.
+	readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error)
+	// panel finishes a copy of the options from the data and plans one
+	// panel of the given rows of t (nil: every row); c gives the panel its
+	// heading and annotations. given is as for load. The run's own options
+	// are left as they were, so that every panel starts from the flags.
+	panel(t *Table, rows []int, c render.Common, given func(flag string) bool) (panelPart, error)
+	// shares says which axes of small multiples carry the values, which
+	// --by shares across panels: x, y or both.
+	shares() (x, y bool)
+}
+
+// panelPart is one planned panel with what --by needs to know of it.
+type panelPart struct {
+	panel render.Panel
+	notes []render.Note
+	// size is the panel's total (for amounts that add up) or mean, which
+	// --by-order value sorts by, largest first; total says which.
+	size  float64
+	total bool
 }
 
 // A flagDef is one flag of a command: its name, what it sets, and what -h
@@ -124,6 +156,9 @@ func runChart(cmd command, args []string, stdin io.Reader, stdout, stderr io.Wri
 	sh.c.Names = names
 	given := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { given[f.Name] = true })
+	if sh.by != "" || given["by-order"] || given["own-scales"] {
+		return runBy(cmd, ch, pos[0], stdin, stdout, stderr, func(name string) bool { return given[name] })
+	}
 	notes, draw, err := ch.load(pos[0], stdin, func(name string) bool { return given[name] })
 	if err != nil {
 		return exitCode(flagWords(err, names), stderr)

@@ -33,6 +33,10 @@ func optionsOf(t *testing.T, ch chart) any {
 		return r.opt
 	case *heatRun:
 		return r.opt
+	case *scatterRun:
+		return r.opt
+	case *matrixRun:
+		return r.opt
 	}
 	t.Fatalf("no options for %T", ch)
 	return nil

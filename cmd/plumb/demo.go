@@ -49,8 +49,25 @@ var gallery = []figure{
 	{"lines-multiples", "loads.csv", []string{"lines", "--x", "hour", "--y", "load_pct", "--series", "weekday", "--unit", "%",
 		"--y-name", "seats taken", "--x-name", "hour of departure", "--title", "Vessel load by hour, one panel per weekday",
 		"--subtitle", "Share of seats taken; the range of all days in grey behind each panel"}},
+	{"by-bars", "cargo.csv", []string{"bars", "--label", "cargo", "--value", "tonnes", "--by", "harbour",
+		"--title", "Cargo landed at the four main harbours, 2025", "--subtitle", "Tonnes per kind of cargo; one scale for every harbour",
+		"--source", "Lantern Isles Ferry Company (fictional), demo data"}},
+	{"by-lines", "punctuality.csv", []string{"lines", "--x", "month", "--y", "on_time_pct", "--by", "route", "--unit", "%",
+		"--y-name", "sailings on time", "--title", "Punctuality of the three busiest routes, one panel each", "--subtitle", "Share of sailings leaving within five minutes of schedule, by month"}},
 	{"diff-fuel", "fuel.csv", []string{"diff", "--x", "month", "--a", "vessel_a", "--b", "vessel_b", "--context", "--unit", "t",
 		"--title", "Vessel A burns more fuel than vessel B every month", "--subtitle", "Monthly fuel use in tonnes (above) and the difference A − B (below)"}},
+	{"figure-slide", "", []string{"figure", "slide.json"}},
+	{"scatter-crossings", "sailings.csv", []string{"scatter", "--x", "crossing_km", "--y", "minutes", "--group", "vessel",
+		"--x-name", "crossing (km)", "--y-name", "minutes from quay to quay",
+		"--title", "The fast craft halves the crossing time", "--subtitle", "400 sailings by length of crossing and vessel class"}},
+	{"scatter-wind", "sailings-year.csv", []string{"scatter", "--x", "wind_kn", "--y", "delay_min", "--fit", "loess",
+		"--x-name", "wind (knots)", "--y-name", "delay at departure (minutes)",
+		"--title", "Delays grow steeply in strong wind", "--subtitle", "20,000 sailings of a year, binned; a LOESS curve through all of them"}},
+	{"scatter-fuel-fit", "sailings.csv", []string{"scatter", "--x", "crossing_km", "--y", "fuel_l", "--fit", "line",
+		"--x-name", "crossing (km)", "--y-name", "fuel burnt (litres)",
+		"--title", "Fuel grows with the length of the crossing", "--subtitle", "400 sailings with a least-squares line"}},
+	{"matrix-sailings", "sailings-sample.csv", []string{"matrix", "--cols", "crossing_km,minutes,fuel_l,wind_kn,delay_min",
+		"--title", "How the sailings' measures relate", "--subtitle", "150 sailings; each pair on shared scales, each measure's distribution on the diagonal"}},
 	{"box-crossings", "crossings.csv", []string{"box", "--group", "route", "--value", "crossing_min", "--unit", "min", "--value-name", "crossing time",
 		"--title", "How long the crossings took", "--subtitle", "Every sailing of one November week, per route; the night sailing ran four times",
 		"--source", "Lantern Isles Ferry Company (fictional), demo data"}},
@@ -66,6 +83,24 @@ var gallery = []figure{
 		"--value-name", "load, % of seats", "--title", "Weekend sailings fill later in the day",
 		"--subtitle", "Share of seats taken by hour of departure; weekdays in cluster order",
 		"--source", "Lantern Isles Ferry Company (fictional), demo data"}},
+}
+
+// demoFigures are the figure files of the gallery, by name; their data
+// paths name files in demodata/.
+var demoFigures = map[string]string{
+	"slide.json": `{
+  "for": "slide",
+  "title": "The ferry year at a glance",
+  "subtitle": "Four views of the 2025 season",
+  "source": "Lantern Isles Ferry Company (fictional), demo data",
+  "panels": [
+    {"chart": "bars", "data": "routes.csv", "label": "route", "value": "passengers", "top": 3, "title": "Busiest routes"},
+    {"chart": "dots", "data": "routes.csv", "label": "route", "value": "punctuality_pct", "unit": "%", "top": 3, "title": "Most punctual routes"},
+    {"chart": "bars", "data": "cargo.csv", "label": "cargo", "value": "tonnes", "title": "Cargo landed, all harbours"},
+    {"chart": "bars", "data": "loads.csv", "label": "weekday", "value": "load_pct", "agg": "mean", "order": "data", "vertical": true, "unit": "%", "title": "Mean load by weekday"}
+  ]
+}
+`,
 }
 
 // demoSynopsis is the usage line of plumb demo.
@@ -92,9 +127,16 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 		path := filepath.Join(*out, fig.name+".svg")
 		args := append(slices.Clone(fig.args), "-o", path)
 		var data []byte
+		if fig.args[0] == "figure" {
+			if code := demoFigure(fig, path, stdout, stderr); code != exitOK {
+				return code
+			}
+			fmt.Fprintln(stderr, "wrote", terminalSafe(path))
+			continue
+		}
 		if fig.data != "" {
 			var err error
-			if data, err = demoFS.ReadFile("demodata/" + fig.data); err != nil {
+			if data, err = demoData(fig.data); err != nil {
 				return exitCode(fmt.Errorf("demo: %w", err), stderr)
 			}
 			args = append([]string{fig.args[0], "-", "--format", "csv", "--quiet", "-o", path}, fig.args[1:]...)
@@ -107,4 +149,52 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "wrote", terminalSafe(path))
 	}
 	return exitOK
+}
+
+// demoFigure renders a gallery figure file from the demo data.
+func demoFigure(fig figure, path string, stdout, stderr io.Writer) int {
+	dir, err := writeDemoFigure(fig.args[1])
+	if err != nil {
+		return exitCode(fmt.Errorf("demo: %w", err), stderr)
+	}
+	defer os.RemoveAll(dir)
+	var errs bytes.Buffer
+	if code := run([]string{"figure", filepath.Join(dir, fig.args[1]), "--quiet", "-o", path}, nil, stdout, &errs); code != exitOK {
+		fmt.Fprintf(stderr, "plumb: demo %s failed: %s", fig.name, errs.String())
+		return code
+	}
+	return exitOK
+}
+
+// writeDemoFigure writes a gallery figure file and the demo data it reads
+// into a new temporary folder, which the caller removes.
+func writeDemoFigure(name string) (string, error) {
+	text, ok := demoFigures[name]
+	if !ok {
+		return "", fmt.Errorf("no demo figure file %q", name)
+	}
+	dir, err := os.MkdirTemp("", "plumb-demo-")
+	if err != nil {
+		return "", err
+	}
+	files, err := demoFS.ReadDir("demodata")
+	if err != nil {
+		os.RemoveAll(dir)
+		return "", err
+	}
+	for _, f := range files {
+		data, err := demoFS.ReadFile("demodata/" + f.Name())
+		if err == nil {
+			err = os.WriteFile(filepath.Join(dir, f.Name()), data, 0o644)
+		}
+		if err != nil {
+			os.RemoveAll(dir)
+			return "", err
+		}
+	}
+	if err := os.WriteFile(filepath.Join(dir, name), []byte(text), 0o644); err != nil {
+		os.RemoveAll(dir)
+		return "", err
+	}
+	return dir, nil
 }

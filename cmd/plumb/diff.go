@@ -45,17 +45,32 @@ func (r *diffRun) load(path string, stdin io.Reader, _ func(string) bool) ([]ren
 // read reads the x, a and b columns, in x order, and finishes the options
 // from the data: the columns chosen, the x kind, the unit, the x name.
 func (r *diffRun) read(path string, stdin io.Reader) (a, b render.Series, notes []render.Note, err error) {
-	opt := &r.opt
-	var want []string
-	if r.x != "" && r.a != "" && r.b != "" {
-		want = []string{r.x, r.a, r.b}
-	}
-	t, notes, err := readData(path, r.readOptions(), want, stdin)
+	t, notes, err := r.readTable(path, stdin, nil)
 	if err != nil {
 		return a, b, nil, err
 	}
+	a, b, more, err := r.build(t, nil, &r.opt)
+	return a, b, append(notes, more...), err
+}
+
+// readTable reads the data file, keeping the named columns and those in
+// keep (a --by column).
+func (r *diffRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
+	var want []string
+	if r.x != "" && r.a != "" && r.b != "" {
+		want = append([]string{r.x, r.a, r.b}, keep...)
+	}
+	return readData(path, r.readOptions(), want, stdin)
+}
+
+// build makes the two series of the given rows of t (nil: every row), in
+// x order, and finishes opt from the data.
+func (r *diffRun) build(t *Table, rows []int, opt *render.DiffOptions) (a, b render.Series, notes []render.Note, err error) {
 	if t.Len() == 0 {
 		return a, b, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+	}
+	if rows == nil {
+		rows = allRows(t.Len())
 	}
 	xcol := r.x
 	if xcol == "" && len(t.Header) > 0 {
@@ -94,14 +109,17 @@ func (r *diffRun) read(path string, stdin io.Reader) (a, b render.Series, notes 
 	if err != nil {
 		return a, b, nil, err
 	}
-	rows, err := orderRows(t, xcol, xc.values, allRows(t.Len()))
+	sorted, err := orderRows(t, xcol, xc.values, rows)
 	if err != nil {
 		return a, b, nil, err
 	}
 	x := xc.values
-	if rows != nil {
-		x, av, bv = pick(x, rows), pick(av, rows), pick(bv, rows)
+	if sorted != nil {
+		rows = sorted
 		notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
+	}
+	if sorted != nil || len(rows) != len(x) {
+		x, av, bv = pick(x, rows), pick(av, rows), pick(bv, rows)
 	}
 	notes = append(notes, t.numberNotes(acol, bcol)...)
 	opt.Time = xc.time
@@ -113,3 +131,22 @@ func (r *diffRun) read(path string, stdin io.Reader) (a, b render.Series, notes 
 	}
 	return render.Series{Name: acol, X: x, Y: av}, render.Series{Name: bcol, X: x, Y: bv}, notes, nil
 }
+
+// The panel side of diff (panelChart), for --by and figure files.
+
+func (r *diffRun) panel(t *Table, rows []int, c render.Common, _ func(string) bool) (panelPart, error) {
+	o := r.opt // a copy: every panel starts from the flags
+	o.Common = c
+	a, b, notes, err := r.build(t, rows, &o)
+	if err != nil {
+		return panelPart{}, err
+	}
+	d := make([]float64, len(a.Y))
+	for i := range d {
+		d[i] = a.Y[i] - b.Y[i]
+	}
+	return panelPart{panel: render.DiffPanel(a, b, o), notes: notes, size: sizeOf(d, false)}, nil
+}
+
+// shares: small multiples of differences share both axes.
+func (r *diffRun) shares() (x, y bool) { return true, true }

@@ -27,23 +27,28 @@ func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(form
 // reading, notes) and, through c, the chart's render.Common.
 type shared struct {
 	c                                    *render.Common // the options' Common, which the shared flags set
+	scale                                float64        // --scale: PNG pixels per SVG unit; 0 means 1
 	out, font, format, decimal, maxInput string
 	quiet, explain                       bool
 	data                                 string // the data path, set by runChart; names the figure in notes
+
+	by        string // --by: one panel per value of this column
+	byOrder   string // --by-order: value, label or data
+	ownScales bool   // --own-scales: each panel its own value scale
 }
 
 // newShared binds the shared settings to a chart's Common, with the
 // defaults the flags show.
 func newShared(c *render.Common) shared {
 	c.Medium = render.Screen
-	return shared{c: c, maxInput: "1GB"}
+	return shared{c: c, maxInput: "1GB", byOrder: string(render.ByValue)}
 }
 
 // flags are the shared flags, bound to Common's fields and the CLI's own.
 func (s *shared) flags() []flagDef {
 	c := s.c
 	return []flagDef{
-		{name: "o", arg: "FILE", usage: "write the figure to FILE (.svg or no extension; - or none: standard output)", value: stringValue{&s.out}},
+		{name: "o", arg: "FILE", usage: "write the figure to FILE (.svg, .png, or no extension for SVG; - or none: SVG on standard output)", value: stringValue{&s.out}},
 		{name: "title", sets: []string{"Title"}, arg: "TEXT", usage: "title above the chart", value: stringValue{&c.Title}},
 		{name: "subtitle", sets: []string{"Subtitle"}, arg: "TEXT", usage: "subtitle: what is measured, in what unit", value: stringValue{&c.Subtitle}},
 		{name: "source", sets: []string{"Source"}, arg: "TEXT", usage: "where the numbers come from, printed under the chart", value: stringValue{&c.Source}},
@@ -51,8 +56,13 @@ func (s *shared) flags() []flagDef {
 		{name: "for", sets: []string{"Medium"}, values: media, def: string(render.Screen), usage: "the medium: print, screen or slide (sets size and text sizes)",
 			value: choiceValue[render.Medium]{p: &c.Medium, values: media}},
 		{name: "size", sets: []string{"Width", "Height"}, arg: "WxH", usage: "canvas size WxH in pixels (H may be 0 to let the chart choose)", value: sizeValue{&c.Width, &c.Height}},
+		{name: "by", arg: "COLUMN", usage: "small multiples: one panel per value of COLUMN, titled with the value, all on one value scale", value: stringValue{&s.by}},
+		{name: "by-order", values: orders, def: string(render.ByValue), usage: "order of the --by panels: value (largest total first, or largest mean for values that do not add up), label, or data (as in the file)",
+			value: choiceValue[string]{p: &s.byOrder, values: orders}},
+		{name: "own-scales", usage: "give each --by panel its own value scale (flagged in a note: equal lengths then differ in amount)", value: boolValue{&s.ownScales}},
 		{name: "font", sets: []string{"Fonts"}, arg: "FILE", usage: "measure text with this TTF/OTF FILE and name it in the figure", value: stringValue{&s.font}},
 		{name: "embed-font", sets: []string{"EmbedFont"}, usage: "embed the font in the SVG so every viewer draws what was measured", value: boolValue{&c.EmbedFont}},
+		{name: "scale", arg: "K", def: "1", usage: "pixels per SVG unit in a PNG, such as 2 for high-density screens", value: scaleValue{&s.scale}},
 		{name: "format", arg: "FORMAT", usage: "data format when the file name does not say: csv, tsv, json, semicolon or pipe", value: stringValue{&s.format}},
 		{name: "decimal", arg: "MARK", usage: "decimal mark of the numbers: . or , (default: decided per column from the cells)", value: stringValue{&s.decimal}},
 		{name: "max-input", arg: "SIZE", def: "1GB", usage: "read at most SIZE of data, such as 1GB or 200MB", value: stringValue{&s.maxInput}},
@@ -67,6 +77,9 @@ var media = []string{string(render.Print), string(render.Screen), string(render.
 // finish completes Common from the settings that need work once the flags
 // are parsed: the font file is read and parsed.
 func (s *shared) finish() error {
+	if err := checkScale(s.scale, s.out); err != nil {
+		return err
+	}
 	if s.font == "" {
 		return nil
 	}
@@ -272,7 +285,7 @@ func printNotes(stderr io.Writer, figure string, notes []render.Note, level note
 // notes of loading and drawing, and returns the exit code.
 func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []render.Note, draw func(io.Writer) ([]render.Note, error)) int {
 	before := len(notes)
-	err := writeOutput(sh.out, stdout, func(w io.Writer) error {
+	err := writeFigure(sh.out, sh.scale, stdout, func(w io.Writer) error {
 		drawn, err := draw(w)
 		for _, n := range drawn {
 			// The loading notes come back from the drawing when the chart

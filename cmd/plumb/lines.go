@@ -212,18 +212,32 @@ func (r *linesRun) load(path string, stdin io.Reader, _ func(string) bool) ([]re
 // read reads the table and builds the series, wide or long, and finishes
 // the options from the data: the x kind, the unit, the axis names.
 func (r *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render.Note, error) {
-	opt := &r.opt
+	t, notes, err := r.readTable(path, stdin, nil)
+	if err != nil {
+		return nil, nil, err
+	}
+	series, more, err := r.build(t, nil, &r.opt)
+	return series, append(notes, more...), err
+}
+
+// readTable reads the data file, keeping the named columns and those in
+// keep (a --by column).
+func (r *linesRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
 	var want []string
 	if r.x != "" && len(r.y) > 0 {
 		want = append([]string{r.x}, r.y...)
 		if r.series != "" {
 			want = append(want, r.series)
 		}
+		want = append(want, keep...)
 	}
-	t, notes, err := readData(path, r.readOptions(), want, stdin)
-	if err != nil {
-		return nil, nil, err
-	}
+	return readData(path, r.readOptions(), want, stdin)
+}
+
+// build makes the series of the given rows of t (nil: every row) and
+// finishes opt from the data.
+func (r *linesRun) build(t *Table, rows []int, opt *render.LinesOptions) ([]render.Series, []render.Note, error) {
+	var notes []render.Note
 	if len(t.Header) < 2 {
 		return nil, nil, tooFewColumns(t, "a line chart needs an x column and a value column")
 	}
@@ -236,6 +250,9 @@ func (r *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 	}
 	if t.Len() == 0 {
 		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+	}
+	if rows == nil {
+		rows = allRows(t.Len())
 	}
 	ycols := []string(r.y)
 	if len(ycols) == 0 {
@@ -283,15 +300,16 @@ func (r *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 	}
 	var series []render.Series
 	if r.series == "" {
-		rows, err := orderRows(t, xcol, x.values, allRows(t.Len()))
+		sorted, err := orderRows(t, xcol, x.values, rows)
 		if err != nil {
 			return nil, nil, err
 		}
-		if rows != nil {
+		if sorted != nil {
+			rows = sorted
 			notes = append(notes, render.Note{Code: "sorted", Text: fmt.Sprintf("sorted the rows by %q: a line joins its points in x order", xcol)})
 		}
 		xs := x.values
-		if rows != nil {
+		if len(rows) != len(xs) || sorted != nil {
 			xs = pick(x.values, rows)
 		}
 		for _, col := range ycols {
@@ -299,7 +317,7 @@ func (r *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 			if err != nil {
 				return nil, nil, err
 			}
-			if rows != nil {
+			if len(rows) != len(ys) || sorted != nil {
 				ys = pick(ys, rows)
 			}
 			series = append(series, render.Series{Name: col, X: xs, Y: ys})
@@ -317,7 +335,8 @@ func (r *linesRun) read(path string, stdin io.Reader) ([]render.Series, []render
 	}
 	var order []string
 	groups := map[string][]int{}
-	for i, n := range names {
+	for _, i := range rows {
+		n := names[i]
 		if _, ok := groups[n]; !ok {
 			order = append(order, n)
 		}
@@ -396,3 +415,22 @@ type badTime struct {
 
 func (e *badTime) Error() string   { return fmt.Sprintf("cannot read %q as a date or time", e.text) }
 func (e *badTime) Unwrap() []error { return []error{ErrBadTime, e.cause} }
+
+// The panel side of lines (panelChart), for --by and figure files.
+
+func (r *linesRun) panel(t *Table, rows []int, c render.Common, _ func(string) bool) (panelPart, error) {
+	o := r.opt // a copy: every panel starts from the flags
+	o.Common = c
+	series, notes, err := r.build(t, rows, &o)
+	if err != nil {
+		return panelPart{}, err
+	}
+	var ys []float64
+	for _, s := range series {
+		ys = append(ys, s.Y...)
+	}
+	return panelPart{panel: render.LinesPanel(series, o), notes: notes, size: sizeOf(ys, false)}, nil
+}
+
+// shares: small multiples of lines share both the x and the value axis.
+func (r *linesRun) shares() (x, y bool) { return true, true }

@@ -153,12 +153,16 @@ func TestLinesSixSeriesSmallMultiples(t *testing.T) {
 	root, stderr := linesSVG(t, csv)
 	assert.GreaterOrEqual(t, len(root.all("g", "plumb-panel")), 6)
 	assert.Contains(t, stderr, "one panel per series")
-	// Shared scales: every panel's grid lines sit at the same heights.
+	// Shared scales: every panel's grid lines sit at the same heights and
+	// are equally long (the first column's plots start after the y labels).
 	var grids []string
 	for _, p := range root.all("g", "plumb-panel")[:3] {
 		var ys []string
 		for _, g := range p.all("path", "plumb-grid") {
-			ys = append(ys, g.Attr["d"])
+			runs := polylines(t, g)
+			require.Len(t, runs, 1)
+			line := runs[0]
+			ys = append(ys, fmt.Sprintf("%g long at y %g", line[len(line)-1][0]-line[0][0], line[0][1]))
 		}
 		grids = append(grids, strings.Join(ys, " "))
 	}

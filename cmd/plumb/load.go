@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 
 	"plumb/internal/table"
@@ -37,8 +38,19 @@ const countRows = "count of rows"
 // agg "count" and no value column it counts the rows of each label, and
 // no value column is needed.
 func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, stdin io.Reader) (*labelled, error) {
+	t, notes, err := readLabelled(path, o, labelCol, valueCol, agg, nil, stdin)
+	if err != nil {
+		return nil, err
+	}
+	return labelledRows(t, notes, labelCol, valueCol, agg, nil)
+}
+
+// readLabelled reads the data file of a labelled chart, keeping the label
+// and value columns when both are named, and the columns in keep (a --by
+// column) besides.
+func readLabelled(path string, o readOptions, labelCol, valueCol, agg string, keep []string, stdin io.Reader) (*Table, []render.Note, error) {
 	if !containsString(table.Aggregations, agg) {
-		return nil, usagef("--agg %q: use sum, mean, median, count, min or max", agg)
+		return nil, nil, usagef("--agg %q: use sum, mean, median, count, min or max", agg)
 	}
 	counting := agg == "count" && valueCol == ""
 	var want []string
@@ -48,10 +60,17 @@ func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, st
 	case labelCol != "" && counting:
 		want = []string{labelCol}
 	}
-	t, notes, err := readData(path, o, want, stdin)
-	if err != nil {
-		return nil, err
+	if want != nil {
+		want = append(want, keep...)
 	}
+	return readData(path, o, want, stdin)
+}
+
+// labelledRows reduces the given rows of t (nil: every row) to one value
+// per label, as loadLabelled describes.
+func labelledRows(t *Table, notes []render.Note, labelCol, valueCol, agg string, rows []int) (*labelled, error) {
+	counting := agg == "count" && valueCol == ""
+	notes = slices.Clone(notes)
 	if labelCol == "" && len(t.Header) > 0 {
 		labelCol = t.Header[0]
 		if labelCol == valueCol && len(t.Header) > 1 {
@@ -88,14 +107,24 @@ func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, st
 		}
 		values, d.unit = n.Values, n.Unit
 		notes = append(notes, renderNotes(n.Notes)...)
-		if len(n.Missing) > 0 {
-			notes = append(notes, skippedNote(t, n.Missing, valueCol))
+		missing := n.Missing
+		if rows != nil {
+			missing = inRows(missing, rows)
 		}
-		if len(n.Missing) == len(values) {
-			return nil, &DataError{File: path, Column: valueCol, Err: ErrEmpty, Hint: "every row lacks a value; check the column name and the file"}
+		if len(missing) > 0 {
+			notes = append(notes, skippedNote(t, missing, valueCol))
+		}
+		if len(missing) == len(values) || (rows != nil && len(missing) == len(rows)) {
+			return nil, &DataError{File: t.File, Column: valueCol, Err: ErrEmpty, Hint: "every row lacks a value; check the column name and the file"}
 		}
 		if agg == "count" {
 			d.valueCol = countRows + " with a " + valueCol
+		}
+	}
+	if rows != nil {
+		codes = pickCodes(codes, rows)
+		if values != nil {
+			values = pick(values, rows)
 		}
 	}
 	g, err := table.AggregateCodes(dict, codes, values, agg)
@@ -103,9 +132,7 @@ func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, st
 		return nil, err
 	}
 	notes = append(notes, shortenNote(table.ShortenLabels(g.Labels, 0), "label")...)
-	rows := 0
 	for i, n := range g.Rows {
-		rows += n
 		if n > 1 {
 			d.repeated = append(d.repeated, labelCount{g.Labels[i], n})
 		}
@@ -115,6 +142,30 @@ func loadLabelled(path string, o readOptions, labelCol, valueCol, agg string, st
 	}
 	d.labels, d.values, d.notes = g.Labels, g.Values, notes
 	return d, nil
+}
+
+// inRows keeps the rows of sorted that are also in rows (both increasing).
+func inRows(sorted, rows []int) []int {
+	var out []int
+	j := 0
+	for _, r := range sorted {
+		for j < len(rows) && rows[j] < r {
+			j++
+		}
+		if j < len(rows) && rows[j] == r {
+			out = append(out, r)
+		}
+	}
+	return out
+}
+
+// pickCodes returns codes at rows.
+func pickCodes(codes []uint32, rows []int) []uint32 {
+	out := make([]uint32, len(rows))
+	for i, r := range rows {
+		out[i] = codes[r]
+	}
+	return out
 }
 
 // shortenNote says how many labels table.ShortenLabels shortened.

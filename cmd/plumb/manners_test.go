@@ -193,9 +193,9 @@ func TestPaletteQuietAndGrammar(t *testing.T) {
 	assert.Equal(t, exitUsage, code)
 	assert.Contains(t, stderr, `did you mean "sequential"?`)
 
-	code, _, stderr = plumb(t, "", "palette", "categorical", "-o", "sheet.png")
+	code, _, stderr = plumb(t, "", "palette", "categorical", "-o", "sheet.pdf")
 	assert.Equal(t, exitUsage, code)
-	assert.Contains(t, stderr, pngNotYet)
+	assert.Contains(t, stderr, `plumb cannot write ".pdf" files`)
 }
 
 func TestFontReadIsBounded(t *testing.T) {

@@ -29,24 +29,19 @@ import (
 // names no live process on this machine (see removeStale). Files of any
 // other name are never touched.
 
-// Figure formats by extension of the -o path.
-const pngNotYet = "PNG output is not available yet; use .svg"
-
 // checkFigurePath says whether path names a figure plumb can write: "" and
-// "-" (standard output), a name ending in .svg, or a name with no
-// extension. PNG is refused until plumb can write it, so that SVG bytes
-// never land in a file named .png.
+// "-" (standard output, SVG), a name ending in .svg or .png, or a name with
+// no extension (SVG). Any other extension is refused, so that a figure
+// never lands in a file that names another format.
 func checkFigurePath(path string) error {
 	if path == "" || path == "-" {
 		return nil
 	}
 	switch ext := strings.ToLower(filepath.Ext(path)); ext {
-	case ".svg", "":
+	case ".svg", ".png", "":
 		return nil
-	case ".png":
-		return usagef("-o %s: %s", path, pngNotYet)
 	default:
-		return usagef("-o %s: plumb cannot write %q files; name the figure .svg (or give no extension; PNG is not available yet)", path, ext)
+		return usagef("-o %s: plumb cannot write %q files; name the figure .svg or .png (no extension: SVG)", path, ext)
 	}
 }
 
@@ -99,6 +94,10 @@ func (w *fileWriter) Write(p []byte) (int, error) {
 func writeOutput(path string, stdout io.Writer, write func(io.Writer) error) error {
 	if path == "" || path == "-" {
 		return write(stdout)
+	}
+	if isPNG(path) {
+		inner := write
+		write = func(w io.Writer) error { return inner(&pngGuard{w: w}) }
 	}
 	s, _ := stdout.(*session)
 	st, err := os.Stat(path)

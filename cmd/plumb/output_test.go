@@ -3,6 +3,7 @@
 package main
 
 import (
+	"bytes"
 	"errors"
 	"io"
 	"os"
@@ -192,13 +193,21 @@ func TestFigureExtensionChoosesFormat(t *testing.T) {
 		{"fig.svg", "", exitOK},
 		{"fig.SVG", "", exitOK},
 		{"fig", "", exitOK},
-		{"fig.png", "PNG output is not available yet; use .svg", exitUsage},
+		{"fig.png", "", exitOK},
+		{"fig.PNG", "", exitOK},
 		{"fig.pdf", `plumb cannot write ".pdf" files`, exitUsage},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			out := filepath.Join(dir, tc.name)
 			code, _, stderr := plumb(t, eightRegions, "bars", "-", "-o", out)
 			require.Equal(t, tc.code, code, stderr)
+			if tc.code == exitOK {
+				b, err := os.ReadFile(out)
+				require.NoError(t, err)
+				png := strings.EqualFold(filepath.Ext(out), ".png")
+				assert.Equal(t, png, bytes.HasPrefix(b, []byte("\x89PNG\r\n\x1a\n")), "the bytes are the format the name says")
+				assert.Equal(t, !png, bytes.Contains(b, []byte("<svg")))
+			}
 			if tc.code != exitOK {
 				assert.Contains(t, stderr, tc.want)
 				assert.NoFileExists(t, out, "no SVG bytes in a file of another format")

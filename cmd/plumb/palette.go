@@ -59,7 +59,7 @@ func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
 		{name: "hue", arg: "NAME", usage: "sequential: " + strings.Join(palette.SequentialHues(), ", ") +
 			"; diverging: " + strings.Join(palette.DivergingHues(), ", "), value: stringValue{hue}},
 		{name: "json", usage: `print {"kind", "colors", "worst_case_de2000", "min_contrast_on_white"} instead of a swatch sheet`, value: boolValue{asJSON}},
-		{name: "o", arg: "FILE", usage: "output FILE (.svg, or any name with --json); default standard output", value: stringValue{out}},
+		{name: "o", arg: "FILE", usage: "output FILE (.svg or .png, or any name with --json); default standard output", value: stringValue{out}},
 		{name: "quiet", usage: "accepted for symmetry with the charts: palettes print no notes", value: boolValue{hush}},
 	}, stderr)
 	pos, err := parse(fs, args)
@@ -125,7 +125,13 @@ func runPaletteShow(kind string, args []string, stdout, stderr io.Writer) int {
 			}{kind, p.Hex(), math.Round(p.WorstCase()*100) / 100, math.Round(p.MinContrast(palette.SRGB{R: 1, G: 1, B: 1})*100) / 100})
 		}
 	}
-	if err := writeOutput(*out, stdout, write); err != nil {
+	output := writeOutput
+	if !*asJSON {
+		output = func(path string, stdout io.Writer, write func(io.Writer) error) error {
+			return writeFigure(path, 1, stdout, write)
+		}
+	}
+	if err := output(*out, stdout, write); err != nil {
 		return exitCode(err, stderr)
 	}
 	return exitOK

@@ -129,8 +129,8 @@ func FreedmanDiaconisWidth(sorted []float64) float64 {
 	return 2 * iqr / math.Cbrt(float64(n))
 }
 
-// Bin chooses bins for sorted, finite values and counts them.
-func Bin(sorted []float64, o BinOptions) (Histogram, error) {
+// BinValues chooses bins for sorted, finite values and counts them.
+func BinValues(sorted []float64, o BinOptions) (Histogram, error) {
 	n := len(sorted)
 	if n == 0 {
 		return Histogram{}, ErrEmpty

@@ -14,12 +14,12 @@ func benchData(n int) []float64 {
 	return xs
 }
 
-// BenchmarkBin measures choosing and counting bins for a million sorted values.
-func BenchmarkBin(b *testing.B) {
+// BenchmarkBinValues measures choosing and counting bins for a million sorted values.
+func BenchmarkBinValues(b *testing.B) {
 	s, _ := Sorted(benchData(1_000_000))
 	b.ResetTimer()
 	for b.Loop() {
-		if _, err := Bin(s, BinOptions{}); err != nil {
+		if _, err := BinValues(s, BinOptions{}); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -37,7 +37,7 @@ func FuzzBinQuantile(f *testing.F) {
 		if b.Q1 > b.Median || b.Median > b.Q3 {
 			t.Fatalf("box %+v out of order", b)
 		}
-		h, err := Bin(s, BinOptions{Bins: bins % 2000, Width: width, Integer: bins%3 == 1})
+		h, err := BinValues(s, BinOptions{Bins: bins % 2000, Width: width, Integer: bins%3 == 1})
 		if err != nil {
 			return
 		}

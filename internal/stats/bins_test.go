@@ -38,7 +38,7 @@ func TestFreedmanDiaconisWidth(t *testing.T) {
 	}
 }
 
-func TestBin(t *testing.T) {
+func TestBinValues(t *testing.T) {
 	tests := []struct {
 		name   string
 		data   []float64
@@ -89,7 +89,7 @@ func TestBin(t *testing.T) {
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
 			s, _ := Sorted(tc.data)
-			h, err := Bin(s, tc.o)
+			h, err := BinValues(s, tc.o)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -174,7 +174,7 @@ func TestBinProperties(t *testing.T) {
 		if trial%5 == 4 {
 			o.Bins = 1 + rng.IntN(40)
 		}
-		h, err := Bin(s, o)
+		h, err := BinValues(s, o)
 		if err != nil {
 			t.Fatalf("trial %d: %v", trial, err)
 		}
@@ -194,7 +194,7 @@ func TestBinWidens(t *testing.T) {
 	}
 	xs[999] = 1e6
 	s, _ := Sorted(xs)
-	h, err := Bin(s, BinOptions{MaxBins: 50})
+	h, err := BinValues(s, BinOptions{MaxBins: 50})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -215,21 +215,21 @@ func TestBinErrors(t *testing.T) {
 		{Width: 1e-9},
 	} {
 		if o.Width == 1e-9 {
-			if _, err := Bin(s, o); !errors.Is(err, ErrTooManyBins) {
-				t.Errorf("Bin(%+v) error %v, want ErrTooManyBins", o, err)
+			if _, err := BinValues(s, o); !errors.Is(err, ErrTooManyBins) {
+				t.Errorf("BinValues(%+v) error %v, want ErrTooManyBins", o, err)
 			}
 		}
-		if _, err := Bin(s, o); !errors.Is(err, ErrBinOptions) {
-			t.Errorf("Bin(%+v) error %v, want ErrBinOptions", o, err)
+		if _, err := BinValues(s, o); !errors.Is(err, ErrBinOptions) {
+			t.Errorf("BinValues(%+v) error %v, want ErrBinOptions", o, err)
 		}
 	}
-	if _, err := Bin(nil, BinOptions{}); !errors.Is(err, ErrEmpty) {
+	if _, err := BinValues(nil, BinOptions{}); !errors.Is(err, ErrEmpty) {
 		t.Errorf("Bin(nil) error %v", err)
 	}
-	if _, err := Bin([]float64{1e20, 1e20}, BinOptions{Width: 0.5}); !errors.Is(err, ErrPrecision) {
+	if _, err := BinValues([]float64{1e20, 1e20}, BinOptions{Width: 0.5}); !errors.Is(err, ErrPrecision) {
 		t.Errorf("binning 1e20 at width 0.5: error %v, want ErrPrecision", err)
 	}
-	if _, err := Bin([]float64{-math.MaxFloat64, math.MaxFloat64}, BinOptions{}); err == nil {
+	if _, err := BinValues([]float64{-math.MaxFloat64, math.MaxFloat64}, BinOptions{}); err == nil {
 		t.Errorf("binning the whole float64 range should fail, not overflow")
 	}
 }

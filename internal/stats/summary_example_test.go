@@ -25,9 +25,9 @@ func ExampleTukeyBox() {
 
 // Freedman–Diaconis gives 4.18 for these values; the width rounds to the
 // nice 5, and the maximum on the last edge stays in the last bin.
-func ExampleBin() {
+func ExampleBinValues() {
 	s, _ := stats.Sorted([]float64{2, 4, 4, 5, 6, 7, 8, 9, 11, 30})
-	h, err := stats.Bin(s, stats.BinOptions{})
+	h, err := stats.BinValues(s, stats.BinOptions{})
 	if err != nil {
 		fmt.Println(err)
 		return

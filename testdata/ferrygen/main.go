@@ -42,6 +42,7 @@ var datasets = []struct {
 	{"fuel.csv", fuel},
 	{"daily.csv", daily},
 	{"loads.csv", loads},
+	{"cargo.csv", cargo},
 }
 
 // seed is the fixed seed of every stream; the stream number is the second
@@ -269,4 +270,32 @@ func loads(rng *rand.Rand) [][]string {
 func bump(x, centre, width float64) float64 {
 	z := (x - centre) / width
 	return math.Exp(float64(-z*z) / 2)
+}
+
+// cargo is the freight landed at the four main harbours in 2025, in tonnes
+// per kind of cargo: five kinds per harbour, so that small multiples by
+// harbour draw 4 panels of 5 bars. Each harbour has its own trade (timber
+// at Cindergull Bay, livestock at Saltmarrow Point), so the panels differ
+// in order as well as in size.
+func cargo(rng *rand.Rand) [][]string {
+	rows := [][]string{{"harbour", "cargo", "tonnes"}}
+	kinds := []string{"grain", "timber", "fuel", "livestock", "post"}
+	harbours := []struct {
+		name string
+		size float64   // overall trade, in tonnes of the base mix
+		bias []float64 // multiplier per kind of cargo
+	}{
+		{"Kettlewick Harbour", 9000, []float64{1.2, 0.8, 1.4, 0.6, 1.0}},
+		{"Saltmarrow Point", 5200, []float64{0.9, 0.4, 0.8, 2.2, 0.7}},
+		{"Lanternquay", 4100, []float64{1.0, 1.1, 1.6, 0.5, 0.9}},
+		{"Cindergull Bay", 2600, []float64{0.5, 2.6, 0.7, 0.8, 0.6}},
+	}
+	base := []float64{0.30, 0.22, 0.28, 0.15, 0.05} // share of each kind in a typical harbour
+	for _, h := range harbours {
+		for k, kind := range kinds {
+			t := h.size * base[k] * h.bias[k] * noise(rng, 0.12)
+			rows = append(rows, []string{h.name, kind, round(t, 0)})
+		}
+	}
+	return rows
 }

@@ -1,0 +1,933 @@
+package render
+
+import (
+	"cmp"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"plumb/internal/stats"
+	"plumb/layout"
+	"plumb/palette"
+	"plumb/scale"
+)
+
+// ScatterOptions configures a scatter plot. The zero value draws every
+// point in the neutral colour on number axes that need not include zero,
+// translucent when many, binned when too many to draw one by one.
+type ScatterOptions struct {
+	Common
+	// Groups names each point's group (one entry per point); nil draws one
+	// group. Groups get the categorical colours in the order they first
+	// appear and are named beside their points when that is unambiguous,
+	// else in a legend.
+	Groups []string
+	// Fit draws a trend through all the points: "line" fits a straight
+	// line by least squares (r and R² go in the notes), "loess" a smooth
+	// curve (Cleveland 1979: span 0.75, tricube weights, local lines); ""
+	// draws none.
+	Fit string
+	// XName and YName say what the axes measure, for their titles and
+	// the description.
+	XName, YName string
+}
+
+// BinAbove is the number of points above which a scatter plot draws
+// hexagonal bins instead of points. Beyond a few thousand points on a
+// plot of a few hundred pixels, points hide each other so much that
+// translucency no longer shows where most of them are, and an SVG of one
+// element per point grows past what viewers draw briskly (common
+// practice; 5,000 circles are about 600 kB of SVG).
+const BinAbove = 5000
+
+// fits are the values Fit accepts.
+var fits = []string{"", "line", "loess"}
+
+// Scatter draws a scatter plot of y against x and writes it as SVG to w.
+// It returns the notes that record what was decided for the caller.
+func Scatter(w io.Writer, x, y []float64, opt ScatterOptions) ([]Note, error) {
+	s, err := ScatterScene(x, y, opt)
+	if err != nil {
+		return nil, err
+	}
+	return s.Notes, WriteSVG(w, s)
+}
+
+// ScatterScene builds the scatter plot's scene without writing it.
+func ScatterScene(x, y []float64, opt ScatterOptions) (*Scene, error) {
+	p := ScatterPanel(x, y, opt)
+	p.Title = ""
+	return figureScene(opt.Common, gridOptions{}, []Panel{p})
+}
+
+// ScatterPanel plans a scatter plot for a cell of a figure; the options'
+// title is the panel's heading.
+func ScatterPanel(x, y []float64, opt ScatterOptions) Panel {
+	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
+		return newScatterPlan(f, x, y, opt)
+	})
+}
+
+// scatterPlan is a scatter plot planned for a box: its points cleaned and
+// grouped, its fit computed, its domains known.
+type scatterPlan struct {
+	opt  ScatterOptions
+	x, y []float64
+	// The points' extent, found once: a pass over 100,000 points in
+	// each of 30 matrix panels took a quarter of the matrix's time.
+	xlo, xhi, ylo, yhi float64
+	group              []int    // each point's group index; nil for one group
+	names              []string // the groups, in order of first appearance
+	colour             []Colour // each group's colour
+	kx, ky             valueKind
+	dx, dy             axisDomain
+	fit                *fitCurve
+	// binned: too many points to draw one by one; bins is the shading
+	// every panel of a figure shares.
+	binned bool
+	bins   *binShades
+	ownKey bool    // the panel draws its bin key (not in a matrix)
+	titles bool    // the panel draws its axis titles (not in a matrix)
+	aspect float64 // plot height / width when the panel chooses
+	// fixed domains and margin, set by a matrix so that every panel of a
+	// row or column draws one scale whatever its own points.
+	fixed    bool
+	fx, fy   axisDomain
+	marginPx float64
+	legend   bool // groups are named in a legend, not beside their points
+
+	// Laid out for a plot of w × h (layout):
+	w, h     float64
+	ax, ay   axis
+	px, py   []float64 // points in the plot's pixels, origin at its top left
+	cells    []stats.Bin
+	hexR     float64
+	labelPos []layout.Box // group labels, in the plot's pixels
+}
+
+// fitCurve is a trend through the points, evaluated along x.
+type fitCurve struct {
+	kind string // "line" or "loess"
+	x, y []float64
+	line stats.LinearFit
+}
+
+func newScatterPlan(f *frame, x, y []float64, opt ScatterOptions) (*scatterPlan, error) {
+	if len(x) != len(y) {
+		return nil, fmt.Errorf("%d x values and %d y values: give one y per x", len(x), len(y))
+	}
+	if opt.Groups != nil && len(opt.Groups) != len(x) {
+		return nil, &OptionError{Option: "Groups", Value: strconv.Itoa(len(opt.Groups)), Err: fmt.Errorf("give one group per point (%d)", len(x))}
+	}
+	if !slices.Contains(fits, opt.Fit) {
+		return nil, &OptionError{Option: "Fit", Value: opt.Fit, Err: errors.New("use line or loess")}
+	}
+	p := &scatterPlan{opt: opt, titles: true, ownKey: true, aspect: 0.75, x: make([]float64, 0, len(x)), y: make([]float64, 0, len(y))}
+	var groups []string
+	missing := 0
+	for i := range x {
+		if !finiteValue(x[i]) || !finiteValue(y[i]) {
+			missing++
+			continue
+		}
+		p.x = append(p.x, x[i])
+		p.y = append(p.y, y[i])
+		if opt.Groups != nil {
+			groups = append(groups, opt.Groups[i])
+		}
+	}
+	if len(p.x) == 0 {
+		return nil, fmt.Errorf("no points to draw: every point misses its x or its y")
+	}
+	if missing > 0 {
+		f.scene.Note("missing", true, fmt.Sprintf("left out %s with a missing x or y", groupedCount(missing, "point", "points")))
+	}
+	p.xlo, p.xhi = finiteRange(p.x)
+	p.ylo, p.yhi = finiteRange(p.y)
+	for _, s := range []struct {
+		what   string
+		lo, hi float64
+	}{{"x values", p.xlo, p.xhi}, {"y values", p.ylo, p.yhi}} {
+		if err := axisRoom(s.what, s.lo, s.hi); err != nil {
+			return nil, err
+		}
+	}
+	p.binned = len(p.x) > BinAbove
+	p.bins = &binShades{}
+	if err := p.setGroups(f, groups); err != nil {
+		return nil, err
+	}
+	p.kx = plainNumberKind(p.x)
+	p.ky = plainNumberKind(p.y)
+	if err := p.fitTrend(f); err != nil {
+		return nil, err
+	}
+	return p, nil
+}
+
+func finiteValue(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// maxAxisValue bounds the values a number axis places: nice ticks and the
+// margins beyond the data go up to ten times past them, which must stay
+// below the largest float64 (1.8e308).
+const maxAxisValue = math.MaxFloat64 / 1e4
+
+// axisRoom refuses values an axis cannot hold, with what would fix them.
+func axisRoom(what string, lo, hi float64) error {
+	if math.Max(math.Abs(lo), math.Abs(hi)) > maxAxisValue {
+		return fmt.Errorf("the %s run from %g to %g, too near the largest number (%.1e) to place on an axis: divide them by a power of ten first", what, lo, hi, math.MaxFloat64)
+	}
+	return nil
+}
+
+// finiteRange is the least and greatest of values that are all finite and
+// at least one: plain comparisons, which math.Min's care for NaN would
+// slow down.
+func finiteRange(v []float64) (lo, hi float64) {
+	lo, hi = v[0], v[0]
+	for _, x := range v[1:] {
+		if x < lo {
+			lo = x
+		}
+		if x > hi {
+			hi = x
+		}
+	}
+	return lo, hi
+}
+
+// groupedCount is "1 point" or "1,234 points".
+func groupedCount(n int, one, many string) string {
+	return scale.Format{Group: true}.Format(float64(n)) + " " + plural(n, one, many)
+}
+
+// plainNumberKind ticks a number axis that need not reach zero, in whole steps
+// for whole-number data.
+func plainNumberKind(v []float64) valueKind {
+	return valueKind{integer: wholeNumbers(v), label: func(t []float64) []string { return formatAll(scale.TickFormat(t, ""), t) }}
+}
+
+// setGroups gives each point its group and each group its colour. One
+// group, or binned points, draw in the neutral colour.
+func (p *scatterPlan) setGroups(f *frame, groups []string) error {
+	if groups == nil {
+		p.colour = []Colour{f.th.neutral}
+		return nil
+	}
+	idx := map[string]int{}
+	p.group = make([]int, len(groups))
+	for i, g := range groups {
+		k, ok := idx[g]
+		if !ok {
+			k = len(p.names)
+			idx[g] = k
+			p.names = append(p.names, g)
+		}
+		p.group[i] = k
+	}
+	n := len(p.names)
+	if n > palette.MaxCategorical {
+		return &RefusalError{Reason: fmt.Sprintf("%d groups are more than colours can tell apart (at most %d)", n, palette.MaxCategorical),
+			Instead: "draw one panel per group, or combine the groups into fewer"}
+	}
+	if p.binned {
+		if n > 1 {
+			f.scene.Note("groups-binned", true, fmt.Sprintf("%s are binned together: above %s points, groups drawn over each other hide each other; draw one panel per group to compare them",
+				groupedCount(len(p.x), "point", "points"), scale.Format{Group: true}.Format(BinAbove)))
+		}
+		p.group, p.names = nil, nil
+		p.colour = []Colour{f.th.neutral}
+		return nil
+	}
+	if n == 1 {
+		p.colour = []Colour{f.th.neutral}
+		return nil
+	}
+	pal, err := palette.Categorical(n)
+	if err != nil {
+		return err
+	}
+	p.colour = make([]Colour, n)
+	for i := range pal {
+		p.colour[i] = RGB(pal[i])
+	}
+	return nil
+}
+
+// loessPoints is how many x values the LOESS curve is evaluated at: at
+// 120 the polyline's segments are a few pixels long on any plot, so the
+// curve reads as smooth.
+const loessPoints = 120
+
+// fitTrend computes the requested trend and notes what it is.
+func (p *scatterPlan) fitTrend(f *frame) error {
+	if p.opt.Fit == "" {
+		return nil
+	}
+	lo, hi := p.xlo, p.xhi
+	c := &fitCurve{kind: p.opt.Fit}
+	switch p.opt.Fit {
+	case "line":
+		l, err := stats.LeastSquares(p.x, p.y)
+		if err != nil {
+			// The data, not the option, is at fault: an error of input.
+			return fmt.Errorf("%s %s: cannot fit a line to these points: %w", f.c.name("Fit"), p.opt.Fit, errors.Unwrap(err))
+		}
+		c.line = l
+		c.x = []float64{lo, hi}
+		c.y = []float64{l.At(lo), l.At(hi)}
+		vf := scale.ValueFormat([]float64{l.Intercept, l.Slope}, "")
+		sign, b := "+", l.Slope
+		if b < 0 {
+			sign, b = "−", -b
+		}
+		f.scene.Note("fit", false, fmt.Sprintf("least-squares line: y = %s %s %s·x; r = %s, R² = %s (%s)",
+			vf.Format(l.Intercept), sign, vf.Format(b), fmtFit(l.R), fmtFit(l.R2), groupedCount(l.N, "point", "points")))
+	case "loess":
+		c.x = make([]float64, loessPoints)
+		for i := range c.x {
+			c.x[i] = lo + (hi-lo)*float64(i)/float64(loessPoints-1)
+		}
+		ys, err := stats.Loess(p.x, p.y, c.x, stats.LoessSpan)
+		if err != nil {
+			return fmt.Errorf("%s %s: cannot fit a curve to %s: %w (a LOESS curve needs at least 4, spread along x); use %s line or more points", f.c.name("Fit"), p.opt.Fit,
+				groupedCount(len(p.x), "point", "points"), errors.Unwrap(err), f.c.name("Fit"))
+		}
+		c.y = ys
+		f.scene.Note("fit", false, fmt.Sprintf("LOESS curve (Cleveland 1979): at each x, a line fitted to the nearest 75%% of the %s, weighted by the tricube of their distance",
+			groupedCount(len(p.x), "point", "points")))
+	}
+	p.fit = c
+	return nil
+}
+
+// fmtFit writes r and R² with two decimals, the precision they are read at.
+func fmtFit(v float64) string {
+	s := strconv.FormatFloat(v, 'f', 2, 64)
+	if strings.HasPrefix(s, "-") {
+		s = "−" + s[1:]
+	}
+	return s
+}
+
+func (p *scatterPlan) domains() (axisDomain, axisDomain) {
+	if p.fixed {
+		return p.fx, p.fy
+	}
+	xlo, xhi, ylo, yhi := p.xlo, p.xhi, p.ylo, p.yhi
+	if p.fit != nil {
+		// The trend stays on the plot: a fitted value beyond the data
+		// widens the y axis rather than leaving it.
+		if lo, hi, ok := dataRange(p.fit.y); ok {
+			ylo, yhi = math.Min(ylo, lo), math.Max(yhi, hi)
+		}
+	}
+	return axisDomain{kind: domainNumber, lo: xlo, hi: xhi, integer: p.kx.integer},
+		axisDomain{kind: domainNumber, lo: ylo, hi: yhi, integer: p.ky.integer}
+}
+
+func (p *scatterPlan) share(x, y axisDomain) { p.dx, p.dy = x, y }
+
+// markRadius is a point's radius: a quarter of the text size (3 px on a
+// screen), large enough to see and small enough that moderate counts stay
+// apart (common practice).
+func markRadius(sp mediumSpec) float64 { return math.Max(2, sp.text/4) }
+
+// hexRadius is a bin's circumradius: half the text size (6 px on a screen),
+// fine enough to show the shape of the cloud, coarse enough that a cell
+// holds a count worth reading (common practice).
+func hexRadius(sp mediumSpec, small bool) float64 {
+	if small {
+		return math.Max(3, sp.text*0.35)
+	}
+	return math.Max(3, sp.text/2)
+}
+
+// opacityFor is the translucency of n points: opaque up to 250, then
+// fading as 1/√n so that the ink of a dense area grows while single points
+// stay visible, never below 0.2 (common practice).
+func opacityFor(n int) float64 {
+	if n <= 250 {
+		return 0
+	}
+	return math.Max(0.2, math.Round(math.Sqrt(250/float64(n))*100)/100)
+}
+
+// margin is the room kept between the data's extremes and the plot's
+// edges, in pixels, so that no mark reaches past the axes.
+func (p *scatterPlan) margin(f *frame) float64 {
+	if p.marginPx > 0 {
+		return p.marginPx
+	}
+	if p.binned {
+		return 2 * hexRadius(f.spec, !p.titles)
+	}
+	return markRadius(f.spec) + 1
+}
+
+// fitNumberAxes chooses the ticks of both axes for a plot of w × h over
+// the domains, then widens each axis's ends, beyond its ticks, as far as
+// it takes to keep the data margin pixels inside the plot: marks never
+// reach past the axes, and no tick is added for the room (an axis of
+// kilometres gains no −50).
+func fitNumberAxes(f *frame, dx, dy axisDomain, kx, ky valueKind, w, h, margin float64) (axis, axis) {
+	fit := func(d axisDomain, length float64, horizontal bool, k valueKind) axis {
+		lo, hi := d.lo, d.hi
+		if hi == lo {
+			a := math.Max(1, math.Abs(lo)*0.1)
+			lo, hi = lo-a, hi+a
+		}
+		a := f.fitValue(lo, hi, length, horizontal, k)
+		if length > 4*margin && a.d1 > a.d0 {
+			// Solve for the ends that put lo and hi margin px inside.
+			d0, d1 := a.d0, a.d1
+			for range 3 {
+				unit := (d1 - d0) / length
+				d0 = math.Min(a.d0, lo-margin*unit)
+				d1 = math.Max(a.d1, hi+margin*unit)
+			}
+			a.d0, a.d1 = d0, d1
+		}
+		return a
+	}
+	return fit(dx, w, true, kx), fit(dy, h, false, ky)
+}
+
+// tickLabelWidth is the widest tick label an axis over d gives at any of a
+// few lengths, for measuring before the length is known.
+func tickLabelWidth(f *frame, d axisDomain, k valueKind, horizontal bool) float64 {
+	w := 0.0
+	for _, l := range []float64{120, 240, 480, 960} {
+		a := f.fitValue(d.lo, d.hi, l, horizontal, k)
+		for _, s := range a.labels {
+			w = math.Max(w, f.measure(s, f.spec.text, false))
+		}
+	}
+	return w
+}
+
+func (p *scatterPlan) measure(f *frame, cellW float64, e edges) insets {
+	sp := f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	half := math.Ceil((face.Ascent(sp.text) + face.Descent(sp.text)) / 2)
+	in := insets{top: half}
+	if p.titles && p.opt.YName != "" {
+		in.top += f.axisTitle(p.opt.YName, cellW).height(lh) + sp.gap
+	}
+	if e.left {
+		in.left = tickLabelWidth(f, p.dy, p.ky, false) + sp.gap
+	}
+	if e.bottom {
+		in.bottom = f.xLabelTop(0) + lh
+		if p.titles && p.opt.XName != "" {
+			in.bottom += sp.gap + lh
+		}
+	}
+	in.right = math.Ceil(tickLabelWidth(f, p.dx, p.kx, true)/2) + 1
+	// Decide on direct labels or a legend for a plot of the size this cell
+	// will most likely give: exact for a chart of its own.
+	w := math.Floor(cellW - math.Ceil(in.left) - math.Ceil(in.right))
+	h := math.Round(w * p.aspect)
+	if fb := f.fixedPlotBottom(); fb > 0 && p.titles {
+		h = fb - f.plotTop() - in.top - in.bottom
+	}
+	if len(p.names) > 1 && w > 0 && h > 0 {
+		p.layout(f, w, h)
+		p.legend = !p.placeGroupLabels(f)
+		if p.legend {
+			f.scene.Note("legend", false, "named the groups in a legend: labels beside their points would cover other groups' points or each other")
+		}
+	}
+	if n := p.keyLines(f, w); n > 0 {
+		in.top += float64(n)*lh + sp.gap
+	}
+	return in
+}
+
+// keyLines is how many lines the legend or the bin key takes above a
+// plot w wide.
+func (p *scatterPlan) keyLines(f *frame, w float64) int {
+	switch {
+	case p.binned && p.ownKey:
+		// The counts are known once binned; n bounds them all.
+		return len(f.flowEntries(p.bins.keyItems(f, len(p.x)), w, 0, 0, false))
+	case p.legend:
+		return len(f.flowEntries(p.legendItems(f), w, 0, 0, false))
+	}
+	return 0
+}
+
+func (p *scatterPlan) height(f *frame, plotW, room float64) (float64, error) {
+	h := room
+	if h <= 0 {
+		h = math.Round(plotW * p.aspect)
+	}
+	if p.binned && h > 0 && plotW > 0 {
+		// Bin now, so that every panel of a figure knows its counts
+		// before any is drawn and one shading serves them all.
+		p.layout(f, plotW, h)
+	}
+	return h, nil
+}
+
+// layout fixes the axes and the points' pixels for a plot of w × h, and
+// bins them when there are too many to draw.
+func (p *scatterPlan) layout(f *frame, w, h float64) {
+	if p.w == w && p.h == h && p.px != nil {
+		return
+	}
+	p.w, p.h = w, h
+	p.ax, p.ay = fitNumberAxes(f, p.dx, p.dy, p.kx, p.ky, w, h, p.margin(f))
+	xs := scale.Linear{D0: p.ax.d0, D1: p.ax.d1, R0: 0, R1: w}
+	ys := scale.Linear{D0: p.ay.d0, D1: p.ay.d1, R0: h, R1: 0}
+	p.px, p.py = make([]float64, len(p.x)), make([]float64, len(p.y))
+	for i := range p.x {
+		p.px[i], p.py[i] = xs.Map(p.x[i]), ys.Map(p.y[i])
+	}
+	if p.binned {
+		p.hexR = hexRadius(f.spec, !p.titles)
+		p.cells = stats.HexBin(p.px, p.py, p.hexR)
+		for _, c := range p.cells {
+			p.bins.max = max(p.bins.max, c.Count)
+		}
+	}
+}
+
+func (p *scatterPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
+	sp := f.spec
+	p.layout(f, plot.W, plot.H)
+	xs := scale.Linear{D0: p.ax.d0, D1: p.ax.d1, R0: plot.X, R1: plot.X + plot.W}
+	ys := scale.Linear{D0: p.ay.d0, D1: p.ay.d1, R0: plot.Y + plot.H, R1: plot.Y}
+	pl := placed{xs: xs, ys: ys}
+	f.drawNumberAxes(p.ax, p.ay, xs, ys, plot, e)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	lh := lineHeight(sp.text)
+	top := plot.Y - math.Ceil((asc+desc)/2)
+	if p.titles && p.opt.YName != "" {
+		t := f.axisTitle(p.opt.YName, plot.W+plot.X)
+		top -= t.height(lh) + sp.gap
+		f.drawAxisTitle(t, plot.X, top)
+	}
+	if p.titles && p.opt.XName != "" && e.bottom {
+		t, _ := f.wrap(p.opt.XName, sp.text, false, plot.W, 1)
+		if len(t) > 0 {
+			f.text(plot.X+plot.W/2, f.xLabelTop(plot.Y+plot.H)+lh+sp.gap+asc, t[0], sp.text, false, f.th.muted, "plumb-axis-title", Middle)
+		}
+	}
+	var items []keyEntry
+	switch {
+	case p.binned && p.ownKey:
+		items = p.bins.keyItems(f, p.bins.max)
+	case p.legend:
+		items = p.legendItems(f)
+	}
+	if len(items) > 0 {
+		lines := f.flowEntries(items, plot.X+plot.W, plot.X, 0, false)
+		y := top - sp.gap - float64(len(lines))*lh
+		f.flowEntries(items, plot.X+plot.W, plot.X, y, true)
+	}
+	if p.binned {
+		p.drawBins(f, plot, xs, ys)
+	} else {
+		p.drawPoints(f, plot)
+	}
+	p.drawFit(f, xs, ys)
+	if len(p.names) > 1 && !p.legend {
+		p.drawGroupLabels(f, plot)
+	}
+	return pl, nil
+}
+
+// drawNumberAxes draws the grid of both number axes of a plot, with tick
+// labels on its outer edges.
+func (f *frame) drawNumberAxes(ax, ay axis, xs, ys scale.Linear, plot layout.Box, e edges) {
+	sp := f.spec
+	f.draw(ay, axisDraw{vertical: true, pos: ys, from: plot.X, to: plot.X + plot.W, labelAt: plot.X - sp.gap, labels: e.left})
+	top := f.xLabelTop(plot.Y + plot.H)
+	f.draw(ax, axisDraw{pos: xs, from: plot.Y, to: plot.Y + plot.H, labelAt: top + f.fonts.Face(false).Ascent(sp.text), labels: e.bottom})
+}
+
+// drawPoints draws one circle per point, each group in its colour, all
+// translucent when there are many.
+func (p *scatterPlan) drawPoints(f *frame, plot layout.Box) {
+	r := markRadius(f.spec)
+	op := opacityFor(len(p.x))
+	if op > 0 && p.ownKey {
+		f.scene.Note("translucent", false, fmt.Sprintf("drew the %s translucent (opacity %s), so that where they pile up reads darker",
+			groupedCount(len(p.x), "point", "points"), strconv.FormatFloat(op, 'f', -1, 64)))
+	}
+	for i := range p.x {
+		g := 0
+		if p.group != nil {
+			g = p.group[i]
+		}
+		attrs := []Attr{{"x", dataNumber(p.x[i])}, {"y", dataNumber(p.y[i])}}
+		if p.group != nil {
+			attrs = append(attrs, Attr{"group", p.names[g]})
+		}
+		f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark", X: round2(plot.X + p.px[i]), Y: round2(plot.Y + p.py[i]), R: r, Fill: p.colour[g], Opacity: op, Attrs: attrs})
+	}
+}
+
+// drawBins draws one hexagon per occupied cell, shaded by its count.
+func (p *scatterPlan) drawBins(f *frame, plot layout.Box, xs, ys scale.Linear) {
+	if p.ownKey {
+		f.scene.Note("binned", true, fmt.Sprintf("%s are too many to draw one by one: drew them as %s hexagonal bins %s px across, darker for more points (plumb bins above %s points)",
+			groupedCount(len(p.x), "point", "points"), scale.Format{Group: true}.Format(float64(len(p.cells))), strconv.FormatFloat(math.Round(p.hexR*math.Sqrt(3)*10)/10, 'f', -1, 64), scale.Format{Group: true}.Format(BinAbove)))
+	}
+	shades := p.bins.shades()
+	for _, c := range p.cells {
+		cs := stats.HexCorners(plot.X+c.X, plot.Y+c.Y, p.hexR)
+		line := make([]Point, 6)
+		for i, k := range cs {
+			line[i] = Point{round2(k[0]), round2(k[1])}
+		}
+		f.scene.Add(Mark{Kind: Path, Class: "plumb-bin", Lines: [][]Point{line}, Closed: true, Fill: shades.colour(c.Count),
+			Attrs: []Attr{{"count", strconv.Itoa(c.Count)}, {"x", dataNumber(roundPosition(xs.Invert(plot.X + c.X)))}, {"y", dataNumber(roundPosition(ys.Invert(plot.Y + c.Y)))}}})
+	}
+}
+
+// roundPosition rounds a bin centre's data value to six significant digits:
+// it is a position, not a measurement.
+func roundPosition(v float64) float64 {
+	if v == 0 || !finiteValue(v) {
+		return v
+	}
+	d := math.Pow(10, 5-math.Floor(math.Log10(math.Abs(v))))
+	return math.Round(v*d) / d
+}
+
+// drawFit draws the trend as one path.
+func (p *scatterPlan) drawFit(f *frame, xs, ys scale.Linear) {
+	if p.fit == nil {
+		return
+	}
+	line := make([]Point, len(p.fit.x))
+	for i := range p.fit.x {
+		line[i] = Point{round2(xs.Map(p.fit.x[i])), round2(ys.Map(p.fit.y[i]))}
+	}
+	label := "least-squares line"
+	if p.fit.kind == "loess" {
+		label = "LOESS curve"
+	}
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-fit", Lines: [][]Point{line}, Stroke: f.th.text, StrokeWidth: strokeWidth(f.spec), Join: JoinRound, Cap: CapRound,
+		Attrs: []Attr{{"label", label}}})
+}
+
+func (p *scatterPlan) describe() (string, string) {
+	what := func(name, axis string) string {
+		if name != "" {
+			return name
+		}
+		return axis
+	}
+	xn, yn := what(p.opt.XName, "x"), what(p.opt.YName, "y")
+	xlo, xhi, ylo, yhi := p.xlo, p.xhi, p.ylo, p.yhi
+	xf, yf := scale.ValueFormat([]float64{xlo, xhi}, ""), scale.ValueFormat([]float64{ylo, yhi}, "")
+	var b strings.Builder
+	fmt.Fprintf(&b, "Scatter plot of %s against %s, %s", yn, xn, groupedCount(len(p.x), "point", "points"))
+	if len(p.names) > 1 {
+		fmt.Fprintf(&b, " in %d groups (%s)", len(p.names), strings.Join(p.names, ", "))
+	}
+	fmt.Fprintf(&b, "; %s from %s to %s, %s from %s to %s.", xn, xf.Format(xlo), xf.Format(xhi), yn, yf.Format(ylo), yf.Format(yhi))
+	if p.binned {
+		fmt.Fprintf(&b, " Drawn as hexagonal bins; the fullest holds %s.", groupedCount(p.bins.max, "point", "points"))
+	}
+	if p.fit != nil && p.fit.kind == "line" {
+		fmt.Fprintf(&b, " A least-squares line rises %s%s per unit of %s; r = %s.", "", scale.ValueFormat([]float64{p.fit.line.Slope}, "").Format(p.fit.line.Slope), xn, fmtFit(p.fit.line.R))
+	}
+	if p.fit != nil && p.fit.kind == "loess" {
+		b.WriteString(" A LOESS curve shows the trend.")
+	}
+	return b.String(), yn + " against " + xn
+}
+
+// keyEntry is one entry of a legend or a colour key: a swatch and its text.
+type keyEntry struct {
+	colour Colour
+	hex    bool   // a hexagon swatch (bins); else a dot (groups)
+	text   string // the label
+	textC  Colour // the label's colour
+	lead   bool   // a heading without a swatch ("points per cell")
+}
+
+// flowEntries lays key items out left to right from x, wrapping within width
+// right, and draws them at top y when draw is set. It returns the items
+// of each line.
+func (f *frame) flowEntries(items []keyEntry, right, x, y float64, draw bool) [][]keyEntry {
+	sp := f.spec
+	lh := lineHeight(sp.text)
+	face := f.fonts.Face(false)
+	asc, desc := face.Ascent(sp.text), face.Descent(sp.text)
+	sw := sp.text * 0.8
+	var lines [][]keyEntry
+	cx, line := x, []keyEntry(nil)
+	width := func(it keyEntry) float64 {
+		w := f.measure(it.text, sp.text, false)
+		if !it.lead {
+			w += sw + sp.gap/2
+		}
+		return w
+	}
+	if draw {
+		f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-legend"})
+	}
+	for _, it := range items {
+		w := width(it)
+		if len(line) > 0 && cx+w > right {
+			lines = append(lines, line)
+			line = nil
+			cx = x
+			y += lh
+		}
+		if draw {
+			mid := y + lh/2
+			tx := cx
+			if !it.lead {
+				if it.hex {
+					cs := stats.HexCorners(cx+sw/2, mid, sw/2)
+					pts := make([]Point, 6)
+					for i, k := range cs {
+						pts[i] = Point{round2(k[0]), round2(k[1])}
+					}
+					f.scene.Add(Mark{Kind: Path, Class: "plumb-swatch", Lines: [][]Point{pts}, Closed: true, Fill: it.colour})
+				} else {
+					f.scene.Add(Mark{Kind: Circle, Class: "plumb-swatch", X: round2(cx + sw/2), Y: round2(mid), R: round2(sw / 2.5), Fill: it.colour})
+				}
+				tx += sw + sp.gap/2
+			}
+			f.text(round2(tx), round2(mid+(asc-desc)/2), it.text, sp.text, false, it.textC, "plumb-label", Start)
+		}
+		line = append(line, it)
+		cx += w + sp.gap*2
+	}
+	if len(line) > 0 {
+		lines = append(lines, line)
+	}
+	if draw {
+		f.scene.Add(Mark{Kind: GroupEnd})
+	}
+	return lines
+}
+
+// legendItems are the groups as legend entries.
+func (p *scatterPlan) legendItems(f *frame) []keyEntry {
+	items := make([]keyEntry, len(p.names))
+	for i, n := range p.names {
+		items[i] = keyEntry{colour: p.colour[i], text: n, textC: groupTextColour(f, p.colour[i])}
+	}
+	return items
+}
+
+// groupTextColour is a group's colour darkened until it reads as text at
+// 4.5:1 on white (WCAG 2.x SC 1.4.3), so that a label and its points read
+// as one.
+func groupTextColour(f *frame, c Colour) Colour {
+	if dark, ok := palette.DarkenToContrast(c.SRGB(), palette.SRGB{R: 1, G: 1, B: 1}, palette.MinTextContrast); ok {
+		return RGB(dark)
+	}
+	return f.th.text
+}
+
+// binShades is the shading of bins by count, shared by every panel of a
+// figure so that one shade means one count everywhere.
+type binShades struct {
+	max int // the fullest cell of any panel
+}
+
+// binShading maps counts to the colours of a sequential ramp.
+type binShading struct {
+	lows    []int // the smallest count of each class, rising
+	colours []Colour
+}
+
+// maxBinClasses is the most classes a bin shading uses: six shades of one
+// hue stay distinguishable side by side (common practice).
+const maxBinClasses = 6
+
+// shades divides counts 1..max into classes of equal width on a log
+// scale, because cell counts are skewed (a few full cells, many nearly
+// empty): equal-width classes would put nearly every cell in the palest.
+// The colours are a sequential ramp's darker classes: its palest is too
+// close to white for a single point's cell to show.
+func (b *binShades) shades() binShading {
+	return shadesFor(b.max)
+}
+
+func shadesFor(maxCount int) binShading {
+	maxCount = max(1, maxCount)
+	k := min(maxBinClasses, maxCount)
+	lows := []int{1}
+	for i := 1; i < k; i++ {
+		v := int(math.Round(math.Pow(float64(maxCount), float64(i)/float64(k))))
+		if v > lows[len(lows)-1] {
+			lows = append(lows, v)
+		}
+	}
+	k = len(lows)
+	ramp, err := palette.Sequential(palette.SequentialHues()[0], max(palette.MinRamp, k+1))
+	s := binShading{lows: lows, colours: make([]Colour, k)}
+	for i := range s.colours {
+		if err != nil {
+			s.colours[i] = Colour{A: 255}
+			continue
+		}
+		s.colours[i] = RGB(ramp[len(ramp)-k+i])
+	}
+	return s
+}
+
+func (s binShading) colour(count int) Colour {
+	i := 0
+	for i+1 < len(s.lows) && count >= s.lows[i+1] {
+		i++
+	}
+	return s.colours[i]
+}
+
+// keyItems are the shading's classes as key entries, headed by what the
+// shades count, for counts up to maxCount.
+func (b *binShades) keyItems(f *frame, maxCount int) []keyEntry {
+	s := shadesFor(maxCount)
+	items := []keyEntry{{lead: true, text: "Points per bin:", textC: f.th.muted}}
+	g := scale.Format{Group: true}
+	for i, lo := range s.lows {
+		hi := maxCount
+		if i+1 < len(s.lows) {
+			hi = s.lows[i+1] - 1
+		}
+		t := g.Format(float64(lo))
+		if hi > lo {
+			t += "–" + g.Format(float64(hi))
+		}
+		items = append(items, keyEntry{colour: s.colours[i], hex: true, text: t, textC: f.th.muted})
+	}
+	return items
+}
+
+// placeGroupLabels looks for a place for each group's name near its
+// centroid where it covers few points, none of another group if it can,
+// and no other name; it reports whether every group got one that is
+// unambiguous: the points nearest the label are its own group's.
+func (p *scatterPlan) placeGroupLabels(f *frame) bool {
+	sp := f.spec
+	face := f.fonts.Face(false)
+	th := face.Ascent(sp.text) + face.Descent(sp.text)
+	r := markRadius(sp)
+	n := len(p.names)
+	cx, cy, cnt := make([]float64, n), make([]float64, n), make([]int, n)
+	for i := range p.px {
+		g := p.group[i]
+		cx[g] += p.px[i]
+		cy[g] += p.py[i]
+		cnt[g]++
+	}
+	p.labelPos = make([]layout.Box, n)
+	plot := layout.Box{W: p.w, H: p.h}
+	step := th + r
+	for g := range n {
+		cx[g] /= float64(cnt[g])
+		cy[g] /= float64(cnt[g])
+		w := f.measure(p.names[g], sp.text, false)
+		best, bestCost := layout.Box{}, math.Inf(1)
+		for _, d := range labelOffsets {
+			b := layout.Box{X: cx[g] + d[0]*(w/2+step) - w/2, Y: cy[g] + d[1]*step - th/2, W: w, H: th}
+			if !b.Inside(plot) {
+				continue
+			}
+			clash := false
+			for _, o := range p.labelPos[:g] {
+				if b.Overlaps(o) {
+					clash = true
+				}
+			}
+			if clash {
+				continue
+			}
+			own, other := p.covered(b, g, r)
+			cost := float64(other)*4 + float64(own) + math.Hypot(d[0], d[1])*0.5
+			if cost < bestCost {
+				best, bestCost = b, cost
+			}
+		}
+		if math.IsInf(bestCost, 1) {
+			return false
+		}
+		_, other := p.covered(best, g, r)
+		if other > max(1, len(p.px)/100) || p.nearestGroup(best) != g {
+			return false
+		}
+		p.labelPos[g] = best
+	}
+	return true
+}
+
+// labelOffsets are where a group's label is tried, in units of its half
+// width (x) and a line (y) from the centroid: on it, then above, below,
+// beside, and further out.
+var labelOffsets = [][2]float64{{0, 0}, {0, -1}, {0, 1}, {-1, 0}, {1, 0}, {-1, -1}, {1, -1}, {-1, 1}, {1, 1}, {0, -2}, {0, 2}, {-2, 0}, {2, 0}}
+
+// covered counts the points of group g and of other groups whose marks
+// touch box b.
+func (p *scatterPlan) covered(b layout.Box, g int, r float64) (own, other int) {
+	for i := range p.px {
+		if p.px[i]+r < b.X || p.px[i]-r > b.X+b.W || p.py[i]+r < b.Y || p.py[i]-r > b.Y+b.H {
+			continue
+		}
+		if p.group[i] == g {
+			own++
+		} else {
+			other++
+		}
+	}
+	return own, other
+}
+
+// nearestGroup is the group with the most points among the ten nearest
+// the label's centre: a label reads as naming the points around it.
+func (p *scatterPlan) nearestGroup(b layout.Box) int {
+	mx, my := b.X+b.W/2, b.Y+b.H/2
+	order := make([]int, len(p.px))
+	d := make([]float64, len(p.px))
+	for i := range p.px {
+		order[i] = i
+		d[i] = math.Hypot(p.px[i]-mx, p.py[i]-my)
+	}
+	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(d[a], d[b]) })
+	votes := make([]int, len(p.names))
+	for _, i := range order[:min(10, len(order))] {
+		votes[p.group[i]]++
+	}
+	top := 0
+	for g, v := range votes {
+		if v > votes[top] {
+			top = g
+		}
+	}
+	return top
+}
+
+// drawGroupLabels names each group at the place found for it, in its
+// colour darkened to text contrast. On a plot of another size than the
+// one measured, places are found again; a name that then finds none is
+// left to the description.
+func (p *scatterPlan) drawGroupLabels(f *frame, plot layout.Box) {
+	if len(p.labelPos) != len(p.names) || !p.placeGroupLabels(f) {
+		// The plot came out another size than measured and the names
+		// no longer fit beside their points: the legend had no room,
+		// so say so rather than draw names over other groups.
+		f.scene.Note("unlabelled", false, "the groups could not be named beside their points at this size; give a larger canvas")
+		return
+	}
+	sp := f.spec
+	asc := f.fonts.Face(false).Ascent(sp.text)
+	for g, b := range p.labelPos {
+		f.text(round2(plot.X+b.X+b.W/2), round2(plot.Y+b.Y+asc), p.names[g], sp.text, false, groupTextColour(f, p.colour[g]), "plumb-label", Middle)
+	}
+}
