@@ -44,6 +44,7 @@ func commandTable() []command {
 		{name: "figure", summary: "several charts in one grid, from figure files (.json)", synopsis: figureSynopsis, run: runFigure},
 		{name: "scatter", summary: "how two variables relate: points, binned when many", synopsis: dataSynopsis, chart: func() chart { return newScatter() }},
 		{name: "matrix", summary: "how several variables relate, pair by pair", synopsis: dataSynopsis, chart: func() chart { return newMatrix() }},
+		{name: "map", summary: "values by place, on an equal-area projection", synopsis: dataSynopsis, chart: func() chart { return newMap() }},
 		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
 		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)

@@ -37,6 +37,8 @@ func optionsOf(t *testing.T, ch chart) any {
 		return r.opt
 	case *matrixRun:
 		return r.opt
+	case *mapRun:
+		return r.opt
 	}
 	t.Fatalf("no options for %T", ch)
 	return nil

@@ -7,6 +7,7 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
+	"strings"
 )
 
 // figure is one entry of the demo gallery: a command line run on one of the
@@ -68,6 +69,9 @@ var gallery = []figure{
 		"--title", "Fuel grows with the length of the crossing", "--subtitle", "400 sailings with a least-squares line"}},
 	{"matrix-sailings", "sailings-sample.csv", []string{"matrix", "--cols", "crossing_km,minutes,fuel_l,wind_kn,delay_min",
 		"--title", "How the sailings' measures relate", "--subtitle", "150 sailings; each pair on shared scales, each measure's distribution on the diagonal"}},
+	{"map-boardings", "districts.csv", []string{"map", "--region", "district", "--value", "boardings", "--per", "residents", "--shapes", "{islands.geojson}", "--labels",
+		"--value-name", "ferry boardings", "--title", "Outer districts travel less by ferry", "--subtitle", "Ferry boardings per resident, 2025, by district of the Lantern Isles",
+		"--source", "Lantern Isles Ferry Company (fictional), demo data; invented islands"}},
 	{"box-crossings", "crossings.csv", []string{"box", "--group", "route", "--value", "crossing_min", "--unit", "min", "--value-name", "crossing time",
 		"--title", "How long the crossings took", "--subtitle", "Every sailing of one November week, per route; the night sailing ran four times",
 		"--source", "Lantern Isles Ferry Company (fictional), demo data"}},
@@ -125,28 +129,53 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 	}
 	for _, fig := range gallery {
 		path := filepath.Join(*out, fig.name+".svg")
-		args := append(slices.Clone(fig.args), "-o", path)
-		var data []byte
-		if fig.args[0] == "figure" {
-			if code := demoFigure(fig, path, stdout, stderr); code != exitOK {
-				return code
-			}
-			fmt.Fprintln(stderr, "wrote", terminalSafe(path))
-			continue
-		}
-		if fig.data != "" {
-			var err error
-			if data, err = demoData(fig.data); err != nil {
-				return exitCode(fmt.Errorf("demo: %w", err), stderr)
-			}
-			args = append([]string{fig.args[0], "-", "--format", "csv", "--quiet", "-o", path}, fig.args[1:]...)
-		}
-		var errs bytes.Buffer
-		if code := run(args, bytes.NewReader(data), stdout, &errs); code != exitOK {
-			fmt.Fprintf(stderr, "plumb: demo %s failed: %s", fig.name, errs.String())
+		if code := renderDemo(fig, path, stdout, stderr); code != exitOK {
 			return code
 		}
 		fmt.Fprintln(stderr, "wrote", terminalSafe(path))
+	}
+	return exitOK
+}
+
+// renderDemo renders one gallery figure to path (.svg or .png) from the
+// data built into the binary.
+func renderDemo(fig figure, path string, stdout, stderr io.Writer) int {
+	if fig.args[0] == "figure" {
+		return demoFigure(fig, path, stdout, stderr)
+	}
+	// Files a figure names besides its data ({islands.geojson}) are
+	// written to a temporary folder for the run.
+	side, err := os.MkdirTemp("", "plumb-demo-")
+	if err != nil {
+		return exitCode(fmt.Errorf("demo: %w", err), stderr)
+	}
+	defer os.RemoveAll(side)
+	fig.args = slices.Clone(fig.args)
+	for i, a := range fig.args {
+		if name, ok := strings.CutPrefix(a, "{"); ok && strings.HasSuffix(name, "}") {
+			name = strings.TrimSuffix(name, "}")
+			b, err := demoFS.ReadFile("demodata/" + name)
+			if err != nil {
+				return exitCode(fmt.Errorf("demo: %w", err), stderr)
+			}
+			fig.args[i] = filepath.Join(side, name)
+			if err := os.WriteFile(fig.args[i], b, 0o644); err != nil {
+				return exitCode(fmt.Errorf("demo: %w", err), stderr)
+			}
+		}
+	}
+	args := append(slices.Clone(fig.args), "-o", path)
+	var data []byte
+	if fig.data != "" {
+		if data, err = demoData(fig.data); err != nil {
+			return exitCode(fmt.Errorf("demo: %w", err), stderr)
+		}
+		args = append([]string{fig.args[0], "-", "--format", "csv", "--quiet", "-o", path}, fig.args[1:]...)
+	}
+	var errs bytes.Buffer
+	if code := run(args, bytes.NewReader(data), stdout, &errs); code != exitOK {
+		fmt.Fprintf(stderr, "plumb: demo %s failed: %s", fig.name, errs.String())
+		return code
 	}
 	return exitOK
 }

@@ -13,7 +13,7 @@ import (
 // demoFS holds the demo data sets of the invented ferry operator, written by
 // testdata/ferrygen from fixed seeds, so that `plumb demo` needs no files.
 //
-//go:embed demodata/*.csv
+//go:embed demodata/*.csv demodata/*.geojson
 var demoFS embed.FS
 
 // demoData is a demo data set by name: one of the generated tables below,

@@ -58,6 +58,7 @@ var notPanelKeys = map[string]string{
 	"by":         "a panel is one chart; draw small multiples with plumb CHART --by, or give one panel per group",
 	"by-order":   "a panel is one chart; draw small multiples with plumb CHART --by",
 	"own-scales": "a panel is one chart; draw small multiples with plumb CHART --by",
+	"scale":      "the pixel density is the whole figure's: plumb figure writes PNG at one pixel per unit",
 }
 
 // maxFigureFile bounds a figure file: a figure of a hundred panels is a

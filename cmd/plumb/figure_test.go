@@ -4,8 +4,11 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"image"
+	"io"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -156,7 +159,6 @@ func TestFigureUsage(t *testing.T) {
 		{"no file", []string{"figure"}, "give one or more figure files"},
 		{"several to stdout", []string{"figure", a, b}, "2 figure files need -o DIR"},
 		{"same name twice", []string{"figure", a, b, "-o", t.TempDir()}, "would both be written to a.svg"},
-		{"png", []string{"figure", a, "-o", "x.png"}, "PNG output is not available yet"},
 		{"unknown flag", []string{"figure", a, "--columns", "2"}, "unknown flag --columns"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -305,4 +307,15 @@ func TestFigureWordsNamesPanelByPath(t *testing.T) {
 	err := fmt.Errorf("panel %q: %w", "Mean yield", &render.OptionError{Option: "Top", Value: "-2", Err: render.ErrNegative})
 	assert.Equal(t, `panels[1] ("Mean yield"): top -2: `+render.ErrNegative.Error(), figureWords(err, spec))
 	assert.Equal(t, "no room", figureWords(errors.New("no room"), spec))
+}
+
+// A slide figure file renders to a PNG of the slide's 1920x1080 pixels.
+func TestSlideFigureToPNG(t *testing.T) {
+	i := slices.IndexFunc(gallery, func(f figure) bool { return f.name == "figure-slide" })
+	require.GreaterOrEqual(t, i, 0)
+	out := filepath.Join(t.TempDir(), "slide.png")
+	var stderr bytes.Buffer
+	require.Equal(t, exitOK, renderDemo(gallery[i], out, io.Discard, &stderr), stderr.String())
+	img := readPNG(t, out)
+	assert.Equal(t, image.Rect(0, 0, 1920, 1080), img.Bounds())
 }

@@ -64,7 +64,8 @@ func generate(dir string) error {
 			return err
 		}
 	}
-	return nil
+	// The islands' shapes and districts: their own stream, after the CSVs.
+	return islandsFiles(dir, rand.New(rand.NewPCG(seed, 1000)))
 }
 
 func writeCSV(path string, rows [][]string) error {
