@@ -294,18 +294,18 @@ func poleOfInaccessibility(poly [][]Point, precision float64) (Point, float64) {
 		return Point{x0, y0}, 0
 	}
 	h := size / 2
-	var pq cellQueue
+	var pq poleQueue
 	for x := x0; x < x1; x += size {
 		for y := y0; y < y1; y += size {
-			heap.Push(&pq, newCell(x+h, y+h, h, poly))
+			heap.Push(&pq, newPoleCell(x+h, y+h, h, poly))
 		}
 	}
-	best := newCell((x0+x1)/2, (y0+y1)/2, 0, poly)
-	if c := centroidCell(poly); c.d > best.d {
+	best := newPoleCell((x0+x1)/2, (y0+y1)/2, 0, poly)
+	if c := centroidPoleCell(poly); c.d > best.d {
 		best = c
 	}
 	for pq.Len() > 0 {
-		c := heap.Pop(&pq).(cell)
+		c := heap.Pop(&pq).(poleCell)
 		if c.d > best.d {
 			best = c
 		}
@@ -314,24 +314,24 @@ func poleOfInaccessibility(poly [][]Point, precision float64) (Point, float64) {
 		}
 		h := c.h / 2
 		for _, d := range [4][2]float64{{-1, -1}, {1, -1}, {-1, 1}, {1, 1}} {
-			heap.Push(&pq, newCell(c.x+d[0]*h, c.y+d[1]*h, h, poly))
+			heap.Push(&pq, newPoleCell(c.x+d[0]*h, c.y+d[1]*h, h, poly))
 		}
 	}
 	return Point{best.x, best.y}, math.Max(0, best.d)
 }
 
-type cell struct {
+type poleCell struct {
 	x, y, h float64 // centre and half size
 	d       float64 // signed distance from the centre to the polygon's edge (negative outside)
-	max     float64 // the largest distance a point of the cell can have
+	max     float64 // the largest distance a point of the poleCell can have
 }
 
-func newCell(x, y, h float64, poly [][]Point) cell {
+func newPoleCell(x, y, h float64, poly [][]Point) poleCell {
 	d := signedDistance(x, y, poly)
-	return cell{x: x, y: y, h: h, d: d, max: d + h*math.Sqrt2}
+	return poleCell{x: x, y: y, h: h, d: d, max: d + h*math.Sqrt2}
 }
 
-func centroidCell(poly [][]Point) cell {
+func centroidPoleCell(poly [][]Point) poleCell {
 	ring := poly[0]
 	var a, cx, cy float64
 	for i := range ring {
@@ -342,9 +342,9 @@ func centroidCell(poly [][]Point) cell {
 		a += f * 3
 	}
 	if a == 0 {
-		return newCell(ring[0].X, ring[0].Y, 0, poly)
+		return newPoleCell(ring[0].X, ring[0].Y, 0, poly)
 	}
-	return newCell(cx/a, cy/a, 0, poly)
+	return newPoleCell(cx/a, cy/a, 0, poly)
 }
 
 // signedDistance is the distance from (x, y) to the nearest edge of the
@@ -379,11 +379,11 @@ func segDist2(x, y float64, a, b Point) float64 {
 	return ex*ex + ey*ey
 }
 
-// cellQueue is a max-heap of cells by the distance they could reach.
-type cellQueue []cell
+// poleQueue is a max-heap of cells by the distance they could reach.
+type poleQueue []poleCell
 
-func (q cellQueue) Len() int           { return len(q) }
-func (q cellQueue) Less(i, j int) bool { return q[i].max > q[j].max }
-func (q cellQueue) Swap(i, j int)      { q[i], q[j] = q[j], q[i] }
-func (q *cellQueue) Push(x any)        { *q = append(*q, x.(cell)) }
-func (q *cellQueue) Pop() any          { old := *q; c := old[len(old)-1]; *q = old[:len(old)-1]; return c }
+func (q poleQueue) Len() int           { return len(q) }
+func (q poleQueue) Less(i, j int) bool { return q[i].max > q[j].max }
+func (q poleQueue) Swap(i, j int)      { q[i], q[j] = q[j], q[i] }
+func (q *poleQueue) Push(x any)        { *q = append(*q, x.(poleCell)) }
+func (q *poleQueue) Pop() any          { old := *q; c := old[len(old)-1]; *q = old[:len(old)-1]; return c }
