@@ -23,6 +23,10 @@ type HistOptions struct {
 	Density   bool    // heights are densities (count / (n · width)), so areas sum to 1
 	Unit      string  // unit of the values, for the x axis title
 	ValueName string  // what the values measure, for the x axis title and the description
+	// BinsFrom, when set, is a pool of values that holds the panel's own
+	// (every group of a figure): the bins are chosen from the pool, so
+	// that panels drawn with one pool share their bins. HistPanels sets it.
+	BinsFrom []float64
 }
 
 // Hist draws a histogram of values and writes it as SVG to w. It returns
@@ -64,25 +68,8 @@ func HistPanels(groups []Group, opt HistOptions) []Panel {
 	for i, g := range groups {
 		o := opt
 		o.Title = g.Label
-		panels[i] = newPanel(o.Common, func(f *frame) (panelPlan, error) {
-			all, h, err := chooseBins(f, pooled, opt)
-			if err != nil {
-				return nil, err
-			}
-			if i == 0 {
-				f.scene.Note("bins", false, binsNote(h, histFormat(h, opt), opt)+"; the same bins in every panel")
-			}
-			s, err := stats.Sorted(g.Values)
-			if err != nil {
-				return nil, fmt.Errorf("%s: no values to draw", g.Label)
-			}
-			own, err := stats.BinValues(s, stats.BinOptions{Width: h.Width, Integer: scale.IsInteger(all), MaxBins: math.MaxInt32})
-			if err != nil {
-				return nil, fmt.Errorf("%s: %w", g.Label, err)
-			}
-			own.Rule, own.Raw, own.Widened = h.Rule, h.Raw, h.Widened
-			return newHistPlan(s, o, own), nil
-		})
+		o.BinsFrom = pooled
+		panels[i] = HistPanel(g.Values, o)
 	}
 	return panels
 }
@@ -107,6 +94,9 @@ type histPlan struct {
 const minBarPx = 2
 
 func planHist(f *frame, values []float64, opt HistOptions) (*histPlan, error) {
+	if len(opt.BinsFrom) > 0 {
+		return planSharedHist(f, values, opt)
+	}
 	s, h, err := chooseBins(f, values, opt)
 	if err != nil {
 		return nil, err
@@ -114,6 +104,32 @@ func planHist(f *frame, values []float64, opt HistOptions) (*histPlan, error) {
 	p := newHistPlan(s, opt, h)
 	f.scene.Note("bins", false, binsNote(h, p.xfmt, opt))
 	return p, nil
+}
+
+// planSharedHist bins values at the width opt.BinsFrom chooses, on edges
+// at its multiples, and notes the rule once for all the panels.
+func planSharedHist(f *frame, values []float64, opt HistOptions) (*histPlan, error) {
+	all, h, err := chooseBins(f, opt.BinsFrom, opt)
+	if err != nil {
+		return nil, err
+	}
+	s, err := stats.Sorted(values)
+	switch {
+	case errors.Is(err, stats.ErrEmpty):
+		return nil, fmt.Errorf("no values to draw")
+	case err != nil:
+		return nil, err
+	}
+	own, err := stats.BinValues(s, stats.BinOptions{Width: h.Width, Integer: scale.IsInteger(all), MaxBins: math.MaxInt32})
+	if err != nil {
+		return nil, err
+	}
+	own.Rule, own.Raw, own.Widened = h.Rule, h.Raw, h.Widened
+	note := binsNote(h, histFormat(h, opt), opt) + "; the same bins in every panel"
+	if !slices.ContainsFunc(f.scene.Notes, func(n Note) bool { return n.Code == "bins" && n.Text == note }) {
+		f.scene.Note("bins", false, note)
+	}
+	return newHistPlan(s, opt, own), nil
 }
 
 // chooseBins sorts the values and bins them by opt's rule, count or width.

@@ -4,7 +4,10 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
+	"strings"
 
+	"plumb/internal/stats"
 	"plumb/render"
 )
 
@@ -44,11 +47,45 @@ func (r *boxRun) flags() []flagDef {
 }
 
 func (r *boxRun) load(path string, stdin io.Reader, _ func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
-	g, err := loadGroups(path, r.readOptions(), r.group, r.value, nil, false, stdin)
+	t, notes, err := r.readTable(path, stdin, nil)
 	if err != nil {
 		return nil, nil, err
 	}
-	o := &r.opt
+	part, err := r.plan(t, nil, *r.shared.c)
+	if err != nil {
+		return nil, nil, err
+	}
+	return append(notes, part.notes...), func(w io.Writer) ([]render.Note, error) {
+		o := part.opt
+		o.Common = *r.shared.c // with the notes of loading, set after load
+		return render.Box(w, part.groups, o)
+	}, nil
+}
+
+func (r *boxRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
+	return readGroups(path, r.readOptions(), []string{r.group, r.value}, keep, stdin)
+}
+
+// boxPart is a planned panel with what load draws from it.
+type boxPart struct {
+	panelPart
+	groups []render.Group
+	opt    render.BoxOptions
+}
+
+func (r *boxRun) panel(t *Table, rows []int, c render.Common, _ func(string) bool) (panelPart, error) {
+	p, err := r.plan(t, rows, c)
+	return p.panelPart, err
+}
+
+// plan groups the rows and finishes a copy of the options from the data.
+func (r *boxRun) plan(t *Table, rows []int, c render.Common) (boxPart, error) {
+	g, err := groupRows(t, rows, r.group, r.value, false)
+	if err != nil {
+		return boxPart{}, err
+	}
+	o := r.opt // a copy: every panel starts from the flags
+	o.Common = c
 	if o.Unit == "" {
 		o.Unit = g.unit
 	}
@@ -56,7 +93,32 @@ func (r *boxRun) load(path string, stdin io.Reader, _ func(string) bool) ([]rend
 		o.ValueName = g.valueCol
 	}
 	o.GroupName = r.group
-	return g.notes, func(w io.Writer) ([]render.Note, error) { return render.Box(w, g.groups, r.opt) }, nil
+	return boxPart{
+		panelPart: panelPart{panel: render.BoxPanel(g.groups, o), notes: g.notes, size: medianOf(g.groups)},
+		groups:    g.groups, opt: o,
+	}, nil
+}
+
+// shares: the value axis runs along x, or along y for standing boxes.
+func (r *boxRun) shares() (x, y bool) {
+	if r.opt.Vertical {
+		return false, true
+	}
+	return true, false
+}
+
+// medianOf is the median of every value of the groups, by which --by-order
+// value sorts panels of distributions.
+func medianOf(groups []render.Group) float64 {
+	var all []float64
+	for _, g := range groups {
+		all = append(all, g.Values...)
+	}
+	s, err := stats.Sorted(all)
+	if err != nil {
+		return math.NaN()
+	}
+	return stats.Quantile(s, 0.5)
 }
 
 // grouped is a value column split by a group column, groups in order of
@@ -71,25 +133,41 @@ type grouped struct {
 	rows     [][]int // each group's row indices in the table
 }
 
-// loadGroups reads a value column, split by groupCol when given (else by
-// the first column when firstAsGroup, else one group named after the value
-// column), skipping rows with no value and rows with no group (with a
-// note). extra are further columns the caller will read.
-func loadGroups(path string, o readOptions, groupCol, valueCol string, extra []string, firstAsGroup bool, stdin io.Reader) (*grouped, error) {
+// readGroups reads the data file for a chart of distributions, keeping
+// the named columns (those given) and keep; with no value column named it
+// keeps every column, to choose from.
+func readGroups(path string, o readOptions, cols, keep []string, stdin io.Reader) (*Table, []render.Note, error) {
 	var want []string
-	if valueCol != "" && (groupCol != "" || !firstAsGroup) {
-		want = append([]string{valueCol}, extra...)
-		if groupCol != "" {
-			want = append(want, groupCol)
+	named := true
+	for _, c := range cols {
+		if c != "" {
+			want = append(want, c)
+		} else {
+			named = false
 		}
+	}
+	if !named {
+		want = nil
+	} else {
+		want = append(want, keep...)
 	}
 	t, notes, err := readData(path, o, want, stdin)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if t.Len() == 0 {
-		return nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
+	return t, notes, nil
+}
+
+// groupRows splits the value column of the given rows of t (nil: every
+// row) by groupCol when given (else by the first column when
+// firstAsGroup, else one group named after the value column), skipping
+// rows with no value and rows with no group, with a note. Groups come in
+// order of first appearance.
+func groupRows(t *Table, rows []int, groupCol, valueCol string, firstAsGroup bool) (*grouped, error) {
+	var notes []render.Note
 	if groupCol == "" && firstAsGroup {
 		if len(t.Header) < 2 {
 			return nil, tooFewColumns(t, "a chart needs a label column and a value column")
@@ -115,18 +193,15 @@ func loadGroups(path string, o readOptions, groupCol, valueCol string, extra []s
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for values (choose with --value)", valueCol)})
 	}
 	if valueCol == groupCol {
-		return nil, usagef("--group and --value name the same column %q; give the values another column", valueCol)
+		return nil, usagef("the groups and the values are the same column %q; give the values another column", valueCol)
 	}
 	n, err := t.ReadNumbers(valueCol)
 	if err != nil {
 		return nil, err
 	}
 	notes = append(notes, renderNotes(n.Notes)...)
-	if len(n.Missing) > 0 {
-		notes = append(notes, skippedNote(t, n.Missing, valueCol))
-	}
-	if len(n.Missing) == len(n.Values) {
-		return nil, &DataError{File: path, Column: valueCol, Err: ErrEmpty, Hint: "every row lacks a value; check the column name and the file"}
+	if rows == nil {
+		rows = allRows(t.Len())
 	}
 	g := &grouped{valueCol: valueCol, groupCol: groupCol, unit: n.Unit, t: t}
 	var names []string
@@ -134,15 +209,17 @@ func loadGroups(path string, o readOptions, groupCol, valueCol string, extra []s
 		names = t.Strings(groupCol)
 	}
 	index := map[string]int{}
-	var noGroup []int
-	for i, v := range n.Values {
-		if v != v { // NaN: a missing cell, already noted
+	var noValue, noGroup []int
+	for _, i := range rows {
+		v := n.Values[i]
+		if v != v { // NaN: a missing cell
+			noValue = append(noValue, i)
 			continue
 		}
 		name := valueCol
 		if names != nil {
 			name = names[i]
-			if name == "" {
+			if strings.TrimSpace(name) == "" {
 				noGroup = append(noGroup, i)
 				continue
 			}
@@ -157,11 +234,18 @@ func loadGroups(path string, o readOptions, groupCol, valueCol string, extra []s
 		g.groups[k].Values = append(g.groups[k].Values, v)
 		g.rows[k] = append(g.rows[k], i)
 	}
+	if len(noValue) > 0 {
+		notes = append(notes, skippedNote(t, noValue, valueCol))
+	}
 	if len(noGroup) > 0 {
 		notes = append(notes, skippedNote(t, noGroup, groupCol))
 	}
 	if len(g.groups) == 0 {
-		return nil, &DataError{File: path, Column: groupCol, Err: ErrEmpty, Hint: "no row has both a group and a value"}
+		hint := "every row lacks a value; check the column name and the file"
+		if len(noValue) < len(rows) {
+			hint = "no row has both a group and a value"
+		}
+		return nil, &DataError{File: t.File, Column: valueCol, Err: ErrEmpty, Hint: hint}
 	}
 	g.notes = notes
 	return g, nil

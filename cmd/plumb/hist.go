@@ -40,19 +40,63 @@ func (r *histRun) flags() []flagDef {
 }
 
 func (r *histRun) load(path string, stdin io.Reader, _ func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
-	g, err := loadGroups(path, r.readOptions(), "", r.value, nil, false, stdin)
+	t, notes, err := r.readTable(path, stdin, nil)
 	if err != nil {
 		return nil, nil, err
 	}
-	o := &r.opt
+	values, o, more, err := r.plan(t, nil, *r.shared.c)
+	if err != nil {
+		return nil, nil, err
+	}
+	return append(notes, more...), func(w io.Writer) ([]render.Note, error) {
+		o.Common = *r.shared.c // with the notes of loading, set after load
+		return render.Hist(w, values, o)
+	}, nil
+}
+
+func (r *histRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
+	return readGroups(path, r.readOptions(), []string{r.value}, keep, stdin)
+}
+
+// plan reads the values of the given rows (nil: every row) and finishes a
+// copy of the options from the data.
+func (r *histRun) plan(t *Table, rows []int, c render.Common) ([]float64, render.HistOptions, []render.Note, error) {
+	g, err := groupRows(t, rows, "", r.value, false)
+	if err != nil {
+		return nil, render.HistOptions{}, nil, err
+	}
+	o := r.opt // a copy: every panel starts from the flags
+	o.Common = c
 	if o.Unit == "" {
 		o.Unit = g.unit
 	}
 	if o.ValueName == "" {
 		o.ValueName = g.valueCol
 	}
-	return g.notes, func(w io.Writer) ([]render.Note, error) { return render.Hist(w, g.groups[0].Values, r.opt) }, nil
+	return g.groups[0].Values, o, g.notes, nil
 }
+
+// panel plans one histogram of small multiples or of a figure file. The
+// bins are chosen from every row of the table, so that the panels of --by
+// share them: a bar in one panel covers the values of the bar under it in
+// the next.
+func (r *histRun) panel(t *Table, rows []int, c render.Common, _ func(string) bool) (panelPart, error) {
+	values, o, notes, err := r.plan(t, rows, c)
+	if err != nil {
+		return panelPart{}, err
+	}
+	if rows != nil {
+		all, _, _, err := r.plan(t, nil, c)
+		if err != nil {
+			return panelPart{}, err
+		}
+		o.BinsFrom = all
+	}
+	return panelPart{panel: render.HistPanel(values, o), notes: notes, size: medianOf([]render.Group{{Values: values}})}, nil
+}
+
+// shares: shared bins along x and one count scale along y.
+func (r *histRun) shares() (x, y bool) { return true, true }
 
 // positiveValue sets a float64 field to a positive finite number.
 type positiveValue struct{ p *float64 }

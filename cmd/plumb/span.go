@@ -61,60 +61,133 @@ func (r *spanRun) flags() []flagDef {
 }
 
 func (r *spanRun) load(path string, stdin io.Reader, flagGiven func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
-	given := r.low != "" || r.mid != "" || r.high != ""
+	if err := r.check(flagGiven); err != nil {
+		return nil, nil, err
+	}
+	t, notes, err := r.readTable(path, stdin, nil)
+	if err != nil {
+		return nil, nil, err
+	}
+	ranges, o, more, err := r.plan(t, nil, *r.shared.c)
+	if err != nil {
+		return nil, nil, err
+	}
+	return append(notes, more...), func(w io.Writer) ([]render.Note, error) {
+		o.Common = *r.shared.c // with the notes of loading, set after load
+		return render.Span(w, ranges, o)
+	}, nil
+}
+
+// given reports whether the ranges are given (--low --mid --high) rather
+// than computed from raw rows.
+func (r *spanRun) given() bool { return r.low != "" || r.mid != "" || r.high != "" }
+
+// check refuses flags of the two forms mixed.
+func (r *spanRun) check(flagGiven func(string) bool) error {
+	given := r.given()
 	switch {
 	case given && flagGiven("stat"):
-		return nil, nil, usagef("--stat computes ranges from raw rows (--value); with --low --mid --high the ranges are given as they are")
+		return usagef("--stat computes ranges from raw rows (--value); with --low --mid --high the ranges are given as they are")
 	case given && r.value != "":
-		return nil, nil, usagef("give --low --mid --high (ranges as given) or --value (ranges computed from raw rows), not both")
+		return usagef("give --low --mid --high (ranges as given) or --value (ranges computed from raw rows), not both")
 	case given && (r.low == "" || r.mid == "" || r.high == ""):
-		return nil, nil, usagef("given ranges need all three of --low, --mid and --high")
+		return usagef("given ranges need all three of --low, --mid and --high")
 	case given && r.where != "":
-		return nil, nil, usagef("--mark-where picks rows of raw values (--value); with --low --mid --high, name the column to overlay with --mark")
+		return usagef("--mark-where picks rows of raw values (--value); with --low --mid --high, name the column to overlay with --mark")
 	case !given && r.mark != "":
-		return nil, nil, usagef("--mark names a column of given ranges (--low --mid --high); with raw rows, pick the rows to overlay with --mark-where COL=VALUE")
+		return usagef("--mark names a column of given ranges (--low --mid --high); with raw rows, pick the rows to overlay with --mark-where COL=VALUE")
 	case !given && r.value == "":
-		return nil, nil, usagef("give the ranges with --low --mid --high, or raw values with --value to compute them (--stat)")
+		return usagef("give the ranges with --low --mid --high, or raw values with --value to compute them (--stat)")
+	}
+	if _, _, err := r.whereCond(); err != nil {
+		return err
+	}
+	return nil
+}
+
+// whereCond splits --mark-where COL=VALUE; both are "" without it.
+func (r *spanRun) whereCond() (col, val string, err error) {
+	if r.where == "" {
+		return "", "", nil
+	}
+	col, val, ok := strings.Cut(r.where, "=")
+	col = strings.TrimSpace(col)
+	if !ok || col == "" {
+		return "", "", usagef("--mark-where %q: give COL=VALUE, such as year=2025", r.where)
+	}
+	return col, val, nil
+}
+
+func (r *spanRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
+	if r.given() {
+		return readGroups(path, r.readOptions(), []string{r.label, r.low, r.mid, r.high, r.mark}[:4+boolInt(r.mark != "")], keep, stdin)
+	}
+	col, _, _ := r.whereCond()
+	if col != "" {
+		keep = append(slices.Clone(keep), col)
+	}
+	return readGroups(path, r.readOptions(), []string{r.label, r.value}, keep, stdin)
+}
+
+func boolInt(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
+}
+
+// plan builds the ranges of the given rows (nil: every row) and a copy of
+// the options finished from the data.
+func (r *spanRun) plan(t *Table, rows []int, c render.Common) ([]render.Range, render.SpanOptions, []render.Note, error) {
+	o := r.opt // a copy: every panel starts from the flags
+	o.Common = c
+	if rows == nil {
+		rows = allRows(t.Len())
 	}
 	var (
 		ranges []render.Range
 		notes  []render.Note
 		err    error
 	)
-	if given {
-		ranges, notes, err = r.loadGiven(path, stdin)
+	if r.given() {
+		ranges, notes, err = r.givenRanges(t, rows, &o)
 	} else {
-		ranges, notes, err = r.loadComputed(path, stdin)
+		ranges, notes, err = r.computedRanges(t, rows, &o)
 	}
-	if err != nil {
-		return nil, nil, err
-	}
-	return notes, func(w io.Writer) ([]render.Note, error) { return render.Span(w, ranges, r.opt) }, nil
+	return ranges, o, notes, err
 }
 
-// loadGiven reads one row per category with its low, middle and high, and
-// an optional value to overlay.
-func (r *spanRun) loadGiven(path string, stdin io.Reader) ([]render.Range, []render.Note, error) {
+func (r *spanRun) panel(t *Table, rows []int, c render.Common, flagGiven func(string) bool) (panelPart, error) {
+	if err := r.check(flagGiven); err != nil {
+		return panelPart{}, err
+	}
+	ranges, o, notes, err := r.plan(t, rows, c)
+	if err != nil {
+		return panelPart{}, err
+	}
+	mids := make([]float64, len(ranges))
+	for i, rg := range ranges {
+		mids[i] = rg.Mid
+	}
+	return panelPart{panel: render.SpanPanel(ranges, o), notes: notes, size: sizeOf(mids, false)}, nil
+}
+
+// shares: the value axis runs along x.
+func (r *spanRun) shares() (x, y bool) { return true, false }
+
+// givenRanges reads one row per category with its low, middle and high,
+// and an optional value to overlay.
+func (r *spanRun) givenRanges(t *Table, rows []int, o *render.SpanOptions) ([]render.Range, []render.Note, error) {
 	cols := []string{r.low, r.mid, r.high}
 	if r.mark != "" {
 		cols = append(cols, r.mark)
 	}
-	var want []string
-	if r.label != "" {
-		want = append([]string{r.label}, cols...)
-	}
-	t, notes, err := readData(path, r.readOptions(), want, stdin)
-	if err != nil {
-		return nil, nil, err
-	}
-	label, err := r.labelColumn(t)
+	label, notes, err := r.labelColumn(t)
 	if err != nil {
 		return nil, nil, err
 	}
 	names := t.Strings(label)
 	vals := make([][]float64, len(cols))
-	var missing []int
-	seenMissing := map[int]bool{}
 	for i, c := range cols {
 		n, err := t.ReadNumbers(c)
 		if err != nil {
@@ -122,29 +195,21 @@ func (r *spanRun) loadGiven(path string, stdin io.Reader) ([]render.Range, []ren
 		}
 		notes = append(notes, renderNotes(n.Notes)...)
 		vals[i] = n.Values
-		if i < 3 {
-			for _, m := range n.Missing {
-				if !seenMissing[m] {
-					seenMissing[m] = true
-					missing = append(missing, m)
-				}
-			}
-		}
 	}
-	if len(missing) > 0 {
-		notes = append(notes, skippedNote(t, slices.Sorted(slices.Values(missing)), strings.Join(cols[:3], ", ")))
+	if o.Unit == "" {
+		o.Unit = t.unitOf(cols[:3]...)
 	}
-	if r.opt.Unit == "" {
-		r.opt.Unit = t.unitOf(cols[:3]...)
+	if o.MarkName == "" {
+		o.MarkName = r.mark
 	}
-	if r.opt.MarkName == "" {
-		r.opt.MarkName = r.mark
-	}
-	r.opt.LabelName = label
+	o.LabelName = label
 	seen := map[string]int{}
 	var ranges []render.Range
-	for i := range t.Len() {
-		if seenMissing[i] {
+	var missing []int
+	for _, i := range rows {
+		rg := render.Range{Label: names[i], Low: vals[0][i], Mid: vals[1][i], High: vals[2][i]}
+		if rg.Low != rg.Low || rg.Mid != rg.Mid || rg.High != rg.High { // NaN: a missing cell
+			missing = append(missing, i)
 			continue
 		}
 		if first, ok := seen[names[i]]; ok {
@@ -152,7 +217,6 @@ func (r *spanRun) loadGiven(path string, stdin io.Reader) ([]render.Range, []ren
 				Hint: fmt.Sprintf("it is on line %d too; give each category one row, or give raw rows with --value to compute the range", t.Line(first))}
 		}
 		seen[names[i]] = i
-		rg := render.Range{Label: names[i], Low: vals[0][i], Mid: vals[1][i], High: vals[2][i]}
 		if !(rg.Low <= rg.Mid && rg.Mid <= rg.High) {
 			return nil, nil, &DataError{File: t.File, Line: t.Line(i), Column: r.mid, Text: fmt.Sprint(rg.Mid), Err: ErrRangeOrder,
 				Hint: fmt.Sprintf("low %g, middle %g, high %g; a range needs low ≤ middle ≤ high (check which columns --low --mid --high name)", rg.Low, rg.Mid, rg.High)}
@@ -164,6 +228,9 @@ func (r *spanRun) loadGiven(path string, stdin io.Reader) ([]render.Range, []ren
 		}
 		ranges = append(ranges, rg)
 	}
+	if len(missing) > 0 {
+		notes = append(notes, skippedNote(t, missing, strings.Join(cols[:3], ", ")))
+	}
 	if len(ranges) == 0 {
 		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "no row has all of its low, middle and high"}
 	}
@@ -171,37 +238,27 @@ func (r *spanRun) loadGiven(path string, stdin io.Reader) ([]render.Range, []ren
 }
 
 // labelColumn is --label, or the first column with a note.
-func (r *spanRun) labelColumn(t *Table) (string, error) {
-	if t.Len() == 0 {
-		return "", &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
-	}
+func (r *spanRun) labelColumn(t *Table) (string, []render.Note, error) {
 	label := r.label
+	var notes []render.Note
 	if label == "" {
 		label = t.Header[0]
+		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for labels (choose with --label)", label)})
 	}
 	if !t.Has(label) {
-		return "", t.missingColumn(label, 1)
+		return "", nil, t.missingColumn(label, 1)
 	}
-	return label, nil
+	return label, notes, nil
 }
 
-// loadComputed reads raw rows and computes each category's range; the
-// rows --mark-where picks give the overlay.
-func (r *spanRun) loadComputed(path string, stdin io.Reader) ([]render.Range, []render.Note, error) {
-	var whereCol, whereVal string
-	if r.where != "" {
-		var ok bool
-		whereCol, whereVal, ok = strings.Cut(r.where, "=")
-		whereCol = strings.TrimSpace(whereCol)
-		if !ok || whereCol == "" {
-			return nil, nil, usagef("--mark-where %q: give COL=VALUE, such as year=2025", r.where)
-		}
+// computedRanges computes each category's range from raw rows; the rows
+// --mark-where picks give the overlay.
+func (r *spanRun) computedRanges(t *Table, rows []int, o *render.SpanOptions) ([]render.Range, []render.Note, error) {
+	whereCol, whereVal, err := r.whereCond()
+	if err != nil {
+		return nil, nil, err
 	}
-	var extra []string
-	if whereCol != "" {
-		extra = []string{whereCol}
-	}
-	g, err := loadGroups(path, r.readOptions(), r.label, r.value, extra, true, stdin)
+	g, err := groupRows(t, rows, r.label, r.value, true)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -210,7 +267,6 @@ func (r *spanRun) loadComputed(path string, stdin io.Reader) ([]render.Range, []
 		return nil, nil, err
 	}
 	notes := g.notes
-	o := &r.opt
 	o.Stat = render.SpanStat(r.stat)
 	if o.Unit == "" {
 		o.Unit = g.unit
@@ -222,7 +278,6 @@ func (r *spanRun) loadComputed(path string, stdin io.Reader) ([]render.Range, []
 	if whereCol == "" {
 		return ranges, notes, nil
 	}
-	t := g.t
 	if !t.Has(whereCol) {
 		return nil, nil, t.missingColumn(whereCol, 1)
 	}
