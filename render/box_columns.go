@@ -22,7 +22,12 @@ func (p *valueColumns) domains() (x, y axisDomain) {
 	return x, y
 }
 
-func (p *valueColumns) share(x, y axisDomain) { p.dy = y }
+func (p *valueColumns) share(x, y axisDomain) {
+	p.dy = y
+	if x.kind == domainCategory {
+		p.alignRows(x.labels)
+	}
+}
 
 func (p *valueColumns) kind() valueKind {
 	return valueKind{integer: p.dy.integer, label: p.tickLabels}
@@ -96,9 +101,11 @@ func (p *valueColumns) draw(f *frame, plot layout.Box, e edges) (placed, error) 
 	thick := math.Min(band*0.5, sp.text*2.4)
 	for i, r := range p.rows {
 		cx := plot.X + (float64(i)+0.5)*band
-		boxes, end := r.draw(f, ys, cx, thick, true)
-		out.marks = append(out.marks, boxes...)
-		out.cats = append(out.cats, catPlace{label: r.label, centre: cx, size: band, end: end})
+		if r.draw != nil {
+			boxes, end := r.draw(f, ys, cx, thick, true)
+			out.marks = append(out.marks, boxes...)
+			out.cats = append(out.cats, catPlace{label: r.label, centre: cx, size: band, end: end})
+		}
 		if !e.bottom {
 			continue
 		}

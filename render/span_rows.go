@@ -90,13 +90,50 @@ func (p *valueRows) domains() (x, y axisDomain) {
 	lo, hi := math.Inf(1), math.Inf(-1)
 	labels := make([]string, len(p.rows))
 	for i, r := range p.rows {
-		lo, hi = math.Min(lo, r.lo), math.Max(hi, r.hi)
+		if r.draw != nil {
+			lo, hi = math.Min(lo, r.lo), math.Max(hi, r.hi)
+		}
 		labels[i] = r.label
 	}
 	return axisDomain{kind: domainNumber, lo: lo, hi: hi, integer: p.integer}, axisDomain{kind: domainCategory, labels: labels}
 }
 
-func (p *valueRows) share(x, y axisDomain) { p.dx = x }
+func (p *valueRows) share(x, y axisDomain) {
+	p.dx = x
+	if y.kind == domainCategory {
+		p.alignRows(y.labels)
+	}
+}
+
+// alignRows lays the rows out in the order of a category axis shared by
+// the panels of a grid: every panel gets a row for every category, empty
+// where it has no data, so that a row means one category across the grid
+// and the labels on its outer side name the rows of every panel.
+func (p *valueRows) alignRows(labels []string) {
+	if len(labels) == 0 {
+		return
+	}
+	same := len(labels) == len(p.rows)
+	for i := 0; same && i < len(labels); i++ {
+		same = labels[i] == p.rows[i].label
+	}
+	if same {
+		return
+	}
+	own := make(map[string]valueRow, len(p.rows))
+	for _, r := range p.rows {
+		own[r.label] = r
+	}
+	rows := make([]valueRow, len(labels))
+	for i, l := range labels {
+		r, ok := own[l]
+		if !ok {
+			r = valueRow{label: l, lo: math.NaN(), hi: math.NaN()} // no data here: an empty row
+		}
+		rows[i] = r
+	}
+	p.rows = rows
+}
 
 func (p *valueRows) kind() valueKind {
 	return valueKind{integer: p.dx.integer, label: p.tickLabels}
@@ -221,6 +258,9 @@ func (p *valueRows) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 				w := f.measure(l, sp.text, false)
 				out.text = append(out.text, layout.Box{X: plot.X - sp.gap*1.5 - w, Y: y - asc, W: w, H: lh})
 			}
+		}
+		if r.draw == nil {
+			continue // a category of other panels
 		}
 		boxes, end := r.draw(f, xs, cy, thick, false)
 		out.marks = append(out.marks, boxes...)

@@ -99,13 +99,9 @@ func (r *boxRun) plan(t *Table, rows []int, c render.Common) (boxPart, error) {
 	}, nil
 }
 
-// shares: the value axis runs along x, or along y for standing boxes.
-func (r *boxRun) shares() (x, y bool) {
-	if r.opt.Vertical {
-		return false, true
-	}
-	return true, false
-}
+// shares: the value axis and the groups, so that a row (or a column of
+// standing boxes) is one group in every panel.
+func (r *boxRun) shares() (x, y bool) { return true, true }
 
 // medianOf is the median of every value of the groups, by which --by-order
 // value sorts panels of distributions.

@@ -51,3 +51,39 @@ func TestDistributionsBy(t *testing.T) {
 	root = checkFigure(t, []byte(out))
 	assert.Len(t, root.all("rect", "plumb-range"), 9)
 }
+
+// TestBoxByAlignsRows: a group missing from one panel leaves an empty row
+// there, so that every row is one group across the panels, named once on
+// the grid's outer side.
+func TestBoxByAlignsRows(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("season,route,minutes\n")
+	for i := range 10 {
+		fmt.Fprintf(&b, "Winter,North,%d\nWinter,South,%d\nSummer,South,%d\nSummer,East,%d\n", 30+i, 40+i, 41+i, 20+i)
+	}
+	code, out, errs := plumb(t, b.String(), "box", "-", "--group", "route", "--value", "minutes", "--by", "season")
+	require.Equal(t, 0, code, errs)
+	root := checkFigure(t, []byte(out))
+	// Row positions inside each panel's group: Winter has South and
+	// North, Summer South and East; East keeps the third row, below an
+	// empty North row.
+	panels := map[float64]map[string]float64{}
+	for _, bx := range root.all("rect", "plumb-box") {
+		if panels[bx.DY] == nil {
+			panels[bx.DY] = map[string]float64{}
+		}
+		panels[bx.DY][bx.Attr["data-label"]] = bx.num(t, "y")
+	}
+	require.Len(t, panels, 2)
+	var band, east float64
+	for _, rows := range panels {
+		if n, ok := rows["North"]; ok {
+			band = n - rows["South"]
+		}
+		if e, ok := rows["East"]; ok {
+			east = e - rows["South"]
+		}
+	}
+	assert.Greater(t, band, 0.0)
+	assert.InDelta(t, 2*band, east, 0.02)
+}

@@ -172,8 +172,9 @@ func (r *spanRun) panel(t *Table, rows []int, c render.Common, flagGiven func(st
 	return panelPart{panel: render.SpanPanel(ranges, o), notes: notes, size: sizeOf(mids, false)}, nil
 }
 
-// shares: the value axis runs along x.
-func (r *spanRun) shares() (x, y bool) { return true, false }
+// shares: the value axis along x and the categories, so that a row is one
+// category in every panel.
+func (r *spanRun) shares() (x, y bool) { return true, true }
 
 // givenRanges reads one row per category with its low, middle and high,
 // and an optional value to overlay.
