@@ -268,6 +268,26 @@ func (r *spanRun) computedRanges(t *Table, rows []int, o *render.SpanOptions) ([
 		return nil, nil, err
 	}
 	notes := g.notes
+	// A range of one value is a point, and quantiles of a handful are
+	// interpolations between two or three of them: say which categories
+	// have so few (render.MinBoxN, as for box plots).
+	need := render.MinBoxN
+	if render.SpanStat(r.stat) == render.StatRange {
+		need = 2
+	}
+	var few []string
+	for _, gr := range g.groups {
+		if len(gr.Values) < need {
+			few = append(few, fmt.Sprintf("%q (n = %d)", gr.Label, len(gr.Values)))
+		}
+	}
+	if k := len(few); k > 0 {
+		if k > 5 {
+			few = append(few[:5], fmt.Sprintf("and %d more", len(few)-5))
+		}
+		notes = append(notes, render.Note{Code: "span-few", Changed: false,
+			Text: fmt.Sprintf("%d %s computed from fewer than %d values: %s", k, pluralS(k, "range"), need, strings.Join(few, ", "))})
+	}
 	o.Stat = render.SpanStat(r.stat)
 	if o.Unit == "" {
 		o.Unit = g.unit
