@@ -172,7 +172,7 @@ func (p *diffPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	// the axis.
 	f.key(f.areaKeyRows(ar, c.opt.aName, c.opt.bName, plot.W), plot.X, bottom)
 	text, marks := f.boxesSince(from)
-	return placed{xs: xs, ys: ys, text: text, marks: marks}, nil
+	return forLayers(placed{xs: xs, ys: ys, text: text, marks: marks}, ay, c.opt.Time, c.d), nil
 }
 
 func (p *diffPlan) describe() (string, string) { return p.c.describe(), p.c.name() }
@@ -264,7 +264,7 @@ func (p *levelsPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	}
 	xs := scale.Linear{D0: p.axes.ax.d0, D1: p.axes.ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	text, marks := f.boxesSince(from)
-	return placed{xs: xs, ys: ys, text: text, marks: marks}, nil
+	return forLayers(placed{xs: xs, ys: ys, text: text, marks: marks}, ay, c.opt.Time, c.a, c.b), nil
 }
 
 func (p *levelsPlan) describe() (string, string) { return p.c.describe(), p.c.name() }

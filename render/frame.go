@@ -28,8 +28,9 @@ type Common struct {
 	Names OptionNames
 
 	// Annotations are drawn over the data: reference lines, events,
-	// periods and callouts.
-	Annotations Annotations
+	// periods and callouts. Embedded, so that their fields (Refs, Events,
+	// Periods, Callouts) are options of every chart by those names.
+	Annotations
 
 	// Notes are decisions the caller made before drawing, such as which
 	// columns it read and how; they open the scene's notes, so that the

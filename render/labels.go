@@ -109,7 +109,7 @@ func (f *frame) spreadLabels(labels []label, right, top, bottom float64) ([]layo
 	boxes := make([]layout.Box, 0, len(labels))
 	for i, l := range labels {
 		y := got[i]
-		f.leader(Point{right + sp.gap/2, l.at}, Point{x - sp.gap/2, y}, l.full)
+		f.leader(Point{right + sp.gap/2, l.at}, Point{x - sp.gap/2, y}, []Attr{{"series", l.full}})
 		tip := ""
 		if strings.Join(l.lines, " ") != l.full {
 			tip = l.full
@@ -146,12 +146,9 @@ func spreadAlong(want []float64, gap, hang, lo, hi float64) ([]float64, bool) {
 }
 
 // leader draws the thin line from a mark (at from) to its moved label (at
-// to), in the muted text colour so that it never reads as data.
-func (f *frame) leader(from, to Point, series string) {
-	var attrs []Attr
-	if series != "" {
-		attrs = []Attr{{"series", series}}
-	}
+// to), in the muted text colour so that it never reads as data. Every
+// chart's leaders and the annotations' are drawn here.
+func (f *frame) leader(from, to Point, attrs []Attr) {
 	f.scene.Add(Mark{Kind: Path, Class: "plumb-leader", Lines: [][]Point{{{round2(from.X), round2(from.Y)}, {round2(to.X), round2(to.Y)}}},
 		Stroke: f.th.muted, StrokeWidth: 0.75, Join: JoinRound, Cap: CapRound, Attrs: attrs})
 }

@@ -90,7 +90,7 @@ func (p *linePlan) drawMultiple(f *frame, plot layout.Box, e edges) (placed, err
 	f.addSeries("plumb-mark", s.Name, j.polys[p.idx], g.screen(j.polys[p.idx], ys), f.th.neutral, strokeWidth(f.spec), c.opt.Time)
 	xs := scale.Linear{D0: ax.d0, D1: ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	text, marks := f.boxesSince(from)
-	return placed{xs: xs, ys: ys, text: text, marks: marks}, nil
+	return forLayers(placed{xs: xs, ys: ys, text: text, marks: marks}, j.ay, c.opt.Time, s.Y), nil
 }
 
 // jointRoom is the room the panels were last fitted to.

@@ -198,7 +198,7 @@ func (p *linePlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	}
 	xs := scale.Linear{D0: p.axes.ax.d0, D1: p.axes.ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	text, marks := f.boxesSince(from)
-	return placed{xs: xs, ys: ys, text: text, marks: marks}, nil
+	return forLayers(placed{xs: xs, ys: ys, text: text, marks: marks}, ay, c.opt.Time, c.ys()...), nil
 }
 
 func (p *linePlan) describe() (string, string) {

@@ -101,10 +101,10 @@ func TestMapLightnessFallsWithValue(t *testing.T) {
 		assert.LessOrEqual(t, l, prevL+1e-9, "lightness never rises with value")
 		prevL, prevV = l, values[i]
 	}
-	assert.Contains(t, noteText(s, "map-classes"), "4 classes by natural breaks")
+	assert.Contains(t, sceneNote(s, "map-classes"), "4 classes by natural breaks")
 }
 
-func noteText(s *Scene, code string) string {
+func sceneNote(s *Scene, code string) string {
 	for _, n := range s.Notes {
 		if n.Code == code {
 			return n.Text
@@ -127,10 +127,10 @@ func TestMapCountNote(t *testing.T) {
 	}
 	s, err := MapScene(regions, names, values, MapOptions{})
 	require.NoError(t, err)
-	assert.Contains(t, noteText(s, "map-counts"), "a map of counts mostly shows size")
+	assert.Contains(t, sceneNote(s, "map-counts"), "a map of counts mostly shows size")
 	s, err = MapScene(regions, names, values, MapOptions{PerArea: true})
 	require.NoError(t, err)
-	assert.Empty(t, noteText(s, "map-counts"))
+	assert.Empty(t, sceneNote(s, "map-counts"))
 	assert.Contains(t, s.Desc, "per km²")
 	// Per area divides by each region's area in km².
 	for i, m := range regionMarks(s) {

@@ -109,6 +109,12 @@ type placed struct {
 	cats       []catPlace   // category positions, for callouts
 	text       []layout.Box // every text box the panel drew
 	marks      []layout.Box // the boxes of its data marks
+
+	// For the annotation layers (render/annotate.go):
+	values    []float64            // the values along the value axis, for a reference line at their mean or median
+	valueText func(float64) string // writes a value as the value axis labels it; nil writes it plainly
+	xTime     bool                 // x holds instants (Unix seconds): events and periods are dates
+	start     int                  // index in the scene of the panel's first mark, set by the grid: periods are shaded behind everything the panel drew
 }
 
 // panelPlan is one chart kind's data, planned and ready to be drawn into a
@@ -306,10 +312,12 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 				f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-panel", DX: org.X, DY: org.Y, Attrs: attrs})
 				f.panelTitle(c.title, asc, left[col]+plotW+right[col])
 			}
+			start := len(f.scene.Marks)
 			p, err := c.plan.draw(f, plot, e)
 			if err != nil {
 				return gridResult{}, err
 			}
+			p.start = start
 			for _, l := range c.layers {
 				if err := l.draw(f, &p, plot); err != nil {
 					return gridResult{}, err

@@ -425,3 +425,27 @@ func unixTime(s float64) time.Time {
 	sec := math.Floor(s)
 	return time.Unix(int64(sec), int64(math.Round((s-sec)*1e9))).UTC()
 }
+
+// forLayers adds to what a panel of series placed what the annotation
+// layers read: every finite value on its value axis (for a line at their
+// mean or median), the value axis's way of writing a value, and whether x
+// holds instants.
+func forLayers(p placed, ay axis, isTime bool, ys ...[]float64) placed {
+	for _, y := range ys {
+		for _, v := range y {
+			if !math.IsNaN(v) && !math.IsInf(v, 0) {
+				p.values = append(p.values, v)
+			}
+		}
+	}
+	if ay.label != nil {
+		p.valueText = func(v float64) string {
+			if l := ay.label([]float64{v}); len(l) == 1 {
+				return l[0]
+			}
+			return dataNumber(v)
+		}
+	}
+	p.xTime = isTime
+	return p
+}

@@ -47,7 +47,7 @@ func newShared(c *render.Common) shared {
 // flags are the shared flags, bound to Common's fields and the CLI's own.
 func (s *shared) flags() []flagDef {
 	c := s.c
-	return []flagDef{
+	return append([]flagDef{
 		{name: "o", arg: "FILE", usage: "write the figure to FILE (.svg, .png, or no extension for SVG; - or none: SVG on standard output)", value: stringValue{&s.out}},
 		{name: "title", sets: []string{"Title"}, arg: "TEXT", usage: "title above the chart", value: stringValue{&c.Title}},
 		{name: "subtitle", sets: []string{"Subtitle"}, arg: "TEXT", usage: "subtitle: what is measured, in what unit", value: stringValue{&c.Subtitle}},
@@ -68,7 +68,7 @@ func (s *shared) flags() []flagDef {
 		{name: "max-input", arg: "SIZE", def: "1GB", usage: "read at most SIZE of data, such as 1GB or 200MB", value: stringValue{&s.maxInput}},
 		{name: "quiet", usage: "print no notes on standard error (errors still print)", value: boolValue{&s.quiet}},
 		{name: "explain", usage: "also print routine decisions (columns chosen, types guessed, banking) on standard error; the SVG's metadata always has them", value: boolValue{&s.explain}},
-	}
+	}, annotationFlags(c)...)
 }
 
 // media are the values of --for.
