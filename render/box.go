@@ -107,7 +107,8 @@ func planBox(f *frame, groups []Group, opt BoxOptions) (*valueRows, error) {
 	if err := checkSpan("values", all...); err != nil {
 		return nil, err
 	}
-	p.integer = scale.IsInteger(flatten(all))
+	p.values = flatten(all)
+	p.integer = scale.IsInteger(p.values)
 	p.vfmt = scale.ValueFormat(flatten(all), opt.Unit)
 	for _, r := range rows {
 		p.rows = append(p.rows, valueRow{

@@ -88,7 +88,8 @@ func (p *valueColumns) draw(f *frame, plot layout.Box, e edges) (placed, error) 
 	ay := f.fitValue(p.dy.lo, p.dy.hi, plot.H, false, p.kind())
 	bottom := plot.Y + plot.H
 	ys := scale.Linear{D0: ay.d0, D1: ay.d1, R0: bottom, R1: plot.Y}
-	out := placed{ys: ys}
+	out := forLayers(placed{ys: ys}, ay, false, p.values)
+	out.valueText = p.vfmt.Format
 	if e.top {
 		if t := p.unitLine(f, plot.W+plot.X); len(t.lines) > 0 {
 			f.drawAxisTitle(t, round2(math.Max(plot.X-f.measure("0", sp.text, false), sp.pad)), plot.Y-titleLift(f)-t.height(lh))

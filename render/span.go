@@ -129,6 +129,9 @@ func planSpan(f *frame, ranges []Range, opt SpanOptions) (*valueRows, error) {
 	opt.Unit = strings.TrimSpace(opt.Unit)
 	p := &valueRows{unit: opt.Unit, axisTitle: unitTitle(opt.ValueName, opt.Unit), integer: scale.IsInteger(vals)}
 	p.vfmt = scale.ValueFormat(vals, opt.Unit)
+	for _, r := range ranges {
+		p.values = append(p.values, r.Mid)
+	}
 	markName := opt.MarkName
 	if markName == "" {
 		markName = "marked"
@@ -262,15 +265,17 @@ func describeSpan(ranges []Range, opt SpanOptions, vf scale.Format, markName str
 			continue
 		}
 		n++
-		if *r.Mark > r.High {
+		// A range computed from rows that include the marked one holds
+		// it: its top then means "the highest of all".
+		if *r.Mark >= r.High {
 			above++
 		}
-		if *r.Mark < r.Low {
+		if *r.Mark <= r.Low {
 			below++
 		}
 	}
 	if n > 0 {
-		fmt.Fprintf(&b, " The %s value lies above its range in %d and below it in %d of %d %s.", markName, above, below, n, plural(n, "category", "categories"))
+		fmt.Fprintf(&b, " The %s value is at or above the top of its range in %d and at or below the bottom in %d of %d %s.", markName, above, below, n, plural(n, "category", "categories"))
 	}
 	return b.String(), name
 }

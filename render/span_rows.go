@@ -38,6 +38,10 @@ type valueRows struct {
 	unit      string
 	integer   bool // every value is whole: whole-number ticks
 	rowCap    float64
+	// values are what a reference line at the mean or median of the
+	// panel is taken over: every value of a box plot, the middles of
+	// ranges.
+	values []float64
 
 	dx      axisDomain
 	wrapped [][]string
@@ -232,7 +236,8 @@ func (p *valueRows) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	p.ax = f.fitValue(p.dx.lo, p.dx.hi, plot.W, true, p.kind())
 	xs := scale.Linear{D0: p.ax.d0, D1: p.ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	bottom := plot.Y + plot.H
-	out := placed{xs: xs, horizontal: true}
+	out := forLayers(placed{xs: xs, horizontal: true}, p.ax, false, p.values)
+	out.valueText = p.vfmt.Format // as the data are written: a mean of tenths in tenths
 	if e.top {
 		if t := p.unitLine(f, plot.W+plot.X); len(t.lines) > 0 {
 			top := plot.Y - sp.gap - t.height(lh)

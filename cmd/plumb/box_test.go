@@ -156,3 +156,24 @@ func TestBoxSmallGroupOutlier(t *testing.T) {
 	assert.Empty(t, root.all("rect", "plumb-box"))
 	assert.Contains(t, errs, `"a" (n = 4)`)
 }
+
+// A reference line at the median of a box plot is the median of every
+// value drawn, and a span's mean line the mean of its middles.
+func TestDistributionRefLines(t *testing.T) {
+	data, groups := crossingTable(3)
+	var all []float64
+	for _, v := range groups {
+		all = append(all, v...)
+	}
+	code, out, errs := plumb(t, data, "box", "-", "--group", "route", "--value", "minutes", "--ref", "median")
+	require.Equal(t, 0, code, errs)
+	refs := checkFigure(t, []byte(out)).all("path", "plumb-ref")
+	require.Len(t, refs, 1)
+	assert.InDelta(t, type7(all, 0.5), refs[0].num(t, "data-value"), 1e-9)
+
+	code, out, errs = plumb(t, "m,v\nA,1\nA,3\nB,10\nB,20\n", "span", "-", "--label", "m", "--value", "v", "--ref", "mean")
+	require.Equal(t, 0, code, errs)
+	refs = checkFigure(t, []byte(out)).all("path", "plumb-ref")
+	require.Len(t, refs, 1)
+	assert.InDelta(t, (2+15)/2.0, refs[0].num(t, "data-value"), 1e-9, "the mean of the middles 2 and 15")
+}
