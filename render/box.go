@@ -107,13 +107,13 @@ func planBox(f *frame, groups []Group, opt BoxOptions) (*valueRows, error) {
 	if err := checkSpan("values", all...); err != nil {
 		return nil, err
 	}
-	p.values = flatten(all)
+	p.values = joinValues(all)
 	p.integer = scale.IsInteger(p.values)
-	p.vfmt = scale.ValueFormat(flatten(all), opt.Unit)
+	p.vfmt = scale.ValueFormat(p.values, opt.Unit)
 	for _, r := range rows {
 		p.rows = append(p.rows, valueRow{
 			label: r.label, key: r.box.Median, lo: r.values[0], hi: r.values[len(r.values)-1],
-			right: fmt.Sprintf("n = %s", groupThousands(len(r.values))),
+			right: fmt.Sprintf("n = %s", countText(len(r.values))),
 			draw: func(f *frame, pos scale.Linear, c, thick float64, vertical bool) ([]layout.Box, float64) {
 				return drawBox(f, r, pos, c, thick, vertical)
 			},
@@ -215,7 +215,7 @@ func drawBox(f *frame, r boxRow, pos scale.Linear, c, thick float64, vertical bo
 	// box one colour, reads at any size, and needs no second ink (common
 	// practice).
 	m := v(b.Median)
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-median", Lines: [][]Point{{pt(m, c0), pt(m, round2(c0+thick))}}, Stroke: white, StrokeWidth: math.Max(2, lw)})
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-median", Lines: [][]Point{{pt(m, c0), pt(m, round2(c0+thick))}}, Stroke: pageWhite, StrokeWidth: math.Max(2, lw)})
 	boxes = append(boxes, box(v(b.LowWhisker), v(b.HighWhisker), c0, c0+thick))
 	top := max(b.HighWhisker, b.Q3)
 	for _, x := range b.Outliers {
@@ -236,8 +236,8 @@ func moreNames(n, max int) string {
 	return fmt.Sprintf(", and %d more", n-max)
 }
 
-// white is the page: the median's gap in a box.
-var white = Colour{R: 255, G: 255, B: 255, A: 255}
+// pageWhite is the page: the median's gap in a box.
+var pageWhite = Colour{R: 255, G: 255, B: 255, A: 255}
 
 // describeBox says what the boxes show: how many groups, the medians'
 // range, the widest and narrowest spreads, and the outliers.
@@ -296,8 +296,8 @@ func unitTitle(name, unit string) string {
 	return name
 }
 
-// flatten joins slices into one.
-func flatten(vs [][]float64) []float64 {
+// joinValues joins slices into one.
+func joinValues(vs [][]float64) []float64 {
 	n := 0
 	for _, v := range vs {
 		n += len(v)
@@ -309,8 +309,8 @@ func flatten(vs [][]float64) []float64 {
 	return out
 }
 
-// groupThousands writes a count with thousands separators (1,234).
-func groupThousands(n int) string {
+// countText writes a count with thousands separators (1,234).
+func countText(n int) string {
 	s := fmt.Sprint(n)
 	for i := len(s) - 3; i > 0; i -= 3 {
 		s = s[:i] + "," + s[i:]

@@ -352,7 +352,7 @@ func (p *histPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 		}
 		if c > 0 {
 			f.scene.Add(Mark{Kind: Rect, Class: "plumb-mark plumb-bin", X: x0 + inset, Y: y, W: round2(x1 - x0 - 2*inset), H: round2(zero - y), Fill: f.th.neutral, Attrs: attrs,
-				Tooltip: fmt.Sprintf("%s to %s: %s", p.xfmt.Format(h.Edges[i]), p.xfmt.Format(h.Edges[i+1]), plural(c, "1 value", fmt.Sprintf("%s values", groupThousands(c))))})
+				Tooltip: fmt.Sprintf("%s to %s: %s", p.xfmt.Format(h.Edges[i]), p.xfmt.Format(h.Edges[i+1]), plural(c, "1 value", fmt.Sprintf("%s values", countText(c))))})
 			out.marks = append(out.marks, layout.Box{X: x0, Y: y, W: x1 - x0, H: zero - y})
 		}
 		x0 = x1
@@ -377,7 +377,7 @@ func (p *histPlan) describe() (string, string) {
 	}
 	med := stats.Quantile(p.sorted, 0.5)
 	desc := fmt.Sprintf("%s: %s %s in %d %s of %s from %s to %s. The tallest bin, %s to %s, holds %s (%.0f%%). The median is %s.",
-		name, groupThousands(h.N), plural(h.N, "value", "values"), k, plural(k, "bin", "bins"), vf.Format(h.Width), vf.Format(h.Edges[0]), vf.Format(h.Edges[k]),
-		vf.Format(h.Edges[peak]), vf.Format(h.Edges[peak+1]), groupThousands(h.Counts[peak]), 100*float64(h.Counts[peak])/float64(h.N), scale.ValueFormat([]float64{med}, p.opt.Unit).Format(med))
+		name, countText(h.N), plural(h.N, "value", "values"), k, plural(k, "bin", "bins"), vf.Format(h.Width), vf.Format(h.Edges[0]), vf.Format(h.Edges[k]),
+		vf.Format(h.Edges[peak]), vf.Format(h.Edges[peak+1]), countText(h.Counts[peak]), 100*float64(h.Counts[peak])/float64(h.N), scale.ValueFormat([]float64{med}, p.opt.Unit).Format(med))
 	return desc, name
 }
