@@ -215,7 +215,7 @@ func drawBox(f *frame, r boxRow, pos scale.Linear, c, thick float64, vertical bo
 	// box one colour, reads at any size, and needs no second ink (common
 	// practice).
 	m := v(b.Median)
-	f.scene.Add(Mark{Kind: Path, Class: "plumb-median", Lines: [][]Point{{pt(m, c0), pt(m, round2(c0+thick))}}, Stroke: pageWhite, StrokeWidth: math.Max(2, lw)})
+	f.scene.Add(Mark{Kind: Path, Class: "plumb-median", Lines: [][]Point{{pt(m, c0), pt(m, round2(c0+thick))}}, Stroke: pageWhite(), StrokeWidth: math.Max(2, lw)})
 	boxes = append(boxes, box(v(b.LowWhisker), v(b.HighWhisker), c0, c0+thick))
 	top := max(b.HighWhisker, b.Q3)
 	for _, x := range b.Outliers {
@@ -237,7 +237,7 @@ func moreNames(n, max int) string {
 }
 
 // pageWhite is the page: the median's gap in a box.
-var pageWhite = Colour{R: 255, G: 255, B: 255, A: 255}
+func pageWhite() Colour { return Colour{R: 255, G: 255, B: 255, A: 255} }
 
 // describeBox says what the boxes show: how many groups, the medians'
 // range, the widest and narrowest spreads, and the outliers.

@@ -212,7 +212,7 @@ func drawRange(f *frame, r Range, markName string, xs scale.Linear, cy, thick fl
 	if r.Mark != nil {
 		radius := math.Max(3, sp.text*0.36)
 		xk := x(*r.Mark)
-		f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark plumb-overlay", X: xk, Y: round2(cy), R: radius, Fill: f.th.accent, Stroke: pageWhite, StrokeWidth: 1,
+		f.scene.Add(Mark{Kind: Circle, Class: "plumb-mark plumb-overlay", X: xk, Y: round2(cy), R: radius, Fill: f.th.accent, Stroke: pageWhite(), StrokeWidth: 1,
 			Attrs: []Attr{{"label", r.Label}, {"value", dataNumber(*r.Mark)}, {"series", markName}}})
 		boxes = append(boxes, layout.Box{X: xk - radius, Y: cy - radius, W: 2 * radius, H: 2 * radius})
 		end = math.Max(end, xk+radius)
