@@ -25,6 +25,12 @@ func optionsOf(t *testing.T, ch chart) any {
 		return r.opt
 	case *diffRun:
 		return r.opt
+	case *spanRun:
+		return r.opt
+	case *boxRun:
+		return r.opt
+	case *histRun:
+		return r.opt
 	case *heatRun:
 		return r.opt
 	case *scatterRun:

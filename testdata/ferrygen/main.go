@@ -59,6 +59,11 @@ func generate(dir string) error {
 			return err
 		}
 	}
+	for _, ds := range distributionSets {
+		if err := writeCSV(filepath.Join(dir, ds.file), ds.make(rand.New(rand.NewPCG(seed, ds.stream)))); err != nil {
+			return err
+		}
+	}
 	// The islands' shapes and districts: their own stream, after the CSVs.
 	return islandsFiles(dir, rand.New(rand.NewPCG(seed, 1000)))
 }
