@@ -43,3 +43,12 @@ func closest(s string, cands []string) string {
 	}
 	return ""
 }
+
+// tooltip is the whole label when the lines drawn shorten it, and nothing
+// when they show it all.
+func tooltip(label string, lines []string) string {
+	if strings.Join(lines, " ") != label {
+		return label
+	}
+	return ""
+}
