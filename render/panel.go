@@ -200,6 +200,12 @@ type gridOptions struct {
 	// describe, when set, describes the grid as one chart (small
 	// multiples, a chart with its context panel) instead of panel by panel.
 	describe func() (desc, name string)
+	// independent says that panels keep their own scales unless shared:
+	// an axis no neighbour shares is labelled on every panel (a figure
+	// of different charts). Without it, a grid labels only its outer
+	// edges and the caller sees to it that the panels line up (small
+	// multiples, a scatterplot matrix).
+	independent bool
 }
 
 // gridResult is where a grid put its panels, for layers and tests.
@@ -256,7 +262,12 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 	rows := (n + cols - 1) / cols
 	edgeOf := func(i int) edges {
 		r, c := i/cols, i%cols
-		return edges{left: c == 0, right: c == cols-1 || i == n-1, top: r == 0, bottom: i+cols >= n}
+		e := edges{left: c == 0, right: c == cols-1 || i == n-1, top: r == 0, bottom: i+cols >= n}
+		if o.independent {
+			e.left = e.left || !o.shareY
+			e.bottom = e.bottom || !o.shareX
+		}
+		return e
 	}
 	// Room around the plot areas: the widest per column, the tallest per row.
 	cellW := (width - float64(cols-1)*gutter) / float64(cols)
@@ -497,7 +508,7 @@ func FigureScene(opt FigureOptions, panels ...Panel) (*Scene, error) {
 	if opt.Columns < 0 {
 		return nil, &OptionError{Option: "Columns", Value: fmt.Sprint(opt.Columns), Err: ErrNegative}
 	}
-	return figureScene(opt.Common, gridOptions{cols: opt.Columns, shareX: opt.ShareX, shareY: opt.ShareY}, panels)
+	return figureScene(opt.Common, gridOptions{cols: opt.Columns, shareX: opt.ShareX, shareY: opt.ShareY, independent: true}, panels)
 }
 
 // figureScene is every figure: the frame's words around a grid of panels.

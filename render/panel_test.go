@@ -61,7 +61,7 @@ func (p *pointsPlan) height(f *frame, plotW, room float64) (float64, error) {
 func (p *pointsPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	sp := f.spec
 	p.ax = f.fitValue(p.dx.lo, p.dx.hi, plot.W, true, p.kind())
-	p.ay = f.fitValue(p.dy.lo, p.dy.hi, plot.H, false, p.kind())
+	p.ay = f.fitY(p.dy.lo, p.dy.hi, plot.H, yKind{})
 	xs := scale.Linear{D0: p.ax.d0, D1: p.ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	ys := scale.Linear{D0: p.ay.d0, D1: p.ay.d1, R0: plot.Y + plot.H, R1: plot.Y}
 	f.draw(p.ay, axisDraw{vertical: true, pos: ys, from: plot.X, to: plot.X + plot.W, labelAt: plot.X - sp.gap, labels: e.left})
