@@ -10,14 +10,6 @@ import (
 	"github.com/stretchr/testify/require"
 )
 
-// chartsArePlans says that bars, dots, lines and diff draw through the
-// panel layer (figureScene), so that their annotations are drawn. Until
-// the branches that make them plans are merged, every entry below still
-// runs (the flags are read and the chart drawn) but its picture is not
-// pinned. The lead sets it to true after merging, then writes the goldens
-// with -update and looks at them.
-const chartsArePlans = true
-
 // annotationFigure is one annotation kind on one chart kind, pinned in
 // golden/annot-NAME.svg, with the mark the annotation must leave.
 type annotationFigure struct {
@@ -76,9 +68,6 @@ func TestAnnotationGolden(t *testing.T) {
 			var stderr bytes.Buffer
 			code := run(append(args, "-o", out), nil, &bytes.Buffer{}, &stderr)
 			require.Equal(t, exitOK, code, stderr.String())
-			if !chartsArePlans {
-				t.Skip("bars, dots, lines and diff are not panel plans on this branch yet, so they draw no annotations; set chartsArePlans after merging the bars and lines branches")
-			}
 			got, err := os.ReadFile(out)
 			require.NoError(t, err)
 			root := checkFigure(t, got)

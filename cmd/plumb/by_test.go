@@ -58,7 +58,6 @@ func pxPerUnit(t *testing.T, panel *svgNode) float64 {
 }
 
 func TestByBarsShareOneScale(t *testing.T) {
-	t.Skip("needs bars as a plan")
 	root, _ := byBars(t)
 	panels := panelsOf(root)
 	require.Len(t, panels, 4)
