@@ -81,3 +81,12 @@ func ExampleLinear() {
 	// Output:
 	// 400 210 20 50
 }
+
+// The Albers conic of Snyder's worked example (Map Projections: A Working
+// Manual, 1987, pp. 291-292), on the unit sphere.
+func ExampleAlbersEqualArea() {
+	p := scale.AlbersEqualArea{Lat0: 23, Lon0: -96, Lat1: 29.5, Lat2: 45.5}
+	x, y := p.Project(-75, 35)
+	fmt.Printf("%.7f %.7f\n", x, y)
+	// Output: 0.2952720 0.2416774
+}
