@@ -303,7 +303,7 @@ func joinShapes(file string, feats []*geojson.Feature, key string, names []strin
 		notes = append(notes, render.Note{Code: "map-no-shape", Changed: true, Text: fmt.Sprintf("%d %s no shape and %s not drawn: %s", len(noShape), pluralS(len(noShape), "row has"), pluralS2(len(noShape), "is", "are"), quoteFew(noShape, 6))})
 	}
 	if len(unmatched) > 0 {
-		notes = append(notes, render.Note{Code: "map-no-data", Text: fmt.Sprintf("%d %s no row and %s drawn as no data: %s", len(unmatched), pluralS2(len(unmatched), "shape has", "shapes have"), pluralS2(len(unmatched), "is", "are"), quoteFew(unmatched, 6))})
+		notes = append(notes, render.Note{Code: "map-no-data", Changed: true, Text: fmt.Sprintf("%d %s no row and %s drawn as no data: %s", len(unmatched), pluralS2(len(unmatched), "shape has", "shapes have"), pluralS2(len(unmatched), "is", "are"), quoteFew(unmatched, 6))})
 	}
 	return regions, notes, nil
 }
