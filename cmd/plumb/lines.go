@@ -133,6 +133,25 @@ func orderRows(t *Table, col string, x []float64, rows []int) ([]int, error) {
 	return out, nil
 }
 
+// orderRows is orderRows for lines: with --agg repeated x values are
+// summarised, not refused; without, the refusal names --agg.
+func (r *linesRun) orderRows(t *Table, col string, x []float64, rows []int) ([]int, error) {
+	if r.opt.Agg != "" {
+		if slices.IsSortedFunc(rows, func(a, b int) int { return cmp.Compare(x[a], x[b]) }) {
+			return nil, nil
+		}
+		out := slices.Clone(rows)
+		slices.SortStableFunc(out, func(a, b int) int { return cmp.Compare(x[a], x[b]) })
+		return out, nil
+	}
+	out, err := orderRows(t, col, x, rows)
+	var de *DataError
+	if errors.As(err, &de) && errors.Is(err, ErrDuplicateX) {
+		de.Hint += "; for repeated measurements, --agg mean or --agg median draws a line through the mean or median at each x, with a band for the spread (--spread)"
+	}
+	return out, err
+}
+
 // allRows is 0..n-1.
 func allRows(n int) []int {
 	r := make([]int, n)
@@ -197,6 +216,8 @@ func (r *linesRun) flags() []flagDef {
 		flagDef{name: "aspect", sets: []string{"Aspect"}, arg: "orientation|W:H", usage: "plot shape: orientation (bank by mean orientation) or W:H; default banks to 45° by median slope", value: stringValue{&o.Aspect}},
 		flagDef{name: "together", sets: []string{"Together"}, usage: "keep more than four series on one panel instead of small multiples", value: boolValue{&o.Together}},
 		flagDef{name: "y-name", sets: []string{"YName"}, arg: "TEXT", usage: "what the values measure, for the axis", value: stringValue{&o.YName}},
+		flagDef{name: "agg", sets: []string{"Agg"}, arg: "mean|median", usage: "repeated x values (repeated measurements): draw one line through the mean or median at each x, with n per x in a note", value: stringValue{&o.Agg}},
+		flagDef{name: "spread", sets: []string{"Spread"}, arg: "range|iqr|sd|none", usage: "band around an --agg line: range, iqr (type 7 quartiles), sd (mean ± 1 sd) or none (default: iqr for median, none for mean)", value: stringValue{&o.Spread}},
 	)
 	return append(defs, r.shared.flags()...)
 }
@@ -300,7 +321,7 @@ func (r *linesRun) build(t *Table, rows []int, opt *render.LinesOptions) ([]rend
 	}
 	var series []render.Series
 	if r.series == "" {
-		sorted, err := orderRows(t, xcol, x.values, rows)
+		sorted, err := r.orderRows(t, xcol, x.values, rows)
 		if err != nil {
 			return nil, nil, err
 		}
@@ -345,7 +366,7 @@ func (r *linesRun) build(t *Table, rows []int, opt *render.LinesOptions) ([]rend
 	sortedAny := false
 	for _, n := range order {
 		rows := groups[n]
-		sorted, err := orderRows(t, xcol, x.values, rows)
+		sorted, err := r.orderRows(t, xcol, x.values, rows)
 		if err != nil {
 			return nil, nil, err
 		}
