@@ -272,6 +272,11 @@ func (r *linesRun) build(t *Table, rows []int, opt *render.LinesOptions) ([]rend
 	if t.Len() == 0 {
 		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
+	if opt.Agg == "" && opt.Spread != "" && opt.Spread != render.SpreadNone {
+		// Said before the rows are read, whose repeated x would be
+		// refused for want of the --agg this asks for.
+		return nil, nil, usagef("--spread %s: a spread is drawn around a summary line: give --agg mean or median too", opt.Spread)
+	}
 	if rows == nil {
 		rows = allRows(t.Len())
 	}
