@@ -8,6 +8,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"time"
 
 	"plumb/scale"
 )
@@ -104,6 +105,7 @@ type summary struct {
 	agg, spread string
 	nlo, nhi    int
 	single      []float64 // x values with n = 1, in order, each once
+	left        int       // missing values beside values at their x, left out
 }
 
 // summarise turns every series into its summary line: one point per
@@ -146,6 +148,9 @@ func summarise(in []Series, agg, spread string) ([]Series, summary, error) {
 				b++
 			}
 			x := s.X[idx[a]]
+			if len(vals) > 0 {
+				sum.left += b - a - len(vals)
+			}
 			centre, lo, hi := summariseAt(vals, agg, spread)
 			o.X, o.Y = append(o.X, x), append(o.Y, centre)
 			o.lo, o.hi, o.n = append(o.lo, lo), append(o.hi, hi), append(o.n, len(vals))
@@ -223,10 +228,7 @@ func (c *lineChart) aggNotes(s summary) {
 		text = fmt.Sprintf("drew the %s of the values at each x, but no x value repeats (n = 1 at every x): the line is the values themselves", s.agg)
 	} else {
 		if k := len(s.single); k > 0 {
-			xs := make([]string, 0, 6)
-			for _, x := range s.single[:min(k, 6)] {
-				xs = append(xs, c.xText(x))
-			}
+			xs := xTexts(s.single[:min(k, 6)], c.xk)
 			more := ""
 			if k > 6 {
 				more = fmt.Sprintf(" and %d more", k-6)
@@ -234,6 +236,9 @@ func (c *lineChart) aggNotes(s summary) {
 			text += fmt.Sprintf("; n = 1 at %s%s", strings.Join(xs, ", "), more)
 		}
 		text += ")"
+		if s.left > 0 {
+			text += fmt.Sprintf("; left out %s missing %s at x values that hold others", g.Format(float64(s.left)), plural(s.left, "value", "values"))
+		}
 		if b := spreadText(s.spread); b != "" {
 			text += "; the band is " + b
 			if s.spread == SpreadSD && len(s.single) > 0 {
@@ -336,4 +341,33 @@ func (c *lineChart) drawBand(f *frame, s Series, color Colour, xs, ys scale.Line
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-band", Lines: pieces, Closed: true, Fill: color, Opacity: bandOpacity,
 			Attrs: []Attr{{"series", s.Name}, {"spread", c.spread}}})
 	}
+}
+
+// xTexts writes x values for one list in one form: on a time axis, the
+// finest any of them needs (a bare year beside days would read as
+// another kind of value).
+func xTexts(xs []float64, k xKind) []string {
+	out := make([]string, len(xs))
+	if !k.time {
+		for i, x := range xs {
+			out[i] = xValueText(x, k)
+		}
+		return out
+	}
+	layout := "2006"
+	for _, x := range xs {
+		t := unixTime(x)
+		switch {
+		case t.Hour() != 0 || t.Minute() != 0 || t.Second() != 0:
+			layout = "2006-01-02 15:04"
+		case t.Day() != 1 && layout != "2006-01-02 15:04":
+			layout = "2 Jan 2006"
+		case t.Month() != time.January && layout == "2006":
+			layout = "Jan 2006"
+		}
+	}
+	for i, x := range xs {
+		out[i] = unixTime(x).Format(layout)
+	}
+	return out
 }

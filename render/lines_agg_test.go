@@ -2,9 +2,12 @@ package render
 
 import (
 	"errors"
+	"fmt"
 	"math"
+	"math/rand/v2"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
@@ -94,6 +97,7 @@ func TestSummariseByHand(t *testing.T) {
 			assert.Equal(t, 1, sum.nlo)
 			assert.Equal(t, 4, sum.nhi)
 			assert.Equal(t, []float64{3}, sum.single)
+			assert.Equal(t, 2, sum.left, "week 1's missing score, in each group")
 		})
 	}
 }
@@ -204,6 +208,7 @@ func TestAggNotes(t *testing.T) {
 	assert.Contains(t, n.Text, "median")
 	assert.Contains(t, n.Text, "n = 1 to 4 per x; n = 1 at 3)")
 	assert.Contains(t, n.Text, "interquartile range")
+	assert.Contains(t, n.Text, "left out 2 missing values at x values that hold others")
 	_, ok = noteOf(s, "band-overlap")
 	assert.False(t, ok, "bands 30 apart do not overlap")
 	assert.Contains(t, s.Desc, "Each line is the median of the values at each x")
@@ -275,4 +280,35 @@ func TestAggIndex(t *testing.T) {
 	assert.InDeltaSlice(t, []float64{100, 125, 100 * 14 / 13.0, 100 * 20 / 13.0}, s.Y, 1e-9)
 	assert.InDeltaSlice(t, []float64{100 * 10 / 13.0, 100 * 11 / 13.0, 100 * 14 / 13.0, 100 * 18 / 13.0}, s.lo, 1e-9)
 	assert.InDeltaSlice(t, []float64{100 * 17 / 13.0, 100 * 20 / 13.0, 100 * 14 / 13.0, 100 * 22 / 13.0}, s.hi, 1e-9)
+}
+
+func TestXTextsOneForm(t *testing.T) {
+	day := func(y, m, d int) float64 { return float64(time.Date(y, time.Month(m), d, 0, 0, 0, 0, time.UTC).Unix()) }
+	k := xKind{time: true}
+	assert.Equal(t, []string{"1 Jan 2024", "5 Jan 2024"}, xTexts([]float64{day(2024, 1, 1), day(2024, 1, 5)}, k))
+	assert.Equal(t, []string{"Jan 2024", "Mar 2024"}, xTexts([]float64{day(2024, 1, 1), day(2024, 3, 1)}, k))
+	assert.Equal(t, []string{"2023", "2024"}, xTexts([]float64{day(2023, 1, 1), day(2024, 1, 1)}, k))
+	assert.Equal(t, []string{"2023", "2024"}, xTexts([]float64{2023, 2024}, xKind{integer: true, years: true}))
+}
+
+// BenchmarkAggScene: 200,000 repeated measurements of three series over
+// 1,000 x values, summarised to medians with their quartiles and drawn.
+func BenchmarkAggScene(b *testing.B) {
+	r := rand.New(rand.NewPCG(1, 2))
+	series := make([]Series, 3)
+	for i := range series {
+		n := 200_000 / 3
+		x, y := make([]float64, n), make([]float64, n)
+		for j := range x {
+			x[j] = float64(r.IntN(1000))
+			y[j] = x[j]*0.01 + r.NormFloat64()
+		}
+		series[i] = Series{Name: fmt.Sprintf("s%d", i+1), X: x, Y: y}
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := LinesScene(series, LinesOptions{Agg: AggMedian}); err != nil {
+			b.Fatal(err)
+		}
+	}
 }
