@@ -142,7 +142,7 @@ func newLineChart(in []Series, opt LinesOptions, inFigure bool) (*lineChart, err
 	series, notes, err := cleanSeries(in)
 	if errors.Is(err, errRepeatedX) {
 		return nil, &RefusalError{Reason: err.Error(),
-			Instead: fmt.Sprintf("for repeated measurements draw a summary line through the mean or median at each x, with a band for the spread (%s mean or median, %s), or combine the rows first", c.opt.name("Agg"), c.opt.name("Spread"))}
+			Instead: fmt.Sprintf("for repeated measurements draw a summary line through the mean or median at each x, with a band for the spread (%s mean or median, %s)", c.opt.name("Agg"), c.opt.name("Spread"))}
 	}
 	if err != nil {
 		return nil, err

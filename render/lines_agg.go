@@ -32,7 +32,7 @@ const bandOpacity = 0.22
 
 // errRepeatedX marks a series with two points at one x, so that the line
 // chart can name its summary options as the alternative.
-var errRepeatedX = errors.New("a line needs one value per x")
+var errRepeatedX = errors.New("a line needs one value per x; combine them first")
 
 // aggSpread checks Agg and Spread and returns the spread to draw: by
 // default the interquartile range around a median (the spread that goes
@@ -331,13 +331,48 @@ func bandOutline(s Series, xs, ys scale.Linear) [][]Point {
 	return out
 }
 
+// bandColumns is a band of more than four x values per pixel column as
+// the lowest low and highest high in each column, as the line over it is
+// reduced (M4): the outline then has at most four vertices per column
+// however many x values there are.
+func bandColumns(s Series, xs, ys scale.Linear) [][]Point {
+	w := int(xs.R1 - xs.R0)
+	r := columnRange{lo: make([]float64, w), hi: make([]float64, w)}
+	for c := range r.lo {
+		r.lo[c], r.hi[c] = math.NaN(), math.NaN()
+	}
+	for i, x := range s.X {
+		if math.IsNaN(s.lo[i]) {
+			continue
+		}
+		c := scale.PixelColumn(x, xs.D0, xs.D1, w)
+		if math.IsNaN(r.lo[c]) || s.lo[i] < r.lo[c] {
+			r.lo[c] = s.lo[i]
+		}
+		if math.IsNaN(r.hi[c]) || s.hi[i] > r.hi[c] {
+			r.hi[c] = s.hi[i]
+		}
+	}
+	pieces := bandPieces(r, ys)
+	for _, p := range pieces {
+		for k := range p {
+			p[k].X = round2(p[k].X + xs.R0)
+		}
+	}
+	return pieces
+}
+
 // drawBand draws a series' spread band behind its line, in the line's
 // colour made translucent.
 func (c *lineChart) drawBand(f *frame, s Series, color Colour, xs, ys scale.Linear) {
 	if s.lo == nil {
 		return
 	}
-	if pieces := bandOutline(s, xs, ys); len(pieces) > 0 {
+	outline := bandOutline
+	if len(s.X) > 4*int(xs.R1-xs.R0) {
+		outline = bandColumns
+	}
+	if pieces := outline(s, xs, ys); len(pieces) > 0 {
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-band", Lines: pieces, Closed: true, Fill: color, Opacity: bandOpacity,
 			Attrs: []Attr{{"series", s.Name}, {"spread", c.spread}}})
 	}

@@ -37,5 +37,5 @@ func ExampleLinesOptions_repeatedX() {
 	_, err := render.LinesScene([]render.Series{{Name: "score", X: []float64{1, 1, 2}, Y: []float64{10, 12, 11}}}, render.LinesOptions{})
 	fmt.Println(err)
 	// Output:
-	// series "score" has two points at x = 1: a line needs one value per x; for repeated measurements draw a summary line through the mean or median at each x, with a band for the spread (Agg mean or median, Spread), or combine the rows first
+	// series "score" has two points at x = 1: a line needs one value per x; combine them first; for repeated measurements draw a summary line through the mean or median at each x, with a band for the spread (Agg mean or median, Spread)
 }

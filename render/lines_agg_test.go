@@ -312,3 +312,34 @@ func BenchmarkAggScene(b *testing.B) {
 		}
 	}
 }
+
+// A band over more x values than four per pixel column keeps each
+// column's lowest low and highest high, at most four vertices a column.
+func TestAggBandReduced(t *testing.T) {
+	n := 5000
+	x, y := make([]float64, 2*n), make([]float64, 2*n)
+	for i := range n {
+		v := math.Sin(float64(i) / 300)
+		x[2*i], y[2*i] = float64(i), v-0.1-0.05*float64(i%7)
+		x[2*i+1], y[2*i+1] = float64(i), v+0.1+0.05*float64(i%5)
+	}
+	s, err := LinesScene([]Series{{Name: "a", X: x, Y: y}}, LinesOptions{Agg: AggMean, Spread: SpreadRange})
+	require.NoError(t, err)
+	line := marksOf(s, "plumb-mark")[0].Lines[0]
+	band := marksOf(s, "plumb-band")
+	require.Len(t, band, 1)
+	pts := band[0].Lines[0]
+	w := line[len(line)-1].X - line[0].X
+	assert.LessOrEqual(t, float64(len(pts)), 4*(w+1), "vertices per column")
+	// The line's first and last vertices are the first and last means.
+	mean := func(i int) float64 { return (y[2*i] + y[2*i+1]) / 2 }
+	b := (line[len(line)-1].Y - line[0].Y) / (mean(n-1) - mean(0))
+	a := line[0].Y - b*mean(0)
+	top, bottom := math.Inf(1), math.Inf(-1)
+	for _, p := range pts {
+		top, bottom = math.Min(top, p.Y), math.Max(bottom, p.Y)
+	}
+	lo, hi, _ := dataRange(y)
+	assert.InDelta(t, a+b*hi, top, 0.05, "the highest high")
+	assert.InDelta(t, a+b*lo, bottom, 0.05, "the lowest low")
+}
