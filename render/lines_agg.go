@@ -76,8 +76,9 @@ func quantile7(sorted []float64, p float64) float64 {
 }
 
 // meanSD is the mean and the sample standard deviation (n-1 in the
-// denominator; NaN for one value), from the deviations about the mean so
-// that large values of small spread keep their digits.
+// denominator; NaN for one value), from the deviations about the mean,
+// scaled by the largest of them so that no square overflows, so that
+// large values of small spread keep their digits.
 func meanSD(v []float64) (mean, sd float64) {
 	for _, x := range v {
 		mean += x
@@ -92,11 +93,19 @@ func meanSD(v []float64) (mean, sd float64) {
 	if len(v) < 2 {
 		return mean, math.NaN()
 	}
+	big := 0.0
+	for _, x := range v {
+		big = math.Max(big, math.Abs(x/2-mean/2))
+	}
+	if big == 0 {
+		return mean, 0
+	}
 	ss := 0.0
 	for _, x := range v {
-		ss += (x - mean) * (x - mean)
+		d := (x/2 - mean/2) / big
+		ss += d * d
 	}
-	return mean, math.Sqrt(ss / float64(len(v)-1))
+	return mean, 2 * big * math.Sqrt(ss/float64(len(v)-1))
 }
 
 // summary is what summarising did, for the notes: the fewest and most
@@ -152,6 +161,9 @@ func summarise(in []Series, agg, spread string) ([]Series, summary, error) {
 				sum.left += b - a - len(vals)
 			}
 			centre, lo, hi := summariseAt(vals, agg, spread)
+			if math.IsInf(lo, 0) || math.IsInf(hi, 0) {
+				return nil, sum, fmt.Errorf("series %q: the band of the %s at x = %g reaches beyond the largest number (%.1e): divide the values by a power of ten first, or draw another spread", s.Name, spread, x, math.MaxFloat64)
+			}
 			o.X, o.Y = append(o.X, x), append(o.Y, centre)
 			o.lo, o.hi, o.n = append(o.lo, lo), append(o.hi, hi), append(o.n, len(vals))
 			if n := len(vals); n > 0 {

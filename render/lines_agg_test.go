@@ -43,6 +43,14 @@ func TestMeanSD(t *testing.T) {
 	m, sd = meanSD([]float64{1e9 + 1, 1e9 + 3})
 	assert.InDelta(t, 1e9+2, m, 1e-6)
 	assert.InDelta(t, math.Sqrt2, sd, 1e-6)
+	// Values near the largest number: no square overflows.
+	m, sd = meanSD([]float64{-math.MaxFloat64 / 2, math.MaxFloat64 / 2})
+	assert.Equal(t, 0.0, m)
+	assert.InDelta(t, 1, sd/(math.Sqrt2/2*math.MaxFloat64), 1e-12)
+	_, sd = meanSD([]float64{3, 3, 3})
+	assert.Equal(t, 0.0, sd)
+	_, err := LinesScene([]Series{{X: []float64{1, 1, 2, 2}, Y: []float64{-math.MaxFloat64, math.MaxFloat64, 1, 2}}}, LinesOptions{Agg: AggMean, Spread: SpreadSD})
+	assert.ErrorContains(t, err, "beyond the largest number")
 	_, sd = meanSD([]float64{5})
 	assert.True(t, math.IsNaN(sd), "one value has no sample standard deviation")
 }
@@ -342,4 +350,66 @@ func TestAggBandReduced(t *testing.T) {
 	lo, hi, _ := dataRange(y)
 	assert.InDelta(t, a+b*hi, top, 0.05, "the highest high")
 	assert.InDelta(t, a+b*lo, bottom, 0.05, "the lowest low")
+}
+
+// FuzzAgg: any repeated measurements either draw, with every band vertex
+// finite and every summary between its band, or are refused; never a panic.
+func FuzzAgg(f *testing.F) {
+	f.Add([]byte{1, 10, 1, 12, 2, 11, 2, 30, 3, 7}, uint8(0))
+	f.Add([]byte{0, 0, 0, 255, 0, 128}, uint8(5))
+	f.Fuzz(func(t *testing.T, data []byte, mode uint8) {
+		var x, y []float64
+		for i := 0; i+1 < len(data); i += 2 {
+			x = append(x, float64(data[i]%16))
+			v := float64(data[i+1])
+			switch data[i+1] {
+			case 255:
+				v = math.NaN()
+			case 254:
+				v = 1e300
+			}
+			y = append(y, v)
+		}
+		aggs := []string{AggMean, AggMedian}
+		spreads := []string{"", SpreadRange, SpreadIQR, SpreadSD, SpreadNone}
+		opt := LinesOptions{Agg: aggs[int(mode)%2], Spread: spreads[int(mode/2)%5]}
+		series, _, err := summarise([]Series{{Name: "a", X: x, Y: y}}, opt.Agg, spreadOr(opt))
+		if err != nil {
+			return
+		}
+		for _, s := range series {
+			for i := range s.X {
+				// A mean may lie outside the quartiles; every centre lies
+				// within the range, a median within the quartiles too, and
+				// a mean within its ± sd band.
+				sp := spreadOr(opt)
+				inside := sp == SpreadRange || (sp == SpreadSD && opt.Agg == AggMean) || (sp == SpreadIQR && opt.Agg == AggMedian)
+				if s.lo == nil || math.IsNaN(s.lo[i]) || math.IsNaN(s.Y[i]) || !inside {
+					continue
+				}
+				if s.Y[i] < s.lo[i] || s.Y[i] > s.hi[i] {
+					t.Fatalf("summary %v outside its band %v..%v at x = %v", s.Y[i], s.lo[i], s.hi[i], s.X[i])
+				}
+			}
+		}
+		sc, err := LinesScene([]Series{{Name: "a", X: x, Y: y}}, opt)
+		if err != nil {
+			return
+		}
+		for _, m := range marksOf(sc, "plumb-band") {
+			for _, p := range m.Lines {
+				for _, pt := range p {
+					if math.IsNaN(pt.X) || math.IsInf(pt.X, 0) || math.IsNaN(pt.Y) || math.IsInf(pt.Y, 0) {
+						t.Fatalf("band vertex %v", pt)
+					}
+				}
+			}
+		}
+	})
+}
+
+// spreadOr is the spread LinesScene draws for opt.
+func spreadOr(opt LinesOptions) string {
+	s, _ := opt.aggSpread()
+	return s
 }
