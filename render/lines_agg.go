@@ -260,7 +260,11 @@ func (c *lineChart) aggNotes(s summary) {
 	}
 	c.note("agg", true, text)
 	if a, b, ok := overlappingBands(c.series); ok && !c.multiples {
-		c.note("band-overlap", false, fmt.Sprintf("the bands of %q and %q overlap over most of their common x values: drew every band translucent so that each shows through; one panel per series would read them apart", a, b))
+		by := ""
+		if name, ok := c.opt.Names["By"]; ok && name != "" {
+			by = " (" + name + ")"
+		}
+		c.note("band-overlap", false, fmt.Sprintf("the bands of %q and %q overlap over most of their common x values: drew every band translucent so that each shows through; one panel per series would read them apart%s", a, b, by))
 	}
 }
 

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"maps"
 	"math"
 	"slices"
 	"strconv"
@@ -226,6 +227,15 @@ func (r *linesRun) load(path string, stdin io.Reader, _ func(string) bool) ([]re
 	series, notes, err := r.read(path, stdin)
 	if err != nil {
 		return nil, nil, err
+	}
+	if r.series != "" {
+		// The note on overlapping bands names the flag that draws one
+		// panel per series, which is not an option of the chart.
+		r.opt.Names = maps.Clone(r.opt.Names)
+		if r.opt.Names == nil {
+			r.opt.Names = render.OptionNames{}
+		}
+		r.opt.Names["By"] = "--by " + r.series
 	}
 	return notes, func(w io.Writer) ([]render.Note, error) { return render.Lines(w, series, r.opt) }, nil
 }

@@ -116,3 +116,18 @@ func TestLinesAggMedianDefaults(t *testing.T) {
 	fmt.Sscan(refs[0].Attr["data-value"], &got)
 	assert.InDelta(t, mean, got, 1e-6)
 }
+
+// Bands that overlap over most of x are noted, naming --by on the series
+// column.
+func TestLinesAggOverlapNamesBy(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("visit,group,score\n")
+	for v := 1; v <= 4; v++ {
+		for k := range 5 {
+			fmt.Fprintf(&b, "%d,a,%d\n%d,b,%d\n", v, 10+k, v, 11+k)
+		}
+	}
+	_, stderr := linesSVG(t, b.String(), "--x", "visit", "--y", "score", "--series", "group", "--agg", "mean", "--spread", "range")
+	assert.Contains(t, stderr, `the bands of "a" and "b" overlap`)
+	assert.Contains(t, stderr, "(--by group)")
+}
