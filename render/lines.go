@@ -40,7 +40,9 @@ type LinesOptions struct {
 	Agg string
 	// Spread draws a band around each summary line: SpreadRange,
 	// SpreadIQR, SpreadSD or SpreadNone. "" is SpreadIQR around a median
-	// and SpreadNone around a mean.
+	// and SpreadNone around a mean. Bands that overlap over most of x are
+	// drawn translucent, with a note; an entry "By" in Names says there
+	// how to draw one panel per series.
 	Spread string
 }
 
