@@ -134,16 +134,12 @@ func orderRows(t *Table, col string, x []float64, rows []int) ([]int, error) {
 	return out, nil
 }
 
-// orderRows is orderRows for lines: with --agg repeated x values are
-// summarised, not refused; without, the refusal names --agg.
+// orderRows is orderRows for lines: with --agg the rows stay as they are,
+// for the summary groups them by x itself; without, the refusal of a
+// repeated x names --agg.
 func (r *linesRun) orderRows(t *Table, col string, x []float64, rows []int) ([]int, error) {
 	if r.opt.Agg != "" {
-		if slices.IsSortedFunc(rows, func(a, b int) int { return cmp.Compare(x[a], x[b]) }) {
-			return nil, nil
-		}
-		out := slices.Clone(rows)
-		slices.SortStableFunc(out, func(a, b int) int { return cmp.Compare(x[a], x[b]) })
-		return out, nil
+		return nil, nil
 	}
 	out, err := orderRows(t, col, x, rows)
 	var de *DataError
