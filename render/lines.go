@@ -1,6 +1,7 @@
 package render
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -33,6 +34,16 @@ type LinesOptions struct {
 	Unit    string // unit of the values, for the axis and description
 	XName   string // what x is, for the axis title and description
 	YName   string // what the values measure
+	// Agg draws, for series whose x values repeat (repeated measurements),
+	// one summary line each through the AggMean or AggMedian of the values
+	// at each x; "" refuses repeated x values.
+	Agg string
+	// Spread draws a band around each summary line: SpreadRange,
+	// SpreadIQR, SpreadSD or SpreadNone. "" is SpreadIQR around a median
+	// and SpreadNone around a mean. Bands that overlap over most of x are
+	// drawn translucent, with a note; an entry "By" in Names says there
+	// how to draw one panel per series.
+	Spread string
 }
 
 // MaxTogether is how many series one panel shows before a line chart
@@ -103,6 +114,7 @@ type lineChart struct {
 	cleanNotes, notes []Note
 	started           bool
 	joint             *jointPanels // the shared height and band of small multiples
+	spread            string       // the band around summary lines (Agg), or SpreadNone
 }
 
 // newLineChart checks and prepares the series. inFigure keeps every series
@@ -120,7 +132,20 @@ func newLineChart(in []Series, opt LinesOptions, inFigure bool) (*lineChart, err
 	if c.opt.Time, err = timeAxis(c.opt.Time, in...); err != nil {
 		return nil, err
 	}
+	if c.spread, err = c.opt.aggSpread(); err != nil {
+		return nil, err
+	}
+	var sum summary
+	if c.opt.Agg != "" {
+		if in, sum, err = summarise(in, c.opt.Agg, c.spread); err != nil {
+			return nil, err
+		}
+	}
 	series, notes, err := cleanSeries(in)
+	if errors.Is(err, errRepeatedX) {
+		return nil, &RefusalError{Reason: err.Error(),
+			Instead: fmt.Sprintf("for repeated measurements draw a summary line through the mean or median at each x, with a band for the spread (%s mean or median, %s)", c.opt.name("Agg"), c.opt.name("Spread"))}
+	}
 	if err != nil {
 		return nil, err
 	}
@@ -135,11 +160,11 @@ func newLineChart(in []Series, opt LinesOptions, inFigure bool) (*lineChart, err
 	c.series = series
 	c.axisTitle()
 	var ok bool
-	if c.ylo, c.yhi, ok = dataRange(c.ys()...); !ok {
+	if c.ylo, c.yhi, ok = dataRange(append(c.ys(), c.bands()...)...); !ok {
 		return nil, fmt.Errorf("no values to draw: every value is missing")
 	}
 	c.xlo, c.xhi, _ = dataRange(c.xs()...)
-	if err := firstError(checkSpan("y values", c.ys()...), checkSpan("x values", c.xs()...)); err != nil {
+	if err := firstError(checkSpan("y values", append(c.ys(), c.bands()...)...), checkSpan("x values", c.xs()...)); err != nil {
 		return nil, err
 	}
 	c.missing = countMissing(series)
@@ -156,6 +181,9 @@ func newLineChart(in []Series, opt LinesOptions, inFigure bool) (*lineChart, err
 		c.note("together", false, fmt.Sprintf("kept %d series on one panel of the figure; small multiples, a figure of their own, would read more easily", len(series)))
 	case len(series) > MaxTogether:
 		c.note("together", false, fmt.Sprintf("kept %d series on one panel as asked (%s); small multiples would read more easily", len(series), c.opt.name("Together")))
+	}
+	if c.opt.Agg != "" {
+		c.aggNotes(sum)
 	}
 	if !c.multiples && !c.opt.Index && c.opt.IndexAt == nil {
 		if n := magnitudeNote(series, c.opt.name("Index")); n != "" {
@@ -230,7 +258,7 @@ func (c *lineChart) kinds() {
 		c.yk.include = &base
 		return
 	}
-	c.yk.integer = wholeNumbers(c.ys()...)
+	c.yk.integer = wholeNumbers(append(c.ys(), c.bands()...)...)
 }
 
 func (c *lineChart) ys() [][]float64 {
@@ -297,7 +325,13 @@ func (c *lineChart) rebase(series []Series) ([]Series, error) {
 					Instead: "index at a larger value of the series (IndexAt), or compare the values themselves"}
 			}
 		}
-		out[i] = Series{Name: s.Name, X: s.X, Y: y}
+		out[i] = Series{Name: s.Name, X: s.X, Y: y, n: s.n}
+		if s.lo != nil {
+			out[i].lo, out[i].hi = make([]float64, len(s.lo)), make([]float64, len(s.hi))
+			for j := range s.lo {
+				out[i].lo[j], out[i].hi[j] = 100*(s.lo[j]/base), 100*(s.hi[j]/base)
+			}
+		}
 	}
 	at := "its first value"
 	if c.opt.IndexAt != nil {
@@ -476,6 +510,13 @@ func (c *lineChart) describe(multiples bool) string {
 	}
 	fmt.Fprintf(&b, "%s of %s %s, %d %s, from %s to %s.", kind, what, over, len(c.series),
 		plural(len(c.series), "series", "series"), c.xText(c.xlo), c.xText(c.xhi))
+	if c.opt.Agg != "" {
+		fmt.Fprintf(&b, " Each line is the %s of the values at each x", c.opt.Agg)
+		if t := spreadText(c.spread); t != "" {
+			b.WriteString(", with a band for " + t)
+		}
+		b.WriteString(".")
+	}
 	vf := scale.ValueFormat(shownValues(c.series), c.unitText())
 	for _, s := range c.series {
 		b.WriteString(" " + describeSeries(s, vf, c.xk))

@@ -86,9 +86,10 @@ func (p *linePlan) drawMultiple(f *frame, plot layout.Box, e edges) (placed, err
 	}
 	c.drawBase(f, ys, plot.X, plot.X+plot.W)
 	s := c.series[p.idx]
+	xs := scale.Linear{D0: ax.d0, D1: ax.d1, R0: plot.X, R1: plot.X + plot.W}
+	c.drawBand(f, s, f.th.neutral, xs, ys)
 	g := lineGeom{left: plot.X, w: int(plot.W), ax: ax, reduce: shouldReduce(c.series[p.idx:p.idx+1], int(plot.W))}
 	f.addSeries("plumb-mark", s.Name, j.polys[p.idx], g.screen(j.polys[p.idx], ys), f.th.neutral, strokeWidth(f.spec), c.opt.Time)
-	xs := scale.Linear{D0: ax.d0, D1: ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	text, marks := f.boxesSince(from)
 	return forLayers(placed{xs: xs, ys: ys, text: text, marks: marks}, j.ay, c.opt.Time, s.Y), nil
 }

@@ -48,7 +48,7 @@ func (p *linePlan) domains() (x, y axisDomain) {
 	}
 	s := p.c.series[p.idx]
 	xlo, xhi, _ := dataRange(s.X)
-	ylo, yhi, _ := dataRange(s.Y)
+	ylo, yhi, _ := dataRange(s.Y, s.lo, s.hi)
 	return xyDomains(xlo, xhi, ylo, yhi, p.c.xk, p.c.yk)
 }
 
@@ -168,6 +168,11 @@ func (p *linePlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	c.drawBase(f, ys, plot.X, plot.X+plot.W)
 
 	colors := c.seriesColors(f)
+	xs := scale.Linear{D0: p.axes.ax.d0, D1: p.axes.ax.d1, R0: plot.X, R1: plot.X + plot.W}
+	// Every band before any line, so that no band covers another's line.
+	for i, s := range c.series {
+		c.drawBand(f, s, colors[i], xs, ys)
+	}
 	g := lineGeom{left: plot.X, w: int(plot.W), ax: p.axes.ax}
 	width := strokeWidth(sp)
 	drawn := make([]drawnLine, len(c.series))
@@ -196,7 +201,6 @@ func (p *linePlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 		slices.SortStableFunc(rows, func(a, b label) int { return cmp.Compare(a.at, b.at) })
 		f.key(keyRows(rows), plot.X, axisBottom)
 	}
-	xs := scale.Linear{D0: p.axes.ax.d0, D1: p.axes.ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	text, marks := f.boxesSince(from)
 	return forLayers(placed{xs: xs, ys: ys, text: text, marks: marks}, ay, c.opt.Time, c.ys()...), nil
 }

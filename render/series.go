@@ -18,6 +18,10 @@ type Series struct {
 	Name  string
 	X, Y  []float64
 	times bool // X holds instants as Unix seconds: made by TimeSeries
+	// Set by summarising repeated measurements (LinesOptions.Agg): the
+	// band of the spread at each x (nil for none) and the count of values.
+	lo, hi []float64
+	n      []int
 }
 
 // xKindOf says what x values are: instants, or whole numbers (no tick
@@ -92,7 +96,7 @@ func cleanSeries(in []Series) ([]Series, []Note, error) {
 		}
 		for j := 1; j < len(s.X); j++ {
 			if s.X[j] == s.X[j-1] {
-				return nil, nil, fmt.Errorf("series %q has two points at x = %g: a line needs one value per x; combine them first", s.Name, s.X[j])
+				return nil, nil, fmt.Errorf("series %q has two points at x = %g: %w", s.Name, s.X[j], errRepeatedX)
 			}
 		}
 		if !slices.ContainsFunc(s.Y, func(v float64) bool { return !math.IsNaN(v) }) {

@@ -26,6 +26,8 @@ func demoData(name string) ([]byte, error) {
 		return sailings(150, 3), nil
 	case "sailings-year.csv":
 		return sailings(20000, 2), nil
+	case "crossings-monthly.csv":
+		return crossings(1), nil
 	}
 	return demoFS.ReadFile("demodata/" + name)
 }

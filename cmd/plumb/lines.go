@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"maps"
 	"math"
 	"slices"
 	"strconv"
@@ -133,6 +134,21 @@ func orderRows(t *Table, col string, x []float64, rows []int) ([]int, error) {
 	return out, nil
 }
 
+// orderRows is orderRows for lines: with --agg the rows stay as they are,
+// for the summary groups them by x itself; without, the refusal of a
+// repeated x names --agg.
+func (r *linesRun) orderRows(t *Table, col string, x []float64, rows []int) ([]int, error) {
+	if r.opt.Agg != "" {
+		return nil, nil
+	}
+	out, err := orderRows(t, col, x, rows)
+	var de *DataError
+	if errors.As(err, &de) && errors.Is(err, ErrDuplicateX) {
+		de.Hint += "; for repeated measurements, --agg mean or --agg median draws a line through the mean or median at each x, with a band for the spread (--spread)"
+	}
+	return out, err
+}
+
 // allRows is 0..n-1.
 func allRows(n int) []int {
 	r := make([]int, n)
@@ -197,6 +213,8 @@ func (r *linesRun) flags() []flagDef {
 		flagDef{name: "aspect", sets: []string{"Aspect"}, arg: "orientation|W:H", usage: "plot shape: orientation (bank by mean orientation) or W:H; default banks to 45° by median slope", value: stringValue{&o.Aspect}},
 		flagDef{name: "together", sets: []string{"Together"}, usage: "keep more than four series on one panel instead of small multiples", value: boolValue{&o.Together}},
 		flagDef{name: "y-name", sets: []string{"YName"}, arg: "TEXT", usage: "what the values measure, for the axis", value: stringValue{&o.YName}},
+		flagDef{name: "agg", sets: []string{"Agg"}, arg: "mean|median", usage: "repeated x values (repeated measurements): draw one line through the mean or median at each x, with n per x in a note", value: stringValue{&o.Agg}},
+		flagDef{name: "spread", sets: []string{"Spread"}, arg: "range|iqr|sd|none", usage: "band around an --agg line: range, iqr (type 7 quartiles), sd (mean ± 1 sd) or none (default: iqr for median, none for mean)", value: stringValue{&o.Spread}},
 	)
 	return append(defs, r.shared.flags()...)
 }
@@ -205,6 +223,15 @@ func (r *linesRun) load(path string, stdin io.Reader, _ func(string) bool) ([]re
 	series, notes, err := r.read(path, stdin)
 	if err != nil {
 		return nil, nil, err
+	}
+	if r.series != "" {
+		// The note on overlapping bands names the flag that draws one
+		// panel per series, which is not an option of the chart.
+		r.opt.Names = maps.Clone(r.opt.Names)
+		if r.opt.Names == nil {
+			r.opt.Names = render.OptionNames{}
+		}
+		r.opt.Names["By"] = "--by " + r.series
 	}
 	return notes, func(w io.Writer) ([]render.Note, error) { return render.Lines(w, series, r.opt) }, nil
 }
@@ -250,6 +277,11 @@ func (r *linesRun) build(t *Table, rows []int, opt *render.LinesOptions) ([]rend
 	}
 	if t.Len() == 0 {
 		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+	}
+	if opt.Agg == "" && opt.Spread != "" && opt.Spread != render.SpreadNone {
+		// Said before the rows are read, whose repeated x would be
+		// refused for want of the --agg this asks for.
+		return nil, nil, usagef("--spread %s: a spread is drawn around a summary line: give --agg mean or median too", opt.Spread)
 	}
 	if rows == nil {
 		rows = allRows(t.Len())
@@ -300,7 +332,7 @@ func (r *linesRun) build(t *Table, rows []int, opt *render.LinesOptions) ([]rend
 	}
 	var series []render.Series
 	if r.series == "" {
-		sorted, err := orderRows(t, xcol, x.values, rows)
+		sorted, err := r.orderRows(t, xcol, x.values, rows)
 		if err != nil {
 			return nil, nil, err
 		}
@@ -345,7 +377,7 @@ func (r *linesRun) build(t *Table, rows []int, opt *render.LinesOptions) ([]rend
 	sortedAny := false
 	for _, n := range order {
 		rows := groups[n]
-		sorted, err := orderRows(t, xcol, x.values, rows)
+		sorted, err := r.orderRows(t, xcol, x.values, rows)
 		if err != nil {
 			return nil, nil, err
 		}
