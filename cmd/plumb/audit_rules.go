@@ -407,11 +407,17 @@ func checkOverrides(p *auditPanel) []finding {
 		}
 	}
 	if p.chart == "lines" && p.given("aspect") && p.keys["aspect"] != "orientation" {
-		out = append(out, finding{
+		f := finding{
 			Severity:   sevWarning,
 			Message:    fmt.Sprintf("\"aspect\": %q fixes the plot's shape instead of banking its lines to 45°, so slopes look steeper or flatter than they are", p.keys["aspect"]),
 			Suggestion: "remove \"aspect\" and let plumb bank the lines (see aspect-not-banked for the shape it would choose)",
-		})
+		}
+		// The angle it draws at, against the 45° banking aims at.
+		if med, _, _, _, ok := orientation(p); ok {
+			f.Measured, f.Threshold = num(med), num(45)
+			f.Message += fmt.Sprintf("; its segments are drawn at a median %.1f°", med)
+		}
+		out = append(out, f)
 	}
 	return out
 }
@@ -422,6 +428,56 @@ func checkOverrides(p *auditPanel) []finding {
 // segments are left out, as scale.BankMedianSlope leaves them out, so
 // that the measured angle and the banked shape agree.
 func checkAspect(p *auditPanel) []finding {
+	med, grow, w, h, ok := orientation(p)
+	if !ok {
+		return nil
+	}
+	dev := math.Abs(med - 45)
+	if dev <= auditAspectTolerance {
+		return nil
+	}
+	shape := ""
+	if grow > 0 && w > 0 && h > 0 {
+		shape = fmt.Sprintf("; the plot is drawn about %s, banked to 45° it would be about %s", ratio(w/h), ratio(w/(h*grow)))
+	}
+	// plumb banks a line panel within its limits (a plot's minimum
+	// height, the canvas, a grid's shared row height): a shape it chose is
+	// worth knowing, a shape forced on it is a warning.
+	sev := sevInfo
+	forced := "plumb could not bank it within the canvas, the medium's limits and the figure's grid"
+	suggest := "give the line chart a figure of its own, or place it beside panels of a similar shape (\"columns\"), so that it can be banked"
+	if p.given("aspect") || p.sized {
+		sev = sevWarning
+		forced = "the shape was fixed by \"aspect\" or the figure's \"size\""
+		suggest = "remove \"aspect\" (and \"size\", or give the height 0) so that plumb banks the lines to 45°"
+	}
+	way, bound := "flat", 45-auditAspectTolerance
+	if med > 45 {
+		way, bound = "steep", 45+auditAspectTolerance
+	}
+	return []finding{{
+		Severity:   sev,
+		Measured:   num(med),
+		Threshold:  num(bound),
+		Message:    fmt.Sprintf("the lines' segments are drawn at a median %.1f° instead of about 45°, so their changes look too %s; %s%s", med, way, forced, shape),
+		Suggestion: suggest,
+	}}
+}
+
+// ratio writes a width/height ratio as W:1 or 1:H.
+func ratio(r float64) string {
+	if r >= 1 {
+		return fmt.Sprintf("%.1f:1", r)
+	}
+	return fmt.Sprintf("1:%.1f", 1/r)
+}
+
+// orientation measures a panel's lines (stroked open plumb-mark paths
+// with a series) as drawn: the median absolute orientation of their
+// segments in degrees, the factor BankMedianSlope would multiply the
+// plot's height by, and the drawn extent of the plot (grid, baseline and
+// lines). ok is false for a panel without two sloped segments.
+func orientation(p *auditPanel) (med, grow, w, h float64, ok bool) {
 	var lines []scale.Polyline
 	var angles []float64
 	x0, x1, y0, y1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
@@ -460,53 +516,15 @@ func checkAspect(p *auditPanel) []finding {
 		}
 	}
 	if len(angles) < 2 {
-		return nil
+		return 0, 0, 0, 0, false
 	}
 	sort.Float64s(angles)
-	med := angles[len(angles)/2]
+	med = angles[len(angles)/2]
 	if len(angles)%2 == 0 {
 		med = (angles[len(angles)/2-1] + med) / 2
 	}
-	dev := math.Abs(med - 45)
-	if dev <= auditAspectTolerance {
-		return nil
-	}
 	// In pixels both extents are 1: BankMedianSlope's alpha is then the
 	// factor the plot's height must be multiplied by to bank to 45°.
-	grow, ok := scale.BankMedianSlope(lines, 1, 1)
-	w, h := x1-x0, y1-y0
-	shape := ""
-	if ok && w > 0 && h > 0 {
-		shape = fmt.Sprintf("; the plot is drawn about %s, banked to 45° it would be about %s", ratio(w/h), ratio(w/(h*grow)))
-	}
-	// plumb banks a line panel within its limits (a plot's minimum
-	// height, the canvas, a grid's shared row height): a shape it chose is
-	// worth knowing, a shape forced on it is a warning.
-	sev := sevInfo
-	forced := "plumb could not bank it within the canvas, the medium's limits and the figure's grid"
-	suggest := "give the line chart a figure of its own, or place it beside panels of a similar shape (\"columns\"), so that it can be banked"
-	if p.given("aspect") || p.sized {
-		sev = sevWarning
-		forced = "the shape was fixed by \"aspect\" or the figure's \"size\""
-		suggest = "remove \"aspect\" (and \"size\", or give the height 0) so that plumb banks the lines to 45°"
-	}
-	way, bound := "flat", 45-auditAspectTolerance
-	if med > 45 {
-		way, bound = "steep", 45+auditAspectTolerance
-	}
-	return []finding{{
-		Severity:   sev,
-		Measured:   num(med),
-		Threshold:  num(bound),
-		Message:    fmt.Sprintf("the lines' segments are drawn at a median %.1f° instead of about 45°, so their changes look too %s; %s%s", med, way, forced, shape),
-		Suggestion: suggest,
-	}}
-}
-
-// ratio writes a width/height ratio as W:1 or 1:H.
-func ratio(r float64) string {
-	if r >= 1 {
-		return fmt.Sprintf("%.1f:1", r)
-	}
-	return fmt.Sprintf("1:%.1f", 1/r)
+	grow, _ = scale.BankMedianSlope(lines, 1, 1)
+	return med, grow, x1 - x0, y1 - y0, true
 }

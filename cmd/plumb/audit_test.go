@@ -120,7 +120,7 @@ func TestAuditMeasuredFromFiles(t *testing.T) {
 	}
 	// override-bad.json: "other": "sum" on means is an error.
 	fs, _ = auditJSON(t, auditFixture("override-bad.json"))
-	if f := byRule(fs, "honest-default-overridden"); len(f) != 2 || f[0].Severity != sevError || f[0].Measured != nil {
+	if f := byRule(fs, "honest-default-overridden"); len(f) != 2 || f[0].Severity != sevError || f[0].Measured != nil || f[1].Severity != sevWarning {
 		t.Errorf("honest-default-overridden: %+v, want an error without a measure first", f)
 	}
 }
@@ -398,4 +398,44 @@ func fmtFindings(fs []finding) []string {
 		out = append(out, string(b))
 	}
 	return out
+}
+
+// TestAuditGalleryPairs: every "before" figure file of the gallery's
+// audit pairs breaks its rule, and every "after" has nothing at warning
+// level, so that the README's pairs show what they say.
+func TestAuditGalleryPairs(t *testing.T) {
+	pairs := []struct{ name, rule string }{
+		{"aspect", "aspect-not-banked"},
+		{"series", "too-many-series"},
+		{"categories", "too-many-categories"},
+		{"magnitudes", "magnitudes-apart"},
+		{"narrow", "narrow-domain"},
+		{"override", "honest-default-overridden"},
+	}
+	for _, p := range pairs {
+		t.Run(p.name, func(t *testing.T) {
+			for _, side := range []string{"before", "after"} {
+				name := "audit-" + p.name + "-" + side + ".json"
+				if _, ok := demoFigures[name]; !ok {
+					if side == "before" {
+						t.Fatalf("no gallery figure %s", name)
+					}
+					continue // the after is a chart of the gallery
+				}
+				dir, err := writeDemoFigure(name)
+				if err != nil {
+					t.Fatal(err)
+				}
+				defer os.RemoveAll(dir)
+				fs, code := auditJSON(t, filepath.Join(dir, name))
+				broke := len(byRule(fs, p.rule)) > 0
+				if side == "before" && (!broke || code != exitData) {
+					t.Errorf("%s: exit %d, no %s finding: %+v", name, code, p.rule, fs)
+				}
+				if side == "after" && (broke || code != exitOK) {
+					t.Errorf("%s: exit %d: %+v", name, code, fs)
+				}
+			}
+		})
+	}
 }
