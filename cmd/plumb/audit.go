@@ -217,7 +217,8 @@ func auditPanels(file string, spec *figureSpec, s *render.Scene) ([]*auditPanel,
 		}
 		panels[i] = p
 	}
-	splitPanels(s, panels)
+	frame := &auditPanel{medium: spec.opt.Medium, keys: map[string]string{}}
+	splitPanels(s, panels, frame)
 	for _, p := range panels {
 		for _, m := range p.marks {
 			if m.Class != "plumb-mark" {
@@ -234,14 +235,18 @@ func auditPanels(file string, spec *figureSpec, s *render.Scene) ([]*auditPanel,
 			}
 		}
 	}
+	if len(frame.marks) > 0 {
+		panels = append(panels, frame)
+	}
 	return panels, nil
 }
 
 // splitPanels gives each panel its marks: the marks inside the figure's
-// k-th top-level plumb-panel group are panel k's. A figure of one untitled
-// panel draws no group: every mark is that panel's, the frame's words
-// included.
-func splitPanels(s *render.Scene, panels []*auditPanel) {
+// k-th top-level plumb-panel group are panel k's, the rest (the title,
+// subtitle, source and note around the grid) the frame's, whose text
+// the text rules read as the figure's. A figure of one untitled panel
+// draws no group: every mark is that panel's, the frame's words included.
+func splitPanels(s *render.Scene, panels []*auditPanel, frame *auditPanel) {
 	grouped := slices.ContainsFunc(s.Marks, func(m render.Mark) bool { return m.Kind == render.GroupStart && m.Class == "plumb-panel" })
 	cur := -1
 	if !grouped {
@@ -275,8 +280,7 @@ func splitPanels(s *render.Scene, panels []*auditPanel) {
 			continue
 		}
 		if cur < 0 {
-			// The frame's words around a grid of panels: the text rules
-			// still read them, as the figure's.
+			frame.marks = append(frame.marks, m)
 			continue
 		}
 		p := panels[cur]

@@ -180,7 +180,7 @@ func TestAuditAspectByHand(t *testing.T) {
 // untitled panel, as a Go caller's scene would be.
 func scenePanelForTest(s *render.Scene, m render.Medium) *auditPanel {
 	p := &auditPanel{path: "panels[0]", medium: m, keys: map[string]string{}}
-	splitPanels(s, []*auditPanel{p})
+	splitPanels(s, []*auditPanel{p}, &auditPanel{})
 	return p
 }
 
@@ -279,6 +279,21 @@ func TestAuditColourRules(t *testing.T) {
 		// 10 px is above print's 7 pt = 9.33 px floor.
 		if f := checkTextSize(scenePanelForTest(s, render.Print)); len(f) != 0 {
 			t.Errorf("10 px in print: %+v", f)
+		}
+		// Around a grid, the frame's words are the figure's, not a panel's.
+		g := &render.Scene{Marks: []render.Mark{
+			{Kind: render.Text, Class: "plumb-title", Text: "Title", Size: 9},
+			{Kind: render.GroupStart, Class: "plumb-panel"},
+			{Kind: render.Text, Text: "label", Size: 12},
+			{Kind: render.GroupEnd},
+		}}
+		panel, frame := &auditPanel{path: "panels[0]", keys: map[string]string{}}, &auditPanel{keys: map[string]string{}}
+		splitPanels(g, []*auditPanel{panel}, frame)
+		if f := checkTextSize(panel); len(f) != 0 {
+			t.Errorf("the panel's 12 px text: %+v", f)
+		}
+		if f := checkTextSize(frame); len(f) != 1 || *f[0].Measured != 9 {
+			t.Errorf("the frame's 9 px title: %+v", f)
 		}
 	})
 }
@@ -437,5 +452,31 @@ func TestAuditGalleryPairs(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestAuditOwnColoursPass: plumb's own colours and type scale pass the
+// colour and text rules in every figure file of the gallery.
+func TestAuditOwnColoursPass(t *testing.T) {
+	var names []string
+	for name := range demoFigures {
+		names = append(names, name)
+	}
+	slices.Sort(names)
+	for _, name := range names {
+		dir, err := writeDemoFigure(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fs, code := auditJSON(t, filepath.Join(dir, name))
+		os.RemoveAll(dir)
+		if code == exitUsage {
+			t.Fatalf("%s: not audited", name)
+		}
+		for _, rule := range []string{"colour-collision", "mark-contrast", "text-contrast", "text-too-small"} {
+			if f := byRule(fs, rule); len(f) != 0 {
+				t.Errorf("%s: %+v", name, f)
+			}
+		}
 	}
 }
