@@ -26,8 +26,8 @@ type auditRule struct {
 // auditRules are every rule, in the order findings are reported.
 var auditRules = []auditRule{
 	{"aspect-not-banked", checkAspect},
-	{"colour-collision", func(p *auditPanel) []finding { return checkCollision(dataColours(p.marks)) }},
-	{"mark-contrast", func(p *auditPanel) []finding { return checkMarkContrast(dataColours(p.marks)) }},
+	{"colour-collision", func(p *auditPanel) []finding { return checkCollision(panelColours(p)) }},
+	{"mark-contrast", func(p *auditPanel) []finding { return checkMarkContrast(panelColours(p)) }},
 	{"text-contrast", func(p *auditPanel) []finding { return checkTextContrast(p.marks) }},
 	{"text-too-small", checkTextSize},
 	{"too-many-series", checkSeriesCount},
@@ -103,6 +103,26 @@ func dataColours(marks []render.Mark) []palette.SRGB {
 		add(m.Fill, m.Opacity)
 	}
 	return out
+}
+
+// panelColours are the colours of a panel that tell series or
+// categories apart. A heat map's cells and a map's regions encode values
+// on a ramp whose lightest step is light by design (the ramps are
+// checked where they are made, in palette), so they have none; a
+// scatter plot's translucent points build up where they overlap, so its
+// colours are judged at full strength.
+func panelColours(p *auditPanel) []palette.SRGB {
+	switch p.chart {
+	case "heat", "map":
+		return nil
+	case "scatter":
+		marks := slices.Clone(p.marks)
+		for i := range marks {
+			marks[i].Opacity = 0
+		}
+		return dataColours(marks)
+	}
+	return dataColours(p.marks)
 }
 
 // checkCollision reports the pair of data colours that is closest under

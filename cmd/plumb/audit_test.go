@@ -248,13 +248,25 @@ func TestAuditColourRules(t *testing.T) {
 		if f := checkMarkContrast(dataColours(scenePanelForTest(lineScene(nil, render.RGB(palette.Neutral()).Hex()), render.Screen).marks)); len(f) != 0 {
 			t.Errorf("plumb's neutral bars: %+v", f)
 		}
-		// A dark colour drawn at 20% opacity is seen as faint.
+		// A dark colour drawn at 20% opacity is seen as faint, except as
+		// a scatter plot's points, which build up where they overlap.
 		s := lineScene(nil, "#333333")
 		for i := range s.Marks {
 			s.Marks[i].Opacity = 0.2
 		}
-		if f := checkMarkContrast(dataColours(scenePanelForTest(s, render.Screen).marks)); len(f) != 1 {
+		p := scenePanelForTest(s, render.Screen)
+		if f := checkMarkContrast(panelColours(p)); len(f) != 1 {
 			t.Errorf("faint bars passed: %+v", f)
+		}
+		p.chart = "scatter"
+		if f := checkMarkContrast(panelColours(p)); len(f) != 0 {
+			t.Errorf("translucent points judged faint: %+v", f)
+		}
+		// A heat map's lightest cells are light by design.
+		p = scenePanelForTest(lineScene(nil, "#f4f8fb"), render.Screen)
+		p.chart = "heat"
+		if f := checkMarkContrast(panelColours(p)); len(f) != 0 {
+			t.Errorf("heat cells judged as categories: %+v", f)
 		}
 	})
 	t.Run("text-contrast", func(t *testing.T) {
