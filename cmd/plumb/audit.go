@@ -7,6 +7,7 @@ import (
 	"math"
 	"path/filepath"
 	"slices"
+	"strconv"
 	"strings"
 
 	"plumb/render"
@@ -64,7 +65,7 @@ type auditPanel struct {
 	chart  string            // the panel's chart command
 	keys   map[string]string // keys given in the figure file, as flag text (lists joined by commas)
 	medium render.Medium
-	sized  bool            // the figure file fixed the canvas ("size")
+	sized  bool            // the figure file fixed the canvas's height ("size": "WxH", H > 0)
 	marks  []render.Mark   // every mark of the panel, groups left out
 	plots  [][]render.Mark // the marks of each innermost group, in drawing order
 	series []render.Series // lines and diff: the series as read from the data
@@ -203,7 +204,6 @@ func auditPanels(file string, spec *figureSpec, s *render.Scene) ([]*auditPanel,
 		return nil, &figureError{fmt.Sprintf("%s: %v", file, err)}
 	}
 	var top struct {
-		Size   json.RawMessage   `json:"size"`
 		Panels []json.RawMessage `json:"panels"`
 	}
 	if err := json.Unmarshal(raw, &top); err != nil || len(top.Panels) != len(spec.panels) {
@@ -211,7 +211,7 @@ func auditPanels(file string, spec *figureSpec, s *render.Scene) ([]*auditPanel,
 	}
 	panels := make([]*auditPanel, len(spec.panels))
 	for i, pr := range top.Panels {
-		p := &auditPanel{path: fmt.Sprintf("panels[%d]", i), medium: spec.opt.Medium, sized: top.Size != nil, keys: map[string]string{}}
+		p := &auditPanel{path: fmt.Sprintf("panels[%d]", i), medium: spec.opt.Medium, sized: spec.opt.Height > 0, keys: map[string]string{}}
 		if err := auditData(p, pr, filepath.Dir(file)); err != nil {
 			return nil, &figureError{fmt.Sprintf("%s: %s: %v", file, p.path, err)}
 		}
@@ -226,8 +226,7 @@ func auditPanels(file string, spec *figureSpec, s *render.Scene) ([]*auditPanel,
 			}
 			if l, ok := attr(m, "label"); ok {
 				if v, ok := attr(m, "value"); ok {
-					var x float64
-					if _, err := fmt.Sscan(v, &x); err == nil {
+					if x, err := strconv.ParseFloat(v, 64); err == nil {
 						p.labels = append(p.labels, l)
 						p.values = append(p.values, x)
 					}

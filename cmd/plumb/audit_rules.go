@@ -5,6 +5,7 @@ import (
 	"math"
 	"slices"
 	"sort"
+	"strconv"
 	"strings"
 
 	"plumb/palette"
@@ -362,8 +363,7 @@ func checkNarrow(p *auditPanel) []finding {
 		vals = slices.Clone(p.values)
 		for _, k := range []string{"from", "to"} {
 			if v, ok := p.keys[k]; ok {
-				var x float64
-				if _, err := fmt.Sscan(v, &x); err == nil {
+				if x, err := strconv.ParseFloat(v, 64); err == nil {
 					vals = append(vals, x)
 				}
 			}
