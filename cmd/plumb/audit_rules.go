@@ -279,6 +279,11 @@ func checkSeriesCount(p *auditPanel) []finding {
 // checkCategories reports a bar or dot panel with more categories than a
 // reader goes through.
 func checkCategories(p *auditPanel) []finding {
+	// A histogram's bins and the like are not categories to read one by
+	// one: only bar and dot panels are counted.
+	if p.chart != "bars" && p.chart != "dots" {
+		return nil
+	}
 	n := len(p.labels)
 	if n <= auditMaxCategories {
 		return nil
