@@ -42,6 +42,7 @@ func commandTable() []command {
 		{name: "hist", summary: "the distribution of one column, in bins on nice edges", synopsis: dataSynopsis, chart: func() chart { return newHist() }},
 		{name: "heat", summary: "a matrix of values as colours, rows and columns ordered (clustered)", synopsis: dataSynopsis, chart: func() chart { return newHeat() }},
 		{name: "figure", summary: "several charts in one grid, from figure files (.json)", synopsis: figureSynopsis, run: runFigure},
+		{name: "audit", summary: "review figure files for misleading or unreadable choices", synopsis: auditSynopsis, run: runAudit},
 		{name: "scatter", summary: "how two variables relate: points, binned when many", synopsis: dataSynopsis, chart: func() chart { return newScatter() }},
 		{name: "matrix", summary: "how several variables relate, pair by pair", synopsis: dataSynopsis, chart: func() chart { return newMatrix() }},
 		{name: "map", summary: "values by place, on an equal-area projection", synopsis: dataSynopsis, chart: func() chart { return newMap() }},

@@ -92,6 +92,17 @@ var gallery = []figure{
 	{"span-temperatures", "temperatures.csv", []string{"span", "--label", "month", "--value", "temp_c", "--mark-where", "year=2025", "--order", "data",
 		"--unit", "°C", "--value-name", "monthly mean temperature",
 		"--title", "A warm 2025 on Great Osk", "--subtitle", "Monthly mean air temperature: the range and mean of 2000–2025, and 2025 itself"}},
+	{"audit-aspect-before", "", []string{"figure", "audit-aspect-before.json"}},
+	{"audit-aspect-after", "", []string{"figure", "audit-aspect-after.json"}},
+	{"audit-series-before", "", []string{"figure", "audit-series-before.json"}},
+	{"audit-categories-before", "", []string{"figure", "audit-categories-before.json"}},
+	{"audit-categories-after", "", []string{"figure", "audit-categories-after.json"}},
+	{"audit-magnitudes-before", "", []string{"figure", "audit-magnitudes-before.json"}},
+	{"audit-magnitudes-after", "", []string{"figure", "audit-magnitudes-after.json"}},
+	{"audit-narrow-before", "", []string{"figure", "audit-narrow-before.json"}},
+	{"audit-narrow-after", "", []string{"figure", "audit-narrow-after.json"}},
+	{"audit-override-before", "", []string{"figure", "audit-override-before.json"}},
+	{"audit-override-after", "", []string{"figure", "audit-override-after.json"}},
 	{"palette-categorical", "", []string{"palette", "categorical", "--n", "8"}},
 	{"palette-sequential", "", []string{"palette", "sequential", "--n", "7", "--hue", "blue"}},
 	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
@@ -116,6 +127,41 @@ var demoFigures = map[string]string{
     {"chart": "bars", "data": "loads.csv", "label": "weekday", "value": "load_pct", "agg": "mean", "order": "data", "vertical": true, "unit": "%", "title": "Mean load by weekday"}
   ]
 }
+`,
+	// The audit pairs (README "Audit"): each before breaks one rule of
+	// plumb audit, its after is the honest twin.
+	"audit-aspect-before.json": `{"title": "Fuel burnt by vessel A", "panels": [
+  {"chart": "lines", "data": "fuel.csv", "x": "month", "y": "vessel_a", "unit": "t", "aspect": "1:1"}]}
+`,
+	"audit-aspect-after.json": `{"title": "Fuel burnt by vessel A", "panels": [
+  {"chart": "lines", "data": "fuel.csv", "x": "month", "y": "vessel_a", "unit": "t"}]}
+`,
+	"audit-series-before.json": `{"title": "Vessel load by hour, seven weekdays", "panels": [
+  {"chart": "lines", "data": "loads.csv", "x": "hour", "y": "load_pct", "series": "weekday", "unit": "%"}]}
+`,
+	"audit-categories-before.json": `{"title": "Boardings at thirty stops", "panels": [
+  {"chart": "bars", "data": "stops.csv", "label": "stop", "value": "boardings", "top": -1}]}
+`,
+	"audit-categories-after.json": `{"title": "Boardings at the twelve busiest stops", "panels": [
+  {"chart": "bars", "data": "stops.csv", "label": "stop", "value": "boardings", "top": 12}]}
+`,
+	"audit-magnitudes-before.json": `{"title": "Freight landed, mainland and islands", "panels": [
+  {"chart": "lines", "data": "freight.csv", "x": "month", "y": ["mainland_t", "island_t"]}]}
+`,
+	"audit-magnitudes-after.json": `{"title": "Freight landed, mainland and islands", "panels": [
+  {"chart": "lines", "data": "freight.csv", "x": "month", "y": ["mainland_t", "island_t"], "index": true}]}
+`,
+	"audit-narrow-before.json": `{"title": "Punctuality of the three most punctual routes", "panels": [
+  {"chart": "dots", "data": "routes.csv", "label": "route", "value": "punctuality_pct", "unit": "%", "top": 3}]}
+`,
+	"audit-narrow-after.json": `{"title": "Punctuality of the three most punctual routes", "panels": [
+  {"chart": "dots", "data": "routes.csv", "label": "route", "value": "punctuality_pct", "unit": "%", "top": 3, "from": 0, "to": 100}]}
+`,
+	"audit-override-before.json": `{"title": "Passengers per route, 2025", "panels": [
+  {"chart": "bars", "data": "routes.csv", "label": "route", "value": "passengers", "top": 8, "to": 2000000}]}
+`,
+	"audit-override-after.json": `{"title": "Passengers per route, 2025", "panels": [
+  {"chart": "bars", "data": "routes.csv", "label": "route", "value": "passengers", "top": 8}]}
 `,
 }
 
@@ -229,6 +275,12 @@ func writeDemoFigure(name string) (string, error) {
 			err = os.WriteFile(filepath.Join(dir, f.Name()), data, 0o644)
 		}
 		if err != nil {
+			os.RemoveAll(dir)
+			return "", err
+		}
+	}
+	for f, data := range auditDemoData {
+		if err := os.WriteFile(filepath.Join(dir, f), []byte(data), 0o644); err != nil {
 			os.RemoveAll(dir)
 			return "", err
 		}
