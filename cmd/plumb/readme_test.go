@@ -87,3 +87,22 @@ func TestReadmeErrorMessages(t *testing.T) {
 		})
 	}
 }
+
+// TestReadmeGalleryShowsEveryGolden keeps the README's gallery current:
+// every pinned figure in golden/ is shown there.
+func TestReadmeGalleryShowsEveryGolden(t *testing.T) {
+	readme, err := os.ReadFile("../../README.md")
+	require.NoError(t, err)
+	var files []string
+	for _, pattern := range []string{"*.svg", "png/*.png"} {
+		m, err := filepath.Glob(filepath.Join(goldenDir, pattern))
+		require.NoError(t, err)
+		files = append(files, m...)
+	}
+	require.NotEmpty(t, files)
+	for _, f := range files {
+		rel, err := filepath.Rel("../..", f)
+		require.NoError(t, err)
+		assert.Contains(t, string(readme), "("+filepath.ToSlash(rel)+")", "README gallery shows %s", rel)
+	}
+}
