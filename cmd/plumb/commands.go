@@ -40,12 +40,12 @@ func commandTable() []command {
 		{name: "span", summary: "ranges per category, low to high with the middle marked", synopsis: dataSynopsis, chart: func() chart { return newSpan() }},
 		{name: "box", summary: "distributions per group as Tukey box plots", synopsis: dataSynopsis, chart: func() chart { return newBox() }},
 		{name: "hist", summary: "the distribution of one column, in bins on nice edges", synopsis: dataSynopsis, chart: func() chart { return newHist() }},
-		{name: "heat", summary: "a matrix of values as colours, rows and columns ordered (clustered)", synopsis: dataSynopsis, chart: func() chart { return newHeat() }},
-		{name: "figure", summary: "several charts in one grid, from figure files (.json)", synopsis: figureSynopsis, run: runFigure},
-		{name: "audit", summary: "review figure files for misleading or unreadable choices", synopsis: auditSynopsis, run: runAudit},
 		{name: "scatter", summary: "how two variables relate: points, binned when many", synopsis: dataSynopsis, chart: func() chart { return newScatter() }},
 		{name: "matrix", summary: "how several variables relate, pair by pair", synopsis: dataSynopsis, chart: func() chart { return newMatrix() }},
+		{name: "heat", summary: "a matrix of values as colours, rows and columns ordered (clustered)", synopsis: dataSynopsis, chart: func() chart { return newHeat() }},
 		{name: "map", summary: "values by place, on an equal-area projection", synopsis: dataSynopsis, chart: func() chart { return newMap() }},
+		{name: "figure", summary: "several charts in one grid, from figure files (.json)", synopsis: figureSynopsis, run: runFigure},
+		{name: "audit", summary: "review figure files for misleading or unreadable choices", synopsis: auditSynopsis, run: runAudit},
 		{name: "palette", summary: "show, make or check colour palettes", synopsis: "categorical|sequential|diverging|check [flags]", run: runPalette},
 		{name: "demo", summary: "render the built-in gallery (-o DIR)", synopsis: demoSynopsis, run: func(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 			return runDemo(args, stdout, stderr)
@@ -233,7 +233,14 @@ func printHelp(w io.Writer, name, synopsis string, defs []flagDef) {
 // chartList is the charts part of plumb's usage text, from the table.
 func chartList() string {
 	var b strings.Builder
+	other := false
 	for _, c := range commandTable() {
+		if c.chart == nil && !other {
+			// The table lists the charts first, then the commands that
+			// compose, review or show them.
+			b.WriteString("\nother commands:\n")
+			other = true
+		}
 		fmt.Fprintf(&b, "  %-9s %s\n", c.name, c.summary)
 	}
 	return strings.TrimSuffix(b.String(), "\n")
