@@ -263,13 +263,13 @@ func (c *rowChart) seriesColours() []Colour {
 		out[0] = c.f.th.neutral
 		return out
 	}
-	p, err := palette.Categorical(len(out))
+	p, _, ok := c.f.categorical(len(out), "series")
 	for i := range out {
-		if err != nil || i >= len(p) {
+		if !ok || i >= len(p) {
 			out[i] = c.f.th.neutral
 			continue
 		}
-		out[i] = RGB(p[i])
+		out[i] = p[i]
 	}
 	return out
 }

@@ -1,6 +1,12 @@
 package render
 
-import "plumb/palette"
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"plumb/palette"
+)
 
 // theme holds the colours a chart uses. Charts take every colour from here,
 // and every colour comes from package palette, where it is derived by a
@@ -16,6 +22,107 @@ type theme struct {
 	baseline Colour // the zero line, stronger than the grid
 	text     Colour // titles, labels, values: at least 4.5:1 on white
 	muted    Colour // ticks, unit line, notes, source: still at least 4.5:1 on white
+
+	// series are the caller's colours (Common.Colors) for series and
+	// groups, in order; nil takes the generated categorical palette.
+	series []Colour
+}
+
+// withColors is the theme with the caller's colours (Common.Colors): the
+// first is the neutral of single-series charts and the first series, the
+// second the accent of highlighted marks and the second series, and all
+// of them in order colour series and groups. Only the data colours change:
+// text, grid and baseline keep their derived colours, whose contrasts are
+// what makes the figure readable.
+func (t theme) withColors(cs []Colour) theme {
+	if len(cs) == 0 {
+		return t
+	}
+	t.series = cs
+	t.neutral = cs[0]
+	if len(cs) > 1 {
+		t.accent = cs[1]
+	}
+	return t
+}
+
+// categorical colours n series or groups: the caller's colours when they
+// are enough, else the generated categorical palette (ok false when n is
+// beyond it too). user says whether the caller's colours were used, so
+// that a chart can note it when they were too few.
+func (t theme) categorical(n int) (cs []Colour, user, ok bool) {
+	if len(t.series) > 0 && n <= len(t.series) {
+		return t.series[:n:n], true, true
+	}
+	p, err := palette.Categorical(n)
+	if err != nil {
+		return nil, false, false
+	}
+	cs = make([]Colour, len(p))
+	for i, c := range p {
+		cs[i] = RGB(c)
+	}
+	return cs, false, true
+}
+
+// pageColour is the background every figure is drawn on: SVGs are
+// transparent and placed on white pages and screens (see "Theme").
+var pageColour = palette.SRGB{R: 1, G: 1, B: 1}
+
+// checkColors validates the caller's colours and reviews them as `plumb
+// palette check` does (palette.Check): every pair must stay
+// palette.MinPairDistance apart (CIEDE2000) under normal, protan, deutan
+// and tritan vision, every colour must reach palette.MinMarkContrast on
+// the page. A problem is a warning, not a refusal: organisations have
+// brand colours, and the chart is drawn with them, but every collision is
+// a note ("colors-cvd", "colors-contrast") with the colours and the
+// measured number, printed by default. A colour that is not opaque is an
+// option error.
+func checkColors(cs []Colour) ([]Note, error) {
+	if len(cs) == 0 {
+		return nil, nil
+	}
+	srgb := make([]palette.SRGB, len(cs))
+	for i, c := range cs {
+		if c.A != 255 {
+			return nil, &OptionError{Option: "Colors", Value: fmt.Sprintf("%d", i+1), Err: fmt.Errorf("colour %d is not an opaque colour; give #rrggbb", i+1)}
+		}
+		srgb[i] = c.SRGB()
+	}
+	r := palette.Check(srgb, pageColour)
+	var notes []Note
+	for _, p := range r.Pairs {
+		var bad []string
+		for _, v := range palette.Visions {
+			if d := p.Distance[v]; d < palette.MinPairDistance {
+				bad = append(bad, fmt.Sprintf("%s for %s vision", trunc(d, 1), v))
+			}
+		}
+		if len(bad) > 0 {
+			notes = append(notes, Note{Code: "colors-cvd", Changed: true, Text: fmt.Sprintf(
+				"the colours %s and %s are hard to tell apart: CIEDE2000 distance %s (at least %s needed); marks in them may be confused",
+				p.A.Hex(), p.B.Hex(), strings.Join(bad, ", "), trunc(palette.MinPairDistance, 0))})
+		}
+	}
+	for _, c := range r.Contrast {
+		if c.Ratio < palette.MinMarkContrast {
+			notes = append(notes, Note{Code: "colors-contrast", Changed: true, Text: fmt.Sprintf(
+				"the colour %s has contrast %s:1 on the white page, below the %s:1 marks need (WCAG 2.x non-text contrast); marks in it are hard to see",
+				c.Color.Hex(), trunc(c.Ratio, 2), trunc(palette.MinMarkContrast, 0))})
+		}
+	}
+	return notes, nil
+}
+
+// trunc writes x with the given decimals, cut rather than rounded, as
+// palette.Check does, so that a failing value never prints as if it met
+// the threshold (2.999 is 2.99, not 3.00).
+func trunc(x float64, decimals int) string {
+	p := 1.0
+	for range decimals {
+		p *= 10
+	}
+	return fmt.Sprintf("%.*f", decimals, float64(int64(x*p))/p)
 }
 
 func defaultTheme() theme {
@@ -87,4 +194,36 @@ func lightenToContrast(c, bg palette.SRGB, min float64) (palette.SRGB, bool) {
 		}
 	}
 	return at(hi), true
+}
+
+// categorical is theme.categorical for a chart: when the caller's colours
+// are fewer than the series or groups (what), plumb's palette colours them
+// all, and a note says so ("colors-short").
+func (f *frame) categorical(n int, what string) ([]Colour, bool, bool) {
+	cs, user, ok := f.th.categorical(n)
+	if len(f.th.series) > 0 && !user {
+		f.scene.Note("colors-short", true, fmt.Sprintf("%d colours given for %d %s: drew every %s in plumb's own palette; give at least %d colours", len(f.th.series), n, what, strings.TrimSuffix(what, "s"), n))
+	}
+	return cs, user, ok
+}
+
+// diffColors are diffColors, or the caller's first two colours for a and
+// b (areas and lines alike) when Common.Colors gives two or more.
+func (f *frame) diffColors() (areaA, areaB, lineA, lineB Colour) {
+	if s := f.th.series; len(s) >= 2 {
+		return s[0], s[1], s[0], s[1]
+	}
+	return diffColors()
+}
+
+// rampColors notes that a chart coloured by a ramp (heat maps, maps) keeps
+// its ramp when the caller gave colours: a ramp must change monotonically
+// in lightness to be read as more and less, which a list of brand colours
+// does not.
+func (f *frame) rampColors(chart string) {
+	if len(f.th.series) > 0 {
+		// The colours are not drawn, so their review does not apply.
+		f.scene.Notes = slices.DeleteFunc(f.scene.Notes, func(n Note) bool { return n.Code == "colors-cvd" || n.Code == "colors-contrast" })
+		f.scene.Note("colors-ignored", true, fmt.Sprintf("%s colour values by a ramp that changes steadily in lightness; the colours given are not used", chart))
+	}
 }
