@@ -30,7 +30,7 @@ type shared struct {
 	scale                                float64        // --scale: PNG pixels per SVG unit; 0 means 1
 	out, font, format, decimal, maxInput string
 	quiet, explain                       bool
-	alt                                  bool // --alt: print the figure's description on standard output
+	alt                                  bool   // --alt: print the figure's description on standard output
 	data                                 string // the data path, set by runChart; names the figure in notes
 
 	by        string // --by: one panel per value of this column
