@@ -571,10 +571,31 @@ func (c *rowChart) describeText() string {
 	if last := c.rows[len(c.rows)-1]; last.other > 0 {
 		fmt.Fprintf(&b, " %d smaller categories are combined in %s at %s.", last.other, last.label, c.vfmt.Format(last.value))
 	}
+	if t, ok := c.total(); ok {
+		fmt.Fprintf(&b, " Total: %s.", scale.Format{Group: true, Unit: c.opt.Unit, Decimals: c.vfmt.Decimals}.Format(t))
+	}
 	if len(c.opt.Highlight) > 0 {
 		fmt.Fprintf(&b, " Highlighted: %s.", strings.Join(c.opt.Highlight, ", "))
 	}
 	return b.String()
+}
+
+// total is the sum of every category, Other included, when the values are
+// parts of a whole and none was left out or averaged into Other: only
+// then is it the whole the bars divide. Shares always total 100%, which
+// says nothing.
+func (c *rowChart) total() (float64, bool) {
+	if !c.additive() || c.opt.Percent || c.dots || (c.opt.Other != OtherAuto && c.opt.Other != OtherSum) {
+		return 0, false
+	}
+	t := 0.0
+	for _, r := range c.rows {
+		if math.IsNaN(r.raw) {
+			return 0, false
+		}
+		t += r.raw
+	}
+	return t, true
 }
 
 func plural(n int, one, many string) string {
