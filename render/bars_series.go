@@ -298,7 +298,7 @@ func (c *rowChart) describeSeries() string {
 	per := map[SeriesLayout]string{LayoutDots: "one dot", LayoutStack: "one segment", LayoutSide: "one bar"}[c.layout]
 	// The kind comes first and ends at the first comma: it is the
 	// accessible name of an untitled chart.
-	fmt.Fprintf(&b, "%s of %s by %s, %d %s, %s per series (%s)", kind, what, by, len(c.rows), plural(len(c.rows), "row", "rows"), per, strings.Join(c.names, ", "))
+	fmt.Fprintf(&b, "%s of %s by %s, %d %s, %s per series (%s)", kind, what, by, len(c.rows), plural(len(c.rows), "category", "categories"), per, strings.Join(c.names, ", "))
 	if c.opt.Order == ByValue || c.opt.Order == "" {
 		if c.layout == LayoutStack {
 			b.WriteString(", largest total first")

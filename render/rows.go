@@ -545,7 +545,16 @@ func (c *rowChart) describeText() string {
 		by = "category"
 	}
 	var b strings.Builder
-	fmt.Fprintf(&b, "%s of %s by %s, %d %s", kind, strings.TrimSpace(what), by, len(c.rows), plural(len(c.rows), "row", "rows"))
+	// The marks are counted by their name, which a listener pictures
+	// ("20 bars"), rather than as rows of a table.
+	mark := [2]string{"bar", "bars"}
+	switch {
+	case c.dots:
+		mark = [2]string{"dot", "dots"}
+	case c.opt.Vertical:
+		mark = [2]string{"column", "columns"}
+	}
+	fmt.Fprintf(&b, "%s of %s by %s, %d %s", kind, strings.TrimSpace(what), by, len(c.rows), plural(len(c.rows), mark[0], mark[1]))
 	switch c.opt.Order {
 	case ByValue, "":
 		b.WriteString(", largest first")
