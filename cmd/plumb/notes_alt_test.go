@@ -113,3 +113,28 @@ func TestColorsFlag(t *testing.T) {
 		t.Errorf("a safe colour with --quiet: exit %d, stderr %q", code, stderr)
 	}
 }
+
+// TestReadmeAltExample runs the README's --alt example and requires the
+// text it shows.
+func TestReadmeAltExample(t *testing.T) {
+	readme, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	const cmd = "$ plumb bars orders.csv --label product --value amount --alt -o orders.svg\n"
+	_, after, ok := strings.Cut(string(readme), cmd)
+	if !ok {
+		t.Fatal("the README lacks its --alt example")
+	}
+	want, _, _ := strings.Cut(after, "\n")
+	dir := t.TempDir()
+	writeFile(t, dir, "orders.csv", "order,product,amount\n1,Tea,12\n2,Coffee,30\n3,Tea,8\n4,Cocoa,5\n5,Coffee,22\n6,Juice,9\n7,Water,4\n8,Tea,6\n")
+	t.Chdir(dir)
+	code, stdout, stderr := plumb(t, "", strings.Fields(cmd)[2:]...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if stdout != want+"\n" {
+		t.Errorf("--alt printed %q; the README shows %q", stdout, want)
+	}
+}
