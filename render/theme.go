@@ -207,13 +207,23 @@ func (f *frame) categorical(n int, what string) ([]Colour, bool, bool) {
 	return cs, user, ok
 }
 
-// diffColors are diffColors, or the caller's first two colours for a and
-// b (areas and lines alike) when Common.Colors gives two or more.
+// diffColors are diffColors, or, when Common.Colors gives two or more,
+// the caller's first two colours for the lines of a and b and a tint of
+// each for their areas: the areas carry their names in the text colour,
+// so each is lightened in its own hue (lightenToContrast) until that text
+// reaches WCAG 2.x's 4.5:1 on it, as the default areas do.
 func (f *frame) diffColors() (areaA, areaB, lineA, lineB Colour) {
-	if s := f.th.series; len(s) >= 2 {
-		return s[0], s[1], s[0], s[1]
+	s := f.th.series
+	if len(s) < 2 {
+		return diffColors()
 	}
-	return diffColors()
+	tint := func(c Colour) Colour {
+		if t, ok := lightenToContrast(c.SRGB(), f.th.text.SRGB(), palette.MinTextContrast); ok {
+			return RGB(t)
+		}
+		return c
+	}
+	return tint(s[0]), tint(s[1]), s[0], s[1]
 }
 
 // rampColors notes that a chart coloured by a ramp (heat maps, maps) keeps

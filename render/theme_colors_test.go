@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"math"
 	"strings"
 	"testing"
 
@@ -117,5 +118,30 @@ func TestColorsNotOpaque(t *testing.T) {
 	var oe *OptionError
 	if !errors.As(err, &oe) || oe.Option != "Colors" {
 		t.Fatalf("err = %v, want an OptionError for Colors", err)
+	}
+}
+
+// TestColorsDiffTints checks a difference chart in the caller's colours:
+// the lines take the colours, the areas a tint of each that still carries
+// text at 4.5:1 (WCAG 2.x), in the colour's own hue.
+func TestColorsDiffTints(t *testing.T) {
+	blue, rust := mustColour(t, "#1f5fa8"), mustColour(t, "#c8553d")
+	f, err := newFrame(Common{Colors: []Colour{blue, rust}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	areaA, areaB, lineA, lineB := f.diffColors()
+	if lineA != blue || lineB != rust {
+		t.Errorf("lines %s, %s; want the colours given", lineA.Hex(), lineB.Hex())
+	}
+	for _, p := range [][2]Colour{{areaA, blue}, {areaB, rust}} {
+		if c := palette.Contrast(p[0].SRGB(), f.th.text.SRGB()); c < palette.MinTextContrast {
+			t.Errorf("area %s: text contrast %.2f, want at least %.1f", p[0].Hex(), c, palette.MinTextContrast)
+		}
+		hueA := palette.OKLabToOKLCH(palette.SRGBToOKLab(p[0].SRGB())).H
+		hueC := palette.OKLabToOKLCH(palette.SRGBToOKLab(p[1].SRGB())).H
+		if d := math.Abs(hueA - hueC); math.Min(d, 360-d) > 10 {
+			t.Errorf("area %s strays %.0f° from the hue of %s", p[0].Hex(), math.Min(d, 360-d), p[1].Hex())
+		}
 	}
 }
