@@ -138,3 +138,28 @@ func TestReadmeAltExample(t *testing.T) {
 		t.Errorf("--alt printed %q; the README shows %q", stdout, want)
 	}
 }
+
+// TestFigureAlt checks plumb figure --alt: one figure's description alone
+// without -o, and the figure still written with -o.
+func TestFigureAlt(t *testing.T) {
+	file := filepath.Join("..", "..", "testdata", "figure", "slide.json")
+	code, stdout, stderr := plumb(t, "", "figure", file, "--alt", "--quiet")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.HasPrefix(stdout, "4 panels. ") || strings.Contains(stdout, "<svg") {
+		t.Errorf("figure --alt printed %q, want the description alone", stdout)
+	}
+	out := filepath.Join(t.TempDir(), "fig.svg")
+	code, withFile, stderr := plumb(t, "", "figure", file, "--alt", "--quiet", "-o", out)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	svg, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if withFile != stdout || svgDesc(t, svg)+"\n" != stdout {
+		t.Errorf("figure --alt -o printed %q, the file's desc is %q", withFile, svgDesc(t, svg))
+	}
+}
