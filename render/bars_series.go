@@ -322,7 +322,7 @@ func (c *rowChart) describeSeries() string {
 			}
 		}
 		if hi >= 0 {
-			fmt.Fprintf(&b, " %s: largest %s at %s, smallest %s at %s.", name, c.rows[hi].label, c.vfmt.Format(c.rows[hi].series[s]), c.rows[lo].label, c.vfmt.Format(c.rows[lo].series[s]))
+			fmt.Fprintf(&b, " %s: largest %s at %s, smallest %s at %s.", name, spokenLabel(c.rows[hi].label), c.vfmt.Format(c.rows[hi].series[s]), spokenLabel(c.rows[lo].label), c.vfmt.Format(c.rows[lo].series[s]))
 		}
 	}
 	if last := c.rows[len(c.rows)-1]; last.other > 0 {

@@ -8,6 +8,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"time"
 	"unicode"
 	"unicode/utf8"
 
@@ -576,7 +577,7 @@ func (c *rowChart) describeText() string {
 			lo = i
 		}
 	}
-	fmt.Fprintf(&b, "Largest: %s at %s; smallest: %s at %s.", c.rows[hi].label, c.vfmt.Format(c.rows[hi].value), c.rows[lo].label, c.vfmt.Format(c.rows[lo].value))
+	fmt.Fprintf(&b, "Largest: %s at %s; smallest: %s at %s.", spokenLabel(c.rows[hi].label), c.vfmt.Format(c.rows[hi].value), spokenLabel(c.rows[lo].label), c.vfmt.Format(c.rows[lo].value))
 	if last := c.rows[len(c.rows)-1]; last.other > 0 {
 		fmt.Fprintf(&b, " %d smaller categories are combined in %s at %s.", last.other, last.label, c.vfmt.Format(last.value))
 	}
@@ -612,4 +613,17 @@ func plural(n int, one, many string) string {
 		return one
 	}
 	return many
+}
+
+// spokenLabel writes a category label for a description: an ISO month
+// ("2024-08") or day ("2024-08-05") as a date a listener hears as one
+// ("Aug 2024", "5 Aug 2024"); any other label as it is.
+func spokenLabel(label string) string {
+	if t, err := time.Parse("2006-01", label); err == nil {
+		return t.Format("Jan 2006")
+	}
+	if t, err := time.Parse("2006-01-02", label); err == nil {
+		return t.Format("2 Jan 2006")
+	}
+	return label
 }
