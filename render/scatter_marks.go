@@ -113,7 +113,11 @@ func (p *scatterPlan) describe() (string, string) {
 		fmt.Fprintf(&b, " Drawn as hexagonal bins; the fullest holds %s.", groupedCount(p.bins.max, "point", "points"))
 	}
 	if p.fit != nil && p.fit.kind == "line" {
-		fmt.Fprintf(&b, " A least-squares line rises %s%s per unit of %s; r = %s.", "", scale.ValueFormat([]float64{p.fit.line.Slope}, "").Format(p.fit.line.Slope), xn, fmtFit(p.fit.line.R))
+		slope, dir := p.fit.line.Slope, "rises"
+		if slope < 0 {
+			slope, dir = -slope, "falls"
+		}
+		fmt.Fprintf(&b, " A least-squares line %s %s per unit of %s; r = %s.", dir, scale.ValueFormat([]float64{slope}, "").Format(slope), xn, fmtFit(p.fit.line.R))
 	}
 	if p.fit != nil && p.fit.kind == "loess" {
 		b.WriteString(" A LOESS curve shows the trend.")
