@@ -181,6 +181,40 @@ func TestGoldenDescriptionFacts(t *testing.T) {
 			}
 			return []string{"Highest: " + rows[hi][0], "Lowest: " + rows[lo][0]}
 		}},
+		{golden: "dots-punctuality", facts: func(t *testing.T) []string {
+			rows := demoColumns(t, "routes.csv", "route", "punctuality_pct")
+			hi, lo := 0, 0
+			for i, r := range rows {
+				if num(t, r[1]) > num(t, rows[hi][1]) {
+					hi = i
+				}
+				if num(t, r[1]) < num(t, rows[lo][1]) {
+					lo = i
+				}
+			}
+			return []string{"Dot plot of sailings on time by route, 20 dots",
+				fmt.Sprintf("Largest: %s at %.1f%%", rows[hi][0], num(t, rows[hi][1])), fmt.Sprintf("smallest: %s at %.1f%%", rows[lo][0], num(t, rows[lo][1]))}
+		}},
+		{golden: "bars-side", facts: func(t *testing.T) []string {
+			rows := demoColumns(t, "fuel.csv", "month", "vessel_a", "vessel_b")
+			var out []string
+			for s, name := range []string{"vessel_a", "vessel_b"} {
+				hi, lo := 0, 0
+				for i, r := range rows {
+					if num(t, r[s+1]) > num(t, rows[hi][s+1]) {
+						hi = i
+					}
+					if num(t, r[s+1]) < num(t, rows[lo][s+1]) {
+						lo = i
+					}
+				}
+				out = append(out, fmt.Sprintf("%s: largest %s at %.0f t, smallest %s at %.0f t", name, month(t, rows[hi][0]), num(t, rows[hi][s+1]), month(t, rows[lo][0]), num(t, rows[lo][s+1])))
+			}
+			return out
+		}},
+		{golden: "fixture-bars-sightings", facts: func(t *testing.T) []string {
+			return []string{"Total: 2,621."} // the count column of testdata/bars/sightings.csv, summed by hand (awk)
+		}},
 		{golden: "scatter-fuel-fit", facts: func(t *testing.T) []string {
 			return []string{"400 points", "fuel burnt (litres) against crossing (km)", "r = 0."}
 		}},
