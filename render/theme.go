@@ -202,7 +202,11 @@ func lightenToContrast(c, bg palette.SRGB, min float64) (palette.SRGB, bool) {
 func (f *frame) categorical(n int, what string) ([]Colour, bool, bool) {
 	cs, user, ok := f.th.categorical(n)
 	if len(f.th.series) > 0 && !user {
-		f.scene.Note("colors-short", true, fmt.Sprintf("%d colours given for %d %s: drew every %s in plumb's own palette; give at least %d colours", len(f.th.series), n, what, strings.TrimSuffix(what, "s"), n))
+		given := fmt.Sprintf("%d colours were", len(f.th.series))
+		if len(f.th.series) == 1 {
+			given = "1 colour was"
+		}
+		f.scene.Note("colors-short", true, fmt.Sprintf("%s given for %d %s: drew them all in plumb's own palette; give at least %d colours", given, n, what, n))
 	}
 	return cs, user, ok
 }

@@ -145,3 +145,39 @@ func TestColorsDiffTints(t *testing.T) {
 		}
 	}
 }
+
+// TestColorsShort checks that fewer colours than series fall back to
+// plumb's palette for all of them, with a note, rather than mixing the two.
+func TestColorsShort(t *testing.T) {
+	x := []float64{1, 2, 3}
+	series := []Series{{Name: "a", X: x, Y: []float64{1, 2, 3}}, {Name: "b", X: x, Y: []float64{3, 1, 2}}, {Name: "c", X: x, Y: []float64{2, 3, 1}}}
+	s, err := LinesScene(series, LinesOptions{Common: Common{Colors: []Colour{mustColour(t, "#1f5fa8"), mustColour(t, "#c8553d")}}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var note string
+	for _, n := range s.Notes {
+		if n.Code == "colors-short" {
+			note = n.Text
+		}
+	}
+	if !strings.HasPrefix(note, "2 colours were given for 3 series") {
+		t.Errorf("colors-short note %q", note)
+	}
+	want, err := palette.Categorical(3)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var buf bytes.Buffer
+	if err := WriteSVG(&buf, s); err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range want {
+		if !strings.Contains(buf.String(), `stroke="`+c.Hex()+`"`) {
+			t.Errorf("no line in the palette's %s", c.Hex())
+		}
+	}
+	if strings.Contains(buf.String(), `stroke="#1f5fa8"`) {
+		t.Error("a line in a colour given, mixed with the palette's")
+	}
+}
