@@ -175,6 +175,16 @@ func TestSceneNoteCodes(t *testing.T) {
 	x := []float64{1, 2, 3, 4, 5}
 	add(LinesScene([]Series{{Name: "a", X: x, Y: []float64{1, 3, 2, 5, 4}}, {Name: "b", X: x, Y: []float64{2, 2, 3, 3, 4}}, {Name: "c", X: x, Y: []float64{5, 1, 2, 3, 1}}},
 		LinesOptions{Common: Common{Colors: []Colour{red, green}}}))
+	var domain string
+	for _, n := range scenes[1].Notes {
+		if n.Code == "dots-domain" {
+			domain = n.Text
+		}
+	}
+	// The dots run from 43 to 100: nice ends below and above, never zero.
+	if !strings.HasPrefix(domain, "the value axis runs from 40 to 100, not from zero") {
+		t.Errorf("dots-domain note %q", domain)
+	}
 	codes := 0
 	for _, s := range scenes {
 		for _, n := range s.Notes {
