@@ -239,12 +239,18 @@ func (c *diffChart) describe() string {
 		fmt.Fprintf(&b, " %s is above %s at %d of %d points%s, and below at %d%s.", c.opt.aName, c.opt.bName,
 			above.points, len(c.d), above.text(c), below.points, below.text(c))
 	}
-	gap := vf
+	// The gap between two percentages is in percentage points.
+	gap := vf.Format
+	if vf.Unit == "%" {
+		pf := vf
+		pf.Unit = ""
+		gap = func(v float64) string { return pf.Format(v) + " percentage points" }
+	}
 	if hi >= 0 && c.d[hi] > 0 {
-		fmt.Fprintf(&b, " Largest gap with %s above: %s at %s.", c.opt.aName, gap.Format(c.d[hi]), xValueText(c.x[hi], c.xk))
+		fmt.Fprintf(&b, " Largest gap with %s above: %s at %s.", c.opt.aName, gap(c.d[hi]), xValueText(c.x[hi], c.xk))
 	}
 	if lo >= 0 && c.d[lo] < 0 {
-		fmt.Fprintf(&b, " Largest gap with %s above: %s at %s.", c.opt.bName, gap.Format(-c.d[lo]), xValueText(c.x[lo], c.xk))
+		fmt.Fprintf(&b, " Largest gap with %s above: %s at %s.", c.opt.bName, gap(-c.d[lo]), xValueText(c.x[lo], c.xk))
 	}
 	for _, s := range series[:2] {
 		b.WriteString(" " + describeSeries(s, vf, c.xk))
