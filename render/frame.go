@@ -36,7 +36,7 @@ type Common struct {
 	// order: the first is the colour of single-series marks, the second
 	// the accent of highlighted marks, and all of them colour series and
 	// groups in order. Text, grid and baseline keep their own colours;
-	// heat maps and maps keep their ramps. Each pair that collides under
+	// heat maps, maps and binned points keep their ramps. Each pair that collides under
 	// a colour vision deficiency and each colour below 3:1 contrast on the
 	// page is a note ("colors-cvd", "colors-contrast"); the chart is still
 	// drawn with them. Nil takes plumb's palette.

@@ -80,7 +80,7 @@ func HeatScene(m HeatMatrix, opt HeatOptions) (*Scene, error) {
 // HeatPanel plans a heat map for a cell of a figure.
 func HeatPanel(m HeatMatrix, opt HeatOptions) Panel {
 	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
-		f.rampColors("heat maps")
+		f.rampColors("heat maps colour values")
 		return planHeat(f, m, opt)
 	})
 }

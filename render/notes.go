@@ -29,7 +29,7 @@ var NoteCodes = []NoteCode{
 	{"calendar-abbreviated", false, "bars, dots", "month or weekday names written in their short forms to fit"},
 	{"colors-contrast", true, "every chart (Colors)", "a colour given has less than 3:1 contrast on the page, with the measured ratio"},
 	{"colors-cvd", true, "every chart (Colors)", "two colours given collide under a colour vision deficiency, with the CIEDE2000 distance per vision"},
-	{"colors-ignored", true, "heat, map (Colors)", "colours given are not used: the chart colours by a lightness ramp"},
+	{"colors-ignored", true, "heat, map, binned scatter (Colors)", "colours given are not used: the chart colours by a lightness ramp"},
 	{"colors-short", true, "bars, dots, lines, scatter (Colors)", "fewer colours given than series or groups: plumb's palette used instead"},
 	{"columns", false, "CLI", "which columns were read for what, when the command line did not say"},
 	{"combined", true, "CLI (bars, dots)", "rows with the same label combined into one (sum, mean, ...), with the counts"},

@@ -53,6 +53,7 @@ func (p *scatterPlan) drawBins(f *frame, plot layout.Box, xs, ys scale.Linear) {
 	if p.ownKey {
 		f.scene.Note("binned", true, fmt.Sprintf("%s are too many to draw one by one: drew them as %s hexagonal bins %s px across, darker for more points (plumb bins above %s points)",
 			groupedCount(len(p.x), "point", "points"), scale.Format{Group: true}.Format(float64(len(p.cells))), strconv.FormatFloat(math.Round(p.hexR*math.Sqrt(3)*10)/10, 'f', -1, 64), scale.Format{Group: true}.Format(BinAbove)))
+		f.rampColors("hexagonal bins colour their counts")
 	}
 	shades := p.bins.shades()
 	for _, c := range p.cells {

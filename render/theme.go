@@ -2,7 +2,6 @@ package render
 
 import (
 	"fmt"
-	"slices"
 	"strings"
 
 	"plumb/palette"
@@ -230,14 +229,13 @@ func (f *frame) diffColors() (areaA, areaB, lineA, lineB Colour) {
 	return tint(s[0]), tint(s[1]), s[0], s[1]
 }
 
-// rampColors notes that a chart coloured by a ramp (heat maps, maps) keeps
-// its ramp when the caller gave colours: a ramp must change monotonically
-// in lightness to be read as more and less, which a list of brand colours
-// does not.
-func (f *frame) rampColors(chart string) {
+// rampColors notes that a chart coloured by a ramp (heat maps, maps,
+// binned points) keeps its ramp when the caller gave colours: a ramp must
+// change monotonically in lightness to be read as more and less, which a
+// list of brand colours does not. what says what the ramp colours, such
+// as "heat maps colour values".
+func (f *frame) rampColors(what string) {
 	if len(f.th.series) > 0 {
-		// The colours are not drawn, so their review does not apply.
-		f.scene.Notes = slices.DeleteFunc(f.scene.Notes, func(n Note) bool { return n.Code == "colors-cvd" || n.Code == "colors-contrast" })
-		f.scene.Note("colors-ignored", true, fmt.Sprintf("%s colour values by a ramp that changes steadily in lightness; the colours given are not used", chart))
+		f.scene.Note("colors-ignored", true, fmt.Sprintf("%s by a ramp that changes steadily in lightness; the colours given are not used", what))
 	}
 }
