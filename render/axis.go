@@ -51,6 +51,10 @@ type xKind struct {
 	// years: whole numbers that all look like calendar years (1800..2100),
 	// printed as years: no thousands separator.
 	years bool
+	// grain is the finest calendar unit the instants use (time only), so
+	// that descriptions write every date at that precision: "Jan 2024"
+	// for monthly data, never "2024". Zero decides per value.
+	grain dateGrain
 }
 
 // yKind says what a value axis must show besides the data.

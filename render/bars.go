@@ -308,6 +308,10 @@ func (c *rowChart) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 		p = c.drawRows(plot, e)
 	}
 	p.text, p.marks = c.f.boxesSince(first)
+	if c.dots && (c.d0 > 0 || c.d1 < 0) {
+		f.scene.Note("dots-domain", false, fmt.Sprintf("the value axis runs from %s to %s, not from zero: a dot's position carries its value, not a length from zero (draw bars to compare amounts)",
+			c.vfmt.Format(c.d0), c.vfmt.Format(c.d1)))
+	}
 	// What the annotation layers read: the values drawn, for a line at
 	// their mean or median, written as the value labels write them.
 	p.values, p.valueText = c.values(), c.numText

@@ -263,13 +263,13 @@ func (c *rowChart) seriesColours() []Colour {
 		out[0] = c.f.th.neutral
 		return out
 	}
-	p, err := palette.Categorical(len(out))
+	p, _, ok := c.f.categorical(len(out), "series")
 	for i := range out {
-		if err != nil || i >= len(p) {
+		if !ok || i >= len(p) {
 			out[i] = c.f.th.neutral
 			continue
 		}
-		out[i] = RGB(p[i])
+		out[i] = p[i]
 	}
 	return out
 }
@@ -298,7 +298,7 @@ func (c *rowChart) describeSeries() string {
 	per := map[SeriesLayout]string{LayoutDots: "one dot", LayoutStack: "one segment", LayoutSide: "one bar"}[c.layout]
 	// The kind comes first and ends at the first comma: it is the
 	// accessible name of an untitled chart.
-	fmt.Fprintf(&b, "%s of %s by %s, %d %s, %s per series (%s)", kind, what, by, len(c.rows), plural(len(c.rows), "row", "rows"), per, strings.Join(c.names, ", "))
+	fmt.Fprintf(&b, "%s of %s by %s, %d %s, %s per series (%s)", kind, what, by, len(c.rows), plural(len(c.rows), "category", "categories"), per, strings.Join(c.names, ", "))
 	if c.opt.Order == ByValue || c.opt.Order == "" {
 		if c.layout == LayoutStack {
 			b.WriteString(", largest total first")
@@ -322,7 +322,7 @@ func (c *rowChart) describeSeries() string {
 			}
 		}
 		if hi >= 0 {
-			fmt.Fprintf(&b, " %s: largest %s at %s, smallest %s at %s.", name, c.rows[hi].label, c.vfmt.Format(c.rows[hi].series[s]), c.rows[lo].label, c.vfmt.Format(c.rows[lo].series[s]))
+			fmt.Fprintf(&b, " %s: largest %s at %s, smallest %s at %s.", name, spokenLabel(c.rows[hi].label), c.vfmt.Format(c.rows[hi].series[s]), spokenLabel(c.rows[lo].label), c.vfmt.Format(c.rows[lo].series[s]))
 		}
 	}
 	if last := c.rows[len(c.rows)-1]; last.other > 0 {

@@ -227,18 +227,96 @@ func (c *diffChart) describe() string {
 	series := []Series{{Name: c.opt.aName, X: c.x, Y: c.a}, {Name: c.opt.bName, X: c.x, Y: c.b}, {X: c.x, Y: c.d}}
 	vf := scale.ValueFormat(shownValues(series), c.opt.Unit)
 	_, _, lo, hi := extremes(c.d)
-	above, below := 0, 0
-	for _, v := range c.d {
-		if v > 0 {
-			above++
-		} else if v < 0 {
-			below++
-		}
+	above, below := c.stretches(1), c.stretches(-1)
+	switch {
+	case above.points == 0 && below.points == 0:
+		fmt.Fprintf(&b, " %s and %s are equal at every point.", c.opt.aName, c.opt.bName)
+	case below.points == 0:
+		fmt.Fprintf(&b, " %s is above %s at %d of %d points%s, and never below.", c.opt.aName, c.opt.bName, above.points, len(c.d), above.text(c))
+	case above.points == 0:
+		fmt.Fprintf(&b, " %s is below %s at %d of %d points%s, and never above.", c.opt.aName, c.opt.bName, below.points, len(c.d), below.text(c))
+	default:
+		fmt.Fprintf(&b, " %s is above %s at %d of %d points%s, and below at %d%s.", c.opt.aName, c.opt.bName,
+			above.points, len(c.d), above.text(c), below.points, below.text(c))
 	}
-	fmt.Fprintf(&b, " %s is above %s at %d of %d points and below at %d.", c.opt.aName, c.opt.bName, above, len(c.d), below)
-	fmt.Fprintf(&b, " Largest difference: %s at %s; smallest: %s at %s.", vf.Format(c.d[hi]), xValueText(c.x[hi], c.xk), vf.Format(c.d[lo]), xValueText(c.x[lo], c.xk))
+	// The gap between two percentages is in percentage points.
+	gap := vf.Format
+	if vf.Unit == "%" {
+		pf := vf
+		pf.Unit = ""
+		gap = func(v float64) string { return pf.Format(v) + " percentage points" }
+	}
+	if hi >= 0 && c.d[hi] > 0 {
+		fmt.Fprintf(&b, " Largest gap with %s above: %s at %s.", c.opt.aName, gap(c.d[hi]), xValueText(c.x[hi], c.xk))
+	}
+	if lo >= 0 && c.d[lo] < 0 {
+		fmt.Fprintf(&b, " Largest gap with %s above: %s at %s.", c.opt.bName, gap(-c.d[lo]), xValueText(c.x[lo], c.xk))
+	}
 	for _, s := range series[:2] {
 		b.WriteString(" " + describeSeries(s, vf, c.xk))
 	}
 	return b.String()
+}
+
+// signRuns are the stretches of x where the difference has one sign.
+type signRuns struct {
+	points int      // points with that sign
+	runs   [][2]int // first and last index of each stretch
+}
+
+// stretches finds where the difference has the given sign (1: a above
+// b, -1: b above a); a missing difference ends a stretch.
+func (c *diffChart) stretches(sign float64) signRuns {
+	var r signRuns
+	start := -1
+	for i, v := range c.d {
+		in := v*sign > 0
+		if in {
+			r.points++
+			if start < 0 {
+				start = i
+			}
+		}
+		if !in && start >= 0 {
+			r.runs = append(r.runs, [2]int{start, i - 1})
+			start = -1
+		}
+	}
+	if start >= 0 {
+		r.runs = append(r.runs, [2]int{start, len(c.d) - 1})
+	}
+	return r
+}
+
+// maxStretches is how many stretches a description names: a reader
+// listening to the text keeps a few in mind, not a list of twenty.
+const maxStretches = 4
+
+// text names the stretches in parentheses ("from Jan 2024 to Jun 2024,
+// at Sep 2024"), at most maxStretches of them, the longest first when
+// there are more.
+func (r signRuns) text(c *diffChart) string {
+	if len(r.runs) == 0 {
+		return ""
+	}
+	runs := slices.Clone(r.runs)
+	more := 0
+	if len(runs) > maxStretches {
+		slices.SortStableFunc(runs, func(a, b [2]int) int { return (b[1] - b[0]) - (a[1] - a[0]) })
+		more = len(runs) - maxStretches
+		runs = runs[:maxStretches]
+		slices.SortFunc(runs, func(a, b [2]int) int { return a[0] - b[0] })
+	}
+	parts := make([]string, 0, len(runs)+1)
+	for _, s := range runs {
+		if s[0] == s[1] {
+			parts = append(parts, "at "+xValueText(c.x[s[0]], c.xk))
+			continue
+		}
+		parts = append(parts, "from "+xValueText(c.x[s[0]], c.xk)+" to "+xValueText(c.x[s[1]], c.xk))
+	}
+	if more > 0 {
+		parts = append(parts, fmt.Sprintf("and %d shorter %s", more, plural(more, "stretch", "stretches")))
+	}
+	return " (" + strings.Join(parts, ", ") + ")"
 }

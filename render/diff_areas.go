@@ -356,7 +356,7 @@ func (f *frame) layoutAreas(pd scale.Polyline, xs, ys scale.Linear, aName, bName
 // keyRows say once what each colour means when no region label does: a
 // colour whose regions are all too thin for a label gets a key row.
 func (f *frame) areaKeyRows(ar diffAreas, aName, bName string, width float64) []keyRow {
-	areaA, areaB, _, _ := diffColors()
+	areaA, areaB, _, _ := f.diffColors()
 	var rows []keyRow
 	add := func(fill Colour, above, below string) {
 		text, ok := f.regionText(above, below, width-f.spec.text-f.spec.gap)

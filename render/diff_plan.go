@@ -24,7 +24,7 @@ func (c *diffChart) fit(f *frame, cellW float64) {
 	yw := c.diff.axes.yLabelWidth(f)
 	if c.levels != nil {
 		yw = math.Max(yw, c.levels.axes.yLabelWidth(f))
-		_, _, lineA, lineB := diffColors()
+		_, _, lineA, lineB := f.diffColors()
 		c.labels, c.labelW = f.measureLabels([]string{c.opt.aName, c.opt.bName}, []Colour{lineA, lineB}, cellW*0.3)
 	}
 	ax := lineAxes{xk: c.xk, x: c.diff.axes.x, labelW: c.labelW}
@@ -151,7 +151,7 @@ func (p *diffPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	bottom := p.axes.draw(f, ay, ys, plot, e)
 	xs := scale.Linear{D0: p.axes.ax.d0, D1: p.axes.ax.d1, R0: plot.X, R1: plot.X + plot.W}
 	ar := f.layoutAreas(p.pd, xs, ys, c.opt.aName, c.opt.bName)
-	areaA, areaB, _, _ := diffColors()
+	areaA, areaB, _, _ := f.diffColors()
 	if len(ar.pos) > 0 {
 		f.scene.Add(Mark{Kind: Path, Class: "plumb-mark plumb-area-a", Lines: ar.pos, Closed: true, Fill: areaA, Attrs: []Attr{{"series", c.opt.aName + " above " + c.opt.bName}}})
 	}
@@ -248,7 +248,7 @@ func (p *levelsPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 	f.scene.Add(Mark{Kind: GroupStart, Class: "plumb-axis"})
 	f.drawYAxis(ay, ys, plot.X, plot.X+plot.W, e.left)
 	f.scene.Add(Mark{Kind: GroupEnd})
-	_, _, lineA, lineB := diffColors()
+	_, _, lineA, lineB := f.diffColors()
 	g := c.diffGeom(f, &p.axes, plot.W)
 	g.left = plot.X
 	labels := append([]label(nil), c.labels...)

@@ -57,5 +57,5 @@ func ExampleTimeSeries() {
 	}
 	fmt.Println(s.Desc)
 	// Output:
-	// Line chart of values over time, 1 series, from 2024 to Dec 2024. riders: 310 at 2024, 320 at Dec 2024, up 10 (+3%); highest 530 at Jul 2024, lowest 295 at Feb 2024.
+	// Line chart of values over time, 1 series, from Jan 2024 to Dec 2024. riders: 310 at Jan 2024, 320 at Dec 2024, up 10 (+3%); highest 530 at Jul 2024, lowest 295 at Feb 2024.
 }

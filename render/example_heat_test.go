@@ -37,5 +37,6 @@ func ExampleHeat() {
 	// Output:
 	// heat-cluster-missing
 	// heat-cluster
+	// heat-scale
 	// heat-missing
 }

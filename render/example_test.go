@@ -77,5 +77,5 @@ func ExampleDots() {
 		return
 	}
 	fmt.Println(s.Desc)
-	// Output: Dot plot of on time by category, 3 rows, largest first. Largest: Sound at 96.2%; smallest: Point at 88.0%.
+	// Output: Dot plot of on time by category, 3 dots, largest first. Largest: Sound at 96.2%; smallest: Point at 88.0%.
 }

@@ -32,6 +32,16 @@ type Common struct {
 	// Periods, Callouts) are options of every chart by those names.
 	Annotations
 
+	// Colors are the caller's own data colours (a brand palette), in
+	// order: the first is the colour of single-series marks, the second
+	// the accent of highlighted marks, and all of them colour series and
+	// groups in order. Text, grid and baseline keep their own colours;
+	// heat maps, maps and binned points keep their ramps. Each pair that collides under
+	// a colour vision deficiency and each colour below 3:1 contrast on the
+	// page is a note ("colors-cvd", "colors-contrast"); the chart is still
+	// drawn with them. Nil takes plumb's palette.
+	Colors []Colour
+
 	// Notes are decisions the caller made before drawing, such as which
 	// columns it read and how; they open the scene's notes, so that the
 	// figure's metadata records them with the chart's own.
@@ -94,11 +104,18 @@ func newFrame(c Common) (*frame, error) {
 	if c.Height > 0 {
 		spec.height = c.Height
 	}
-	f := &frame{c: c, spec: spec, fonts: c.Fonts, th: defaultTheme(), width: spec.width, slack: fallbackSlack}
+	colorNotes, err := checkColors(c.Colors)
+	if err != nil {
+		return nil, err
+	}
+	f := &frame{c: c, spec: spec, fonts: c.Fonts, th: defaultTheme().withColors(c.Colors), width: spec.width, slack: fallbackSlack}
 	if c.EmbedFont || c.Fonts.Regular != nil {
 		f.slack = 1
 	}
 	f.scene = &Scene{Width: spec.width, Title: c.Title, Notes: slices.Clone(c.Notes)}
+	for _, n := range colorNotes {
+		f.scene.Note(n.Code, n.Changed, n.Text)
+	}
 	reg := f.fonts.Face(false)
 	f.scene.Font.Family = reg.Family() + ", sans-serif"
 	f.scene.Font.Faces = layout.Fonts{Regular: reg, Bold: f.fonts.Face(true)}

@@ -80,6 +80,7 @@ func HeatScene(m HeatMatrix, opt HeatOptions) (*Scene, error) {
 // HeatPanel plans a heat map for a cell of a figure.
 func HeatPanel(m HeatMatrix, opt HeatOptions) Panel {
 	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
+		f.rampColors("heat maps colour values")
 		return planHeat(f, m, opt)
 	})
 }
@@ -147,6 +148,15 @@ func planHeat(f *frame, m HeatMatrix, opt HeatOptions) (*heatPlan, error) {
 		return nil, err
 	}
 	p.colours = newHeatScale(lo, hi, opt.Mid)
+	vf := scale.ValueFormat([]float64{lo, hi}, "")
+	switch {
+	case opt.Mid != nil:
+		f.scene.Note("heat-scale", false, fmt.Sprintf("colours diverge about %s as asked, values from %s to %s", vf.Format(*opt.Mid), vf.Format(lo), vf.Format(hi)))
+	case p.colours.diverging:
+		f.scene.Note("heat-scale", false, fmt.Sprintf("the values have both signs (%s to %s): colours diverge about zero, darker away from it on either side", vf.Format(lo), vf.Format(hi)))
+	default:
+		f.scene.Note("heat-scale", false, fmt.Sprintf("one sequential ramp, darker for more, from %s to %s", vf.Format(lo), vf.Format(hi)))
+	}
 	if p.missing > 0 {
 		f.scene.Note("heat-missing", false, fmt.Sprintf("%d of %d cells have no value: drawn in the grey of the key's \"no data\"", p.missing, len(m.Values)))
 	}

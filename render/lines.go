@@ -424,15 +424,15 @@ func (c *lineChart) seriesColors(f *frame) []Colour {
 		out[0] = f.th.neutral
 		return out
 	}
-	p, err := palette.Categorical(n)
+	p, user, ok := f.categorical(n, "series")
 	for i := range out {
 		// More series than colours that stay apart (--together with many
 		// series): all in the neutral colour, for none is told apart.
-		if err != nil || n > palette.MaxCategorical || i >= len(p) {
+		if !ok || (!user && n > palette.MaxCategorical) || i >= len(p) {
 			out[i] = f.th.neutral
 			continue
 		}
-		out[i] = RGB(p[i])
+		out[i] = p[i]
 	}
 	return out
 }

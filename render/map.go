@@ -47,6 +47,7 @@ type MapOptions struct {
 // "no data".
 func MapPanel(regions []Region, names []string, values []float64, opt MapOptions) Panel {
 	return newPanel(opt.Common, func(f *frame) (panelPlan, error) {
+		f.rampColors("maps colour values")
 		return newMapPlan(f, regions, names, values, opt)
 	})
 }

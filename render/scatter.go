@@ -225,14 +225,11 @@ func (p *scatterPlan) setGroups(f *frame, groups []string) error {
 		p.colour = []Colour{f.th.neutral}
 		return nil
 	}
-	pal, err := palette.Categorical(n)
-	if err != nil {
-		return err
+	pal, _, ok := f.categorical(n, "groups")
+	if !ok {
+		return fmt.Errorf("no categorical palette of %d colours", n)
 	}
-	p.colour = make([]Colour, n)
-	for i := range pal {
-		p.colour[i] = RGB(pal[i])
-	}
+	p.colour = pal
 	return nil
 }
 

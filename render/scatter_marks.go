@@ -53,6 +53,7 @@ func (p *scatterPlan) drawBins(f *frame, plot layout.Box, xs, ys scale.Linear) {
 	if p.ownKey {
 		f.scene.Note("binned", true, fmt.Sprintf("%s are too many to draw one by one: drew them as %s hexagonal bins %s px across, darker for more points (plumb bins above %s points)",
 			groupedCount(len(p.x), "point", "points"), scale.Format{Group: true}.Format(float64(len(p.cells))), strconv.FormatFloat(math.Round(p.hexR*math.Sqrt(3)*10)/10, 'f', -1, 64), scale.Format{Group: true}.Format(BinAbove)))
+		f.rampColors("hexagonal bins colour their counts")
 	}
 	shades := p.bins.shades()
 	for _, c := range p.cells {
@@ -113,7 +114,11 @@ func (p *scatterPlan) describe() (string, string) {
 		fmt.Fprintf(&b, " Drawn as hexagonal bins; the fullest holds %s.", groupedCount(p.bins.max, "point", "points"))
 	}
 	if p.fit != nil && p.fit.kind == "line" {
-		fmt.Fprintf(&b, " A least-squares line rises %s%s per unit of %s; r = %s.", "", scale.ValueFormat([]float64{p.fit.line.Slope}, "").Format(p.fit.line.Slope), xn, fmtFit(p.fit.line.R))
+		slope, dir := p.fit.line.Slope, "rises"
+		if slope < 0 {
+			slope, dir = -slope, "falls"
+		}
+		fmt.Fprintf(&b, " A least-squares line %s %s per unit of %s; r = %s.", dir, scale.ValueFormat([]float64{slope}, "").Format(slope), xn, fmtFit(p.fit.line.R))
 	}
 	if p.fit != nil && p.fit.kind == "loess" {
 		b.WriteString(" A LOESS curve shows the trend.")

@@ -29,7 +29,7 @@ type Series struct {
 // look like calendar years and are printed as years (2018, never 2,018).
 func xKindOf(xs [][]float64, isTime bool) xKind {
 	if isTime {
-		return xKind{time: true}
+		return xKind{time: true, grain: grainOf(xs)}
 	}
 	k := xKind{integer: wholeNumbers(xs...), years: true}
 	for _, v := range xs {
@@ -179,15 +179,53 @@ func xValueText(x float64, k xKind) string {
 		return scale.ValueFormat([]float64{x}, "").Format(x)
 	}
 	t := unixTime(x)
-	switch {
-	case t.Hour() != 0 || t.Minute() != 0 || t.Second() != 0:
-		return t.Format("2006-01-02 15:04")
-	case t.Day() != 1:
+	g := k.grain
+	if g == 0 {
+		g = grainOf([][]float64{{x}})
+	}
+	switch g {
+	case grainMinute:
+		return t.Format("2 Jan 2006 15:04")
+	case grainDay:
 		return t.Format("2 Jan 2006")
-	case t.Month() != time.January:
+	case grainMonth:
 		return t.Format("Jan 2006")
 	}
 	return t.Format("2006")
+}
+
+// dateGrain is the finest calendar unit a set of instants uses.
+type dateGrain int
+
+const (
+	grainYear   dateGrain = iota + 1 // every instant is 1 January, midnight
+	grainMonth                       // first days of months
+	grainDay                         // midnights
+	grainMinute                      // times of day
+)
+
+// grainOf is the finest calendar unit the instants (Unix seconds, UTC)
+// use: a series of first days of months is monthly even where it passes
+// through January, so that its first value is "Jan 2024", not "2024".
+func grainOf(xs [][]float64) dateGrain {
+	g := grainYear
+	for _, v := range xs {
+		for _, x := range v {
+			if math.IsNaN(x) || math.IsInf(x, 0) {
+				continue
+			}
+			t := unixTime(x)
+			switch {
+			case t.Hour() != 0 || t.Minute() != 0 || t.Second() != 0:
+				return grainMinute
+			case t.Day() != 1:
+				g = max(g, grainDay)
+			case t.Month() != time.January:
+				g = max(g, grainMonth)
+			}
+		}
+	}
+	return g
 }
 
 // addSeries draws one series: its pieces of two or more points as one
@@ -287,13 +325,27 @@ func describeSeries(s Series, vf scale.Format, k xKind) string {
 	}
 	d := s.Y[last] - s.Y[first]
 	change := "no change"
+	// A change of a percentage is said in percentage points: "up 3.6%"
+	// would read as a relative change, which for 84% to 87.6% is 4%.
+	points := vf.Unit == "%"
+	df := vf
+	if points {
+		df.Unit = ""
+	}
 	switch {
 	case d > 0:
-		change = "up " + vf.Format(d)
+		change = "up " + df.Format(d)
 	case d < 0:
-		change = "down " + vf.Format(-d)
+		change = "down " + df.Format(-d)
 	}
-	if d != 0 && s.Y[first] != 0 {
+	if points && d != 0 {
+		if df.Format(math.Abs(d)) == "1" {
+			change += " percentage point"
+		} else {
+			change += " percentage points"
+		}
+	}
+	if !points && d != 0 && s.Y[first] != 0 {
 		pct := 100 * d / math.Abs(s.Y[first])
 		if math.IsInf(pct, 0) { // 100 * d overflowed, or the ratio did
 			pct = 100 * (d / math.Abs(s.Y[first]))

@@ -94,7 +94,13 @@ func (e SVGEncoder) Encode(w io.Writer, s *Scene) error {
 	fmt.Fprintf(bw, "<desc id=\"%s-desc\">%s</desc>\n", id, escape(s.Desc))
 	bw.WriteString("<metadata>\n<plumb:notes xmlns:plumb=\"" + notesNamespace + "\">\n")
 	for _, n := range s.Notes {
-		bw.WriteString("<plumb:note>" + escape(n.Text) + "</plumb:note>\n")
+		// The code and whether the data was changed let a CI job match
+		// the decisions without parsing their text (see NoteCodes).
+		attrs := ` code="` + escape(n.Code) + `"`
+		if n.Changed {
+			attrs += ` changed="true"`
+		}
+		bw.WriteString("<plumb:note" + attrs + ">" + escape(n.Text) + "</plumb:note>\n")
 	}
 	bw.WriteString("</plumb:notes>\n</metadata>\n")
 	if s.Font.Data != nil && !e.FontDeclared {

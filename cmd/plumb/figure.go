@@ -40,13 +40,15 @@ render in parallel into -o DIR, one NAME.svg per NAME.json.`
 
 // figureKeys are the shared flags a figure file takes at its top level;
 // "columns" and "panels" are the figure's own.
-var figureKeys = []string{"for", "size", "title", "subtitle", "source", "note"}
+var figureKeys = []string{"for", "size", "title", "subtitle", "source", "note", "colors"}
 
 // notPanelKeys are shared flags that mean nothing for one panel, with the
 // reason a panel refuses them.
 var notPanelKeys = map[string]string{
 	"o":          "the output is the figure's: give -o to plumb figure",
 	"quiet":      "a setting of the command: give --quiet to plumb figure",
+	"alt":        "a setting of the command: the description is the whole figure's",
+	"colors":     "the colours are the whole figure's: give them at the top level of the file",
 	"explain":    "a setting of the command: give --explain to plumb figure",
 	"for":        "the medium is the whole figure's: give it at the top level of the file",
 	"size":       "the canvas is the whole figure's: give it at the top level of the file",

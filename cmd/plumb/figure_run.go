@@ -20,6 +20,8 @@ import (
 // figureJob is one figure file to render and what came of it.
 type figureJob struct {
 	in, out string
+	alt     bool   // --alt: keep the description; without -o, write no figure
+	desc    string // the figure's <desc>, kept under --alt
 	notes   []render.Note
 	err     error
 }
@@ -28,11 +30,12 @@ type figureJob struct {
 // render it, in parallel for several files.
 func runFigure(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 	var out string
-	var quiet, explain bool
+	var quiet, explain, alt bool
 	defs := []flagDef{
 		{name: "o", arg: "FILE|DIR", usage: "write the figure to FILE (.svg), or each NAME.json to DIR/NAME.svg (needed for several files; a folder is made); none: standard output", value: stringValue{&out}},
 		{name: "quiet", usage: "print no notes on standard error (errors still print)", value: boolValue{&quiet}},
 		{name: "explain", usage: "also print routine decisions on standard error; the SVG's metadata always has them", value: boolValue{&explain}},
+		{name: "alt", usage: "print each figure's plain-language description (its <desc>) on standard output, after the figure's name when there are several; without -o only the text is printed", value: boolValue{&alt}},
 	}
 	fs := newTableFlagSet("figure", figureSynopsis, defs, stderr)
 	files, err := parse(fs, args)
@@ -44,9 +47,19 @@ func runFigure(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 		return exitCode(err, stderr)
 	}
 	level := (&shared{quiet: quiet, explain: explain}).level()
+	for _, j := range jobs {
+		j.alt = alt
+	}
 	renderFigures(jobs, stdout, progress(stderr, len(jobs)), runtime.GOMAXPROCS(0))
 	code := exitOK
 	for _, j := range jobs {
+		if alt && j.err == nil {
+			if len(jobs) > 1 {
+				fmt.Fprintln(stdout, terminalSafe(j.out)+": "+j.desc)
+			} else {
+				fmt.Fprintln(stdout, j.desc)
+			}
+		}
 		printNotes(stderr, describeOutput(j.out, j.in), j.notes, level)
 		if j.err != nil {
 			printError(stderr, j.err)
@@ -129,6 +142,10 @@ func renderFigure(j *figureJob, stdout io.Writer) ([]render.Note, error) {
 	s, err := render.FigureScene(spec.opt, spec.panels...)
 	if err != nil {
 		return spec.notes, &figureError{fmt.Sprintf("%s: %s", j.in, figureWords(err, spec))}
+	}
+	j.desc = s.Desc
+	if j.alt && (j.out == "" || j.out == "-") {
+		return s.Notes, nil // --alt without -o: the description is the output
 	}
 	// writeFigure draws PNG for a .png name and SVG otherwise.
 	err = writeFigure(j.out, 1, stdout, func(w io.Writer) error { return render.WriteSVG(w, s) })

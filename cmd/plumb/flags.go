@@ -30,6 +30,7 @@ type shared struct {
 	scale                                float64        // --scale: PNG pixels per SVG unit; 0 means 1
 	out, font, format, decimal, maxInput string
 	quiet, explain                       bool
+	alt                                  bool   // --alt: print the figure's description on standard output
 	data                                 string // the data path, set by runChart; names the figure in notes
 
 	by        string // --by: one panel per value of this column
@@ -66,6 +67,9 @@ func (s *shared) flags() []flagDef {
 		{name: "format", arg: "FORMAT", usage: "data format when the file name does not say: csv, tsv, json, semicolon or pipe", value: stringValue{&s.format}},
 		{name: "decimal", arg: "MARK", usage: "decimal mark of the numbers: . or , (default: decided per column from the cells)", value: stringValue{&s.decimal}},
 		{name: "max-input", arg: "SIZE", def: "1GB", usage: "read at most SIZE of data, such as 1GB or 200MB", value: stringValue{&s.maxInput}},
+		{name: "colors", sets: []string{"Colors"}, arg: "HEX,...", usage: "your own data colours in order, such as #1f5fa8,#c8553d: the first for single-series marks, the second for highlights, all for series and groups (checked for colour vision deficiency and contrast; problems are notes)",
+			value: colorsValue{&c.Colors}},
+		{name: "alt", usage: "print the figure's plain-language description (its <desc>, for alt text) on standard output; with -o the figure still goes to the file, without -o only the text is printed", value: boolValue{&s.alt}},
 		{name: "quiet", usage: "print no notes on standard error (errors still print)", value: boolValue{&s.quiet}},
 		{name: "explain", usage: "also print routine decisions (columns chosen, types guessed, banking) on standard error; the SVG's metadata always has them", value: boolValue{&s.explain}},
 	}, annotationFlags(c)...)
@@ -285,7 +289,12 @@ func printNotes(stderr io.Writer, figure string, notes []render.Note, level note
 // notes of loading and drawing, and returns the exit code.
 func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []render.Note, draw func(io.Writer) ([]render.Note, error)) int {
 	before := len(notes)
-	err := writeFigure(sh.out, sh.scale, stdout, func(w io.Writer) error {
+	alt := &altCapture{}
+	write := func(w io.Writer) error {
+		if sh.alt {
+			alt.w = w
+			w = alt
+		}
 		drawn, err := draw(w)
 		for _, n := range drawn {
 			// The loading notes come back from the drawing when the chart
@@ -295,10 +304,76 @@ func emit(chart string, sh *shared, stdout, stderr io.Writer, notes []render.Not
 			}
 		}
 		return err
-	})
+	}
+	var err error
+	if sh.alt && (sh.out == "" || sh.out == "-") {
+		// --alt without -o: the description is the output, and the figure
+		// is drawn but not written.
+		err = write(io.Discard)
+	} else {
+		err = writeFigure(sh.out, sh.scale, stdout, write)
+	}
 	printNotes(stderr, describeOutput(sh.out, sh.data), notes, sh.level())
 	if err != nil {
 		return exitCode(fmt.Errorf("%s: %w", chart, err), stderr)
 	}
+	if sh.alt {
+		if !alt.seen {
+			return exitCode(fmt.Errorf("%s: the figure has no description to print", chart), stderr)
+		}
+		fmt.Fprintln(stdout, alt.desc)
+	}
 	return exitOK
+}
+
+// altCapture is the writer a figure is drawn through under --alt: it takes
+// the scene (render.SceneWriter), keeps its description and passes the
+// scene on to the writer beneath, serialised as SVG unless that writer
+// takes scenes itself (PNG output). The text printed is therefore the
+// very <desc> the figure carries.
+type altCapture struct {
+	w    io.Writer
+	desc string
+	seen bool
+}
+
+func (a *altCapture) Write(p []byte) (int, error) { return a.w.Write(p) }
+
+// WriteScene keeps the scene's description and writes the scene on.
+func (a *altCapture) WriteScene(s *render.Scene) error {
+	a.desc, a.seen = s.Desc, true
+	if a.w == io.Discard {
+		return nil
+	}
+	return render.WriteSVG(a.w, s)
+}
+
+// colorsValue is --colors HEX,...: a comma-separated list of #rgb or
+// #rrggbb colours, each read by render.ParseColour. A value that is not a
+// colour is named, with its place in the list.
+type colorsValue struct{ p *[]render.Colour }
+
+func (v colorsValue) String() string {
+	if v.p == nil {
+		return ""
+	}
+	hex := make([]string, len(*v.p))
+	for i, c := range *v.p {
+		hex[i] = c.Hex()
+	}
+	return strings.Join(hex, ",")
+}
+
+func (v colorsValue) Set(s string) error {
+	var out []render.Colour
+	for i, part := range strings.Split(s, ",") {
+		part = strings.TrimSpace(part)
+		c, err := render.ParseColour(part)
+		if err != nil {
+			return fmt.Errorf("colour %d, %q, is not a hex colour: give #rgb or #rrggbb, such as #1f5fa8", i+1, part)
+		}
+		out = append(out, c)
+	}
+	*v.p = out
+	return nil
 }

@@ -141,7 +141,7 @@ func TestNotesNameTheirFigureAndFilter(t *testing.T) {
 	// The SVG's metadata has the decisions whatever stderr shows.
 	svg, err := os.ReadFile(out)
 	require.NoError(t, err)
-	assert.Contains(t, string(svg), "<plumb:note>")
+	assert.Contains(t, string(svg), `<plumb:note code="columns">`)
 
 	// To standard output, notes name the data file, or <stdin>.
 	_, _, stderr = plumb(t, "", "bars", data)
