@@ -169,12 +169,13 @@ type Panel struct {
 	name   string // data-panel of an untitled panel of a composed chart ("levels")
 	plan   func(f *frame) (panelPlan, error)
 	layers []panelLayer
+	colors []Colour // the panel's own data colours, when its options give them
 }
 
 // newPanel is how every chart's Panel function makes its Panel: the
 // options' title is the heading and their annotations its layers.
 func newPanel(c Common, plan func(f *frame) (panelPlan, error)) Panel {
-	return Panel{Title: c.Title, plan: plan, layers: c.Annotations.layers()}
+	return Panel{Title: c.Title, plan: plan, layers: c.Annotations.layers(), colors: c.Colors}
 }
 
 // gridCell is one panel of a grid with its heading.
@@ -524,7 +525,30 @@ func figureScene(c Common, o gridOptions, panels []Panel) (*Scene, error) {
 			return nil, fmt.Errorf("panel %d: not made by a chart's Panel function", i+1)
 		}
 		k := len(f.notes)
+		// A panel that gives its own colours is planned and drawn in
+		// them, checked like the figure's.
+		own := len(p.colors) > 0 && !slices.Equal(p.colors, f.c.Colors)
+		th := f.th
+		if own {
+			notes, err := checkColors(p.colors)
+			if err != nil {
+				return nil, err
+			}
+			for _, n := range notes {
+				text := n.Text
+				if p.Title != "" {
+					text = p.Title + ": " + text
+				}
+				f.scene.Note(n.Code, n.Changed, text)
+			}
+			th = th.withColors(p.colors)
+		}
+		restore := f.withTheme(th)
 		plan, err := p.plan(f)
+		restore()
+		if own && err == nil {
+			plan = themedPlan{plan, th}
+		}
 		if len(panels) > 1 && p.Title != "" && len(f.notes) > k {
 			// A line under a figure of several panels says which one it
 			// is about.
@@ -587,4 +611,33 @@ func (f *frame) describeGrid(cells []gridCell, o gridOptions) {
 		}
 		f.scene.Title = strings.Join(names, "; ")
 	}
+}
+
+// withTheme sets the frame's theme and returns what restores the old one.
+func (f *frame) withTheme(th theme) (restore func()) {
+	old := f.th
+	f.th = th
+	return func() { f.th = old }
+}
+
+// themedPlan draws a plan in its own theme: a panel of a figure that gives
+// its own colours.
+type themedPlan struct {
+	panelPlan
+	th theme
+}
+
+func (p themedPlan) measure(f *frame, cellW float64, e edges) insets {
+	defer f.withTheme(p.th)()
+	return p.panelPlan.measure(f, cellW, e)
+}
+
+func (p themedPlan) height(f *frame, plotW, room float64) (float64, error) {
+	defer f.withTheme(p.th)()
+	return p.panelPlan.height(f, plotW, room)
+}
+
+func (p themedPlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
+	defer f.withTheme(p.th)()
+	return p.panelPlan.draw(f, plot, e)
 }

@@ -227,3 +227,28 @@ func TestFigureOfWholeCharts(t *testing.T) {
 	assertNoOverlap(t, s)
 	assert.Contains(t, s.Desc, "Bars:")
 }
+
+// A panel of a figure that gives its own colours draws in them, and they
+// are checked like a figure's; its neighbours keep theirs.
+func TestFigurePanelColours(t *testing.T) {
+	red, green := Colour{R: 0xd6, G: 0x27, B: 0x28, A: 255}, Colour{R: 0x2c, G: 0xa0, B: 0x2c, A: 255}
+	s, err := FigureScene(FigureOptions{},
+		BarsPanel([]string{"a", "b"}, []float64{1, 2}, BarsOptions{Common: Common{Title: "own", Colors: []Colour{red, green}}}),
+		BarsPanel([]string{"c", "d"}, []float64{3, 4}, BarsOptions{Common: Common{Title: "plumb's"}}))
+	require.NoError(t, err)
+	var fills []Colour
+	for _, m := range s.Marks {
+		if m.Kind == Rect && m.Class == "plumb-mark" {
+			fills = append(fills, m.Fill)
+		}
+	}
+	require.Len(t, fills, 4)
+	assert.Equal(t, red, fills[0])
+	assert.Equal(t, red, fills[1])
+	assert.Equal(t, defaultTheme().neutral, fills[2])
+	found := false
+	for _, n := range s.Notes {
+		found = found || (n.Code == "colors-cvd" && strings.HasPrefix(n.Text, "own: "))
+	}
+	assert.True(t, found, "the red/green pair is checked and the note names its panel: %v", s.Notes)
+}

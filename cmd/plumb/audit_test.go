@@ -492,3 +492,31 @@ func TestAuditOwnColoursPass(t *testing.T) {
 		}
 	}
 }
+
+// TestAuditIssueCheckInTheFilesColours is the issue's check made entirely
+// of a figure file: the panels give their own colours (six saturated red,
+// green, blue, ... series and very light bars), and audit --json exits 1
+// with findings on aspect (with an angle), colour vision, contrast and
+// crowding.
+func TestAuditIssueCheckInTheFilesColours(t *testing.T) {
+	fs, code := auditJSON(t, auditFixture("check-colours.json"))
+	if code != exitData {
+		t.Errorf("exit %d, want 1", code)
+	}
+	for _, rule := range []string{"aspect-not-banked", "colour-collision", "mark-contrast", "too-many-series"} {
+		if len(byRule(fs, rule)) == 0 {
+			t.Errorf("no %s finding in %+v", rule, fs)
+		}
+	}
+	if a := byRule(fs, "aspect-not-banked"); len(a) > 0 && a[0].Measured == nil {
+		t.Errorf("aspect finding without its angle: %+v", a[0])
+	}
+	// #e3eef8 on white: (1.05)/(L+0.05) with L = 0.8426 (WCAG 2.x relative
+	// luminance, hand computation) is 1.175:1.
+	if c := byRule(fs, "mark-contrast"); len(c) > 0 {
+		last := c[len(c)-1]
+		if last.Measured == nil || math.Abs(*last.Measured-1.176) > 0.01 {
+			t.Errorf("light bars' contrast %+v, want about 1.176", last)
+		}
+	}
+}

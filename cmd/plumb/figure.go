@@ -48,7 +48,6 @@ var notPanelKeys = map[string]string{
 	"o":          "the output is the figure's: give -o to plumb figure",
 	"quiet":      "a setting of the command: give --quiet to plumb figure",
 	"alt":        "a setting of the command: the description is the whole figure's",
-	"colors":     "the colours are the whole figure's: give them at the top level of the file",
 	"explain":    "a setting of the command: give --explain to plumb figure",
 	"for":        "the medium is the whole figure's: give it at the top level of the file",
 	"size":       "the canvas is the whole figure's: give it at the top level of the file",
@@ -421,7 +420,7 @@ func readPanel(raw json.RawMessage, path, dir string, names render.OptionNames) 
 	t, notes, err := ch.readTable(file, nil, nil)
 	if err == nil {
 		var part panelPart
-		part, err = ch.panel(t, nil, render.Common{Title: sh.c.Title, Annotations: sh.c.Annotations}, func(f string) bool { return given[f] })
+		part, err = ch.panel(t, nil, render.Common{Title: sh.c.Title, Annotations: sh.c.Annotations, Colors: sh.c.Colors}, func(f string) bool { return given[f] })
 		if err == nil {
 			notes = append(notes, part.notes...)
 			for i := range notes {

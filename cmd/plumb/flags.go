@@ -365,6 +365,10 @@ func (v colorsValue) String() string {
 }
 
 func (v colorsValue) Set(s string) error {
+	if strings.TrimSpace(s) == "" {
+		*v.p = nil // no colours given: plumb's own
+		return nil
+	}
 	var out []render.Colour
 	for i, part := range strings.Split(s, ",") {
 		part = strings.TrimSpace(part)
