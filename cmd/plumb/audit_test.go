@@ -438,6 +438,8 @@ func TestAuditGalleryPairs(t *testing.T) {
 		{"magnitudes", "magnitudes-apart"},
 		{"narrow", "narrow-domain"},
 		{"override", "honest-default-overridden"},
+		{"colours", "colour-collision"},
+		{"contrast", "mark-contrast"},
 	}
 	for _, p := range pairs {
 		t.Run(p.name, func(t *testing.T) {

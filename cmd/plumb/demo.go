@@ -103,6 +103,10 @@ var gallery = []figure{
 	{"audit-narrow-after", "", []string{"figure", "audit-narrow-after.json"}},
 	{"audit-override-before", "", []string{"figure", "audit-override-before.json"}},
 	{"audit-override-after", "", []string{"figure", "audit-override-after.json"}},
+	{"audit-colours-before", "", []string{"figure", "audit-colours-before.json"}},
+	{"audit-colours-after", "", []string{"figure", "audit-colours-after.json"}},
+	{"audit-contrast-before", "", []string{"figure", "audit-contrast-before.json"}},
+	{"audit-contrast-after", "", []string{"figure", "audit-contrast-after.json"}},
 	{"palette-categorical", "", []string{"palette", "categorical", "--n", "8"}},
 	{"palette-sequential", "", []string{"palette", "sequential", "--n", "7", "--hue", "blue"}},
 	{"palette-diverging", "", []string{"palette", "diverging", "--n", "9"}},
@@ -162,6 +166,18 @@ var demoFigures = map[string]string{
 `,
 	"audit-override-after.json": `{"title": "Passengers per route, 2025", "panels": [
   {"chart": "bars", "data": "routes.csv", "label": "route", "value": "passengers", "top": 8}]}
+`,
+	"audit-colours-before.json": `{"title": "Punctuality of the three busiest routes", "panels": [
+  {"chart": "lines", "data": "punctuality.csv", "x": "month", "y": "on_time_pct", "series": "route", "unit": "%", "colors": "#d62728,#2ca02c,#1f77b4"}]}
+`,
+	"audit-colours-after.json": `{"title": "Punctuality of the three busiest routes", "panels": [
+  {"chart": "lines", "data": "punctuality.csv", "x": "month", "y": "on_time_pct", "series": "route", "unit": "%"}]}
+`,
+	"audit-contrast-before.json": `{"title": "Passengers per route, 2025", "panels": [
+  {"chart": "bars", "data": "routes.csv", "label": "route", "value": "passengers", "top": 8, "colors": "#e3eef8"}]}
+`,
+	"audit-contrast-after.json": `{"title": "Passengers per route, 2025", "panels": [
+  {"chart": "bars", "data": "routes.csv", "label": "route", "value": "passengers", "top": 8, "colors": "#1f5fa8"}]}
 `,
 }
 
