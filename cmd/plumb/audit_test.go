@@ -478,6 +478,9 @@ func TestAuditOwnColoursPass(t *testing.T) {
 	}
 	slices.Sort(names)
 	for _, name := range names {
+		if strings.Contains(demoFigures[name], `"colors"`) {
+			continue // the figure chooses its own colours (a "before" of the colour rules)
+		}
 		dir, err := writeDemoFigure(name)
 		if err != nil {
 			t.Fatal(err)
