@@ -53,6 +53,10 @@ type HeatOptions struct {
 	// Unit is appended to the key's tick labels ("%" only is written as a
 	// sign; others are left to ValueName).
 	Unit string
+	// From and To widen the colour scale to reach them: heat maps side by
+	// side (small multiples) given one range colour a value alike. A
+	// value beyond them still widens the scale; nothing is clipped.
+	From, To *float64
 }
 
 // HeatRectLimit is the most cells a heat map draws as one <rect> each.
@@ -123,7 +127,7 @@ func planHeat(f *frame, m HeatMatrix, opt HeatOptions) (*heatPlan, error) {
 	if err := checkOrder("ColOrder", opt.ColOrder); err != nil {
 		return nil, err
 	}
-	if err := checkFinite("Mid", opt.Mid); err != nil {
+	if err := firstError(checkFinite("Mid", opt.Mid), checkFinite("From", opt.From), checkFinite("To", opt.To)); err != nil {
 		return nil, err
 	}
 	if opt.Tree && opt.RowOrder != HeatByCluster {
@@ -146,6 +150,12 @@ func planHeat(f *frame, m HeatMatrix, opt HeatOptions) (*heatPlan, error) {
 	}
 	if err := p.order(f); err != nil {
 		return nil, err
+	}
+	if opt.From != nil {
+		lo = math.Min(lo, *opt.From)
+	}
+	if opt.To != nil {
+		hi = math.Max(hi, *opt.To)
 	}
 	p.colours = newHeatScale(lo, hi, opt.Mid)
 	vf := scale.ValueFormat([]float64{lo, hi}, "")

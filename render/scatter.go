@@ -25,6 +25,11 @@ type ScatterOptions struct {
 	// appear and are named beside their points when that is unambiguous,
 	// else in a legend.
 	Groups []string
+	// GroupOrder lists the groups in the order they take the categorical
+	// colours, so that the panels of small multiples colour each group
+	// alike even when a panel lacks some; groups it does not list follow
+	// in the order they appear.
+	GroupOrder []string
 	// Fit draws a trend through all the points: "line" fits a straight
 	// line by least squares (r and R² go in the notes), "loess" a smooth
 	// curve (Cleveland 1979: span 0.75, tricube weights, local lines); ""
@@ -221,15 +226,48 @@ func (p *scatterPlan) setGroups(f *frame, groups []string) error {
 		p.colour = []Colour{f.th.neutral}
 		return nil
 	}
-	if n == 1 {
+	// Colours follow GroupOrder, then the order of appearance: every
+	// panel of small multiples then colours a group alike.
+	global := slices.Clone(p.opt.GroupOrder)
+	at := make([]int, n)
+	for k, name := range p.names {
+		i := slices.Index(global, name)
+		if i < 0 {
+			i = len(global)
+			global = append(global, name)
+		}
+		at[k] = i
+	}
+	if len(global) == 1 {
 		p.colour = []Colour{f.th.neutral}
 		return nil
 	}
-	pal, _, ok := f.categorical(n, "groups")
-	if !ok {
-		return fmt.Errorf("no categorical palette of %d colours", n)
+	if len(global) > palette.MaxCategorical {
+		return &RefusalError{Reason: fmt.Sprintf("%d groups are more than colours can tell apart (at most %d)", len(global), palette.MaxCategorical),
+			Instead: "draw one panel per group, or combine the groups into fewer"}
 	}
-	p.colour = pal
+	pal, _, ok := f.categorical(len(global), "groups")
+	if !ok {
+		return fmt.Errorf("no categorical palette of %d colours", len(global))
+	}
+	// Names, legends and colours in that one order too.
+	perm := make([]int, n)
+	for k := range perm {
+		perm[k] = k
+	}
+	slices.SortStableFunc(perm, func(a, b int) int { return at[a] - at[b] })
+	newIndex := make([]int, n)
+	names := make([]string, n)
+	p.colour = make([]Colour, n)
+	for k, old := range perm {
+		newIndex[old] = k
+		names[k] = p.names[old]
+		p.colour[k] = pal[at[old]]
+	}
+	p.names = names
+	for i, g := range p.group {
+		p.group[i] = newIndex[g]
+	}
 	return nil
 }
 

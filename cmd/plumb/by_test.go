@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -180,4 +181,107 @@ func TestMergeNotes(t *testing.T) {
 	}
 	assert.Equal(t, []string{"using column x", `panel "A": skipped 2 rows`}, texts)
 	assert.True(t, slices.ContainsFunc(got, func(n render.Note) bool { return n.Code == "rows-skipped" }))
+}
+
+// Scatter plots by group: one panel per value, one scale on both axes
+// (a point's offset from the axis origin per unit is the same in every
+// panel), and a group has one colour in every panel, even where the first
+// rows of a panel belong to another group.
+func TestByScatter(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("harbour,km,minutes,vessel\n")
+	for i, h := range []string{"North", "South", "East", "West"} {
+		for j := range 12 {
+			v := []string{"ferry", "fast"}[(i+j)%2]
+			fmt.Fprintf(&b, "%s,%d,%d,%s\n", h, 5+j*3+i, 20+j*(5+i), v)
+		}
+	}
+	out := filepath.Join(t.TempDir(), "s.svg")
+	code, _, stderr := plumb(t, b.String(), "scatter", "-", "--format", "csv", "--x", "km", "--y", "minutes", "--group", "vessel", "--by", "harbour", "-o", out)
+	require.Equal(t, exitOK, code, stderr)
+	data, err := os.ReadFile(out)
+	require.NoError(t, err)
+	root := checkFigure(t, data)
+	panels := panelsOf(root)
+	require.Len(t, panels, 4)
+	colourOf := map[string]string{}
+	var scaleX []float64
+	for _, p := range panels {
+		pts := p.all("circle", "plumb-mark")
+		require.Len(t, pts, 12)
+		// Two points of the panel give its px per unit along x.
+		a, z := pts[0], pts[len(pts)-1]
+		scaleX = append(scaleX, (z.num(t, "cx")-a.num(t, "cx"))/(z.num(t, "data-x")-a.num(t, "data-x")))
+		for _, c := range pts {
+			g, fill := c.Attr["data-group"], c.Attr["fill"]
+			if prev, ok := colourOf[g]; ok {
+				assert.Equal(t, prev, fill, "group %s in panel %s", g, p.Attr["data-panel"])
+			}
+			colourOf[g] = fill
+		}
+	}
+	for _, s := range scaleX[1:] {
+		assert.InDelta(t, scaleX[0], s, 1e-6*math.Abs(scaleX[0]), "one px per unit along x")
+	}
+	assert.NotEqual(t, colourOf["ferry"], colourOf["fast"])
+}
+
+// Heat maps by group share one colour scale: a value has one colour in
+// every panel, whatever each panel's own range.
+func TestByHeatSharesColours(t *testing.T) {
+	data := "route,day,hour,load\n" +
+		"North,Mon,6,10\nNorth,Mon,7,20\nNorth,Tue,6,30\nNorth,Tue,7,40\n" +
+		"South,Mon,6,40\nSouth,Mon,7,60\nSouth,Tue,6,80\nSouth,Tue,7,90\n"
+	out := filepath.Join(t.TempDir(), "h.svg")
+	code, _, stderr := plumb(t, data, "heat", "-", "--format", "csv", "--row", "day", "--col", "hour", "--value", "load", "--by", "route", "-o", out)
+	require.Equal(t, exitOK, code, stderr)
+	b, err := os.ReadFile(out)
+	require.NoError(t, err)
+	root := checkFigure(t, b)
+	require.Len(t, panelsOf(root), 2)
+	fill := map[string]string{}
+	for _, c := range root.all("rect", "plumb-mark") {
+		v := c.Attr["data-value"]
+		if prev, ok := fill[v]; ok {
+			assert.Equal(t, prev, c.Attr["fill"], "value %s", v)
+		}
+		fill[v] = c.Attr["fill"]
+	}
+	require.Contains(t, fill, "40")
+	assert.Len(t, fill, 7, "seven distinct values, one colour each")
+	// The wide form has no rows to split.
+	code, _, stderr = plumb(t, "site,a,b\nx,1,2\n", "heat", "-", "--format", "csv", "--by", "site")
+	assert.Equal(t, exitUsage, code)
+	assert.Contains(t, stderr, "long form")
+}
+
+// Maps by group share one set of classes chosen from every row.
+func TestByMapSharesClasses(t *testing.T) {
+	shapes := shapesFile(t, "Alder", "Birch", "Cedar", "Damson")
+	var b strings.Builder
+	b.WriteString("year,place,v\n")
+	for i, y := range []string{"2024", "2025"} {
+		for j, p := range []string{"Alder", "Birch", "Cedar", "Damson"} {
+			fmt.Fprintf(&b, "%s,%s,%d\n", y, p, (i*4+j+1)*10)
+		}
+	}
+	out := filepath.Join(t.TempDir(), "m.svg")
+	code, _, stderr := plumb(t, b.String(), "map", "-", "--format", "csv", "--region", "place", "--value", "v", "--shapes", shapes, "--classes", "4", "--by", "year", "-o", out)
+	require.Equal(t, exitOK, code, stderr)
+	data, err := os.ReadFile(out)
+	require.NoError(t, err)
+	root := checkFigure(t, data)
+	require.Len(t, panelsOf(root), 2)
+	var limits [][]string
+	for _, p := range panelsOf(root) {
+		var l []string
+		for _, s := range p.all("rect", "plumb-key-swatch") {
+			l = append(l, s.Attr["data-high"])
+		}
+		limits = append(limits, l[:len(l)-1]) // the inner limits
+	}
+	assert.Equal(t, limits[0], limits[1], "one set of classes")
+	code, _, stderr = plumb(t, b.String(), "map", "-", "--format", "csv", "--shapes", shapes, "--breaks", "none", "--by", "year")
+	assert.Equal(t, exitUsage, code)
+	assert.Contains(t, stderr, "one set of classes")
 }

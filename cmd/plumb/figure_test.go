@@ -121,7 +121,7 @@ func TestFigureErrors(t *testing.T) {
 		{"switch as string", `{"panels": [{"chart": "bars", "data": "crops.csv", "vertical": "yes"}]}`, `panels[0].vertical: give true or false, not a string`},
 		{"list item", `{"panels": [{"chart": "bars", "data": "crops.csv", "highlight": ["oats", 3]}]}`, `panels[0].highlight: item 1: give a string, not a number`},
 		{"bad choice", `{"panels": [{"chart": "dots", "data": "crops.csv", "order": "size"}]}`, `panels[0].order: "size": use value, label or data`},
-		{"unknown chart", `{"panels": [{"chart": "pie", "data": "crops.csv"}]}`, `panels[0].chart: unknown chart "pie"; use bars, dots, lines, diff, span, box or hist`},
+		{"unknown chart", `{"panels": [{"chart": "pie", "data": "crops.csv"}]}`, `panels[0].chart: unknown chart "pie"; use bars, dots, lines, diff, span, box, hist, scatter, heat or map`},
 		{"no chart", `{"panels": [{"data": "crops.csv"}]}`, `panels[0]: no "chart" key`},
 		{"no data", `{"panels": [{"chart": "bars"}]}`, `panels[0]: no "data" key`},
 		{"missing file", `{"panels": [{"chart": "bars", "data": "nope.csv"}]}`, `panels[0].data: cannot read nope.csv: no such file or directory`},

@@ -13,6 +13,7 @@ import (
 	"github.com/paulmach/orb/geojson"
 
 	"plumb/render"
+	"plumb/scale"
 )
 
 // mapRun is one run of plumb map: the options the builder receives and the
@@ -22,6 +23,7 @@ type mapRun struct {
 	opt                        render.MapOptions
 	region, value, shapes, key string
 	per, breaks                string
+	feats                      []*geojson.Feature // the shapes, read once for every panel
 }
 
 func newMap() *mapRun {
@@ -97,10 +99,26 @@ func (r *mapRun) parseBreaks() error {
 // readValues reads the region names and values, divided by --per COLUMN
 // when given.
 func (r *mapRun) readValues(path string, stdin io.Reader) ([]string, []float64, []render.Note, error) {
-	perCol := ""
-	if r.per != "" && r.per != "area" {
-		perCol = r.per
+	t, notes, err := r.readValuesTable(path, stdin, nil)
+	if err != nil {
+		return nil, nil, nil, err
 	}
+	names, values, more, err := r.valuesOf(t, nil)
+	return names, values, append(notes, more...), err
+}
+
+// perColumn is the column --per divides by, "" for none or area.
+func (r *mapRun) perColumn() string {
+	if r.per != "" && r.per != "area" {
+		return r.per
+	}
+	return ""
+}
+
+// readValuesTable reads the data file and settles the region and value
+// columns; keep are further columns to read (the --by column).
+func (r *mapRun) readValuesTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
+	perCol := r.perColumn()
 	r.opt.PerArea = r.per == "area"
 	var want []string
 	if r.region != "" && r.value != "" {
@@ -108,28 +126,37 @@ func (r *mapRun) readValues(path string, stdin io.Reader) ([]string, []float64, 
 		if perCol != "" {
 			want = append(want, perCol)
 		}
+		want = append(want, keep...)
 	}
 	t, notes, err := readData(path, r.readOptions(), want, stdin)
 	if err != nil {
-		return nil, nil, nil, err
+		return nil, nil, err
 	}
 	if r.region == "" && len(t.Header) > 0 {
 		r.region = t.Header[0]
 	}
 	if !t.Has(r.region) {
-		return nil, nil, nil, t.missingColumn(r.region, 1)
+		return nil, nil, t.missingColumn(r.region, 1)
 	}
 	if r.value == "" {
 		cols, err := t.NumericColumns(r.region, nil, 1, false)
 		if err != nil {
-			return nil, nil, nil, err
+			return nil, nil, err
 		}
 		if len(cols) == 0 {
-			return nil, nil, nil, tooFewColumns(t, "a map needs a region column and a value column")
+			return nil, nil, tooFewColumns(t, "a map needs a region column and a value column")
 		}
 		r.value = cols[0]
 		notes = append(notes, render.Note{Code: "columns", Text: fmt.Sprintf("using column %q for regions and %q for values (choose with --region and --value)", r.region, r.value)})
 	}
+	return t, notes, nil
+}
+
+// valuesOf reads the names and values of the given rows of t (nil: every
+// row), each divided by --per COLUMN when given; rows without a value are
+// left out with a note.
+func (r *mapRun) valuesOf(t *Table, only []int) ([]string, []float64, []render.Note, error) {
+	perCol := r.perColumn()
 	n, err := t.ReadNumbers(r.value)
 	if err != nil {
 		return nil, nil, nil, err
@@ -140,7 +167,7 @@ func (r *mapRun) readValues(path string, stdin io.Reader) ([]string, []float64, 
 	if r.opt.ValueName == "" {
 		r.opt.ValueName = r.value
 	}
-	notes = append(notes, renderNotes(n.Notes)...)
+	notes := renderNotes(n.Notes)
 	var den []float64
 	if perCol != "" {
 		d, err := t.ReadNumbers(perCol)
@@ -150,11 +177,19 @@ func (r *mapRun) readValues(path string, stdin io.Reader) ([]string, []float64, 
 		den = d.Values
 		r.opt.Per = "per " + perCol
 	}
+	rows := only
+	if rows == nil {
+		rows = make([]int, len(n.Values))
+		for i := range rows {
+			rows[i] = i
+		}
+	}
 	all := t.Strings(r.region)
 	var names []string
 	var values []float64
 	var skipped []int
-	for i, v := range n.Values {
+	for _, i := range rows {
+		v := n.Values[i]
 		if v != v {
 			skipped = append(skipped, i)
 			continue
@@ -180,6 +215,75 @@ func (r *mapRun) readValues(path string, stdin io.Reader) ([]string, []float64, 
 	}
 	return names, values, notes, nil
 }
+
+// The panel side of maps (panelChart): one map per value of --by, all in
+// one set of classes, and maps in figure files.
+
+func (r *mapRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
+	t, notes, err := r.readValuesTable(path, stdin, keep)
+	if err != nil {
+		return nil, nil, err
+	}
+	if r.shapes == "" {
+		return nil, nil, usagef("give the regions' outlines with --shapes FILE.geojson")
+	}
+	if err := r.parseBreaks(); err != nil {
+		return nil, nil, err
+	}
+	feats, err := readShapes(r.shapes)
+	if err != nil {
+		return nil, nil, err
+	}
+	r.feats = feats
+	if keep == nil || len(r.opt.BreakList) > 0 {
+		return t, notes, nil
+	}
+	// Small multiples of maps share one set of classes, chosen from every
+	// row, so that a colour means one range of values in every panel.
+	if r.opt.Breaks == "none" || r.opt.PerArea {
+		return nil, nil, usagef("--by draws every map in one set of classes chosen from all rows: give --breaks natural, quantile, equal, nice or a list (not none), and --per COLUMN rather than area")
+	}
+	_, values, _, err := r.valuesOf(t, nil)
+	if err != nil {
+		return nil, nil, err
+	}
+	k := r.opt.Classes
+	if k == 0 {
+		k = 5
+	}
+	var edges []float64
+	switch r.opt.Breaks {
+	case "quantile":
+		edges = scale.QuantileBreaks(values, k)
+	case "equal":
+		edges = scale.EqualBreaks(values, k)
+	case "nice":
+		edges = scale.NiceBreaks(values, k)
+	default:
+		edges = scale.NaturalBreaks(values, k)
+	}
+	if len(edges) > 2 {
+		r.opt.BreakList = edges[1 : len(edges)-1]
+	}
+	return t, notes, nil
+}
+
+func (r *mapRun) panel(t *Table, rows []int, c render.Common, _ func(string) bool) (panelPart, error) {
+	names, values, notes, err := r.valuesOf(t, rows)
+	if err != nil {
+		return panelPart{}, err
+	}
+	regions, jn, err := joinShapes(r.shapes, r.feats, r.key, names, r.region)
+	if err != nil {
+		return panelPart{}, err
+	}
+	opt := r.opt // a copy: every panel starts from the flags
+	opt.Common = c
+	return panelPart{panel: render.MapPanel(regions, names, values, opt), notes: append(notes, jn...), size: sizeOf(values, false)}, nil
+}
+
+// shares: maps share their classes (readTable), not an axis.
+func (r *mapRun) shares() (x, y bool) { return false, false }
 
 // readShapes reads the features of a GeoJSON file (RFC 7946).
 func readShapes(path string) ([]*geojson.Feature, error) {

@@ -53,51 +53,123 @@ func (r *scatterRun) load(path string, stdin io.Reader, _ func(string) bool) ([]
 // read reads the x, y and group columns, leaves out rows missing x or y
 // (with a note naming their lines) and names the axes after the columns.
 func (r *scatterRun) read(path string, stdin io.Reader) ([]render.Note, error) {
+	t, notes, err := r.readTable(path, stdin, nil)
+	if err != nil {
+		return nil, err
+	}
+	d, err := r.rows(t, nil)
+	if err != nil {
+		return nil, err
+	}
+	r.xs, r.ys, r.opt = d.xs, d.ys, d.opt
+	return append(notes, d.notes...), nil
+}
+
+// readTable reads the data file with the x, y and group columns and the
+// columns in keep (the --by column).
+func (r *scatterRun) readTable(path string, stdin io.Reader, keep []string) (*Table, []render.Note, error) {
 	var want []string
 	if r.x != "" && r.y != "" {
 		want = []string{r.x, r.y}
 		if r.group != "" {
 			want = append(want, r.group)
 		}
+		want = append(want, keep...)
 	}
 	t, notes, err := readData(path, r.readOptions(), want, stdin)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if t.Len() == 0 {
-		return nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
+		return nil, nil, &DataError{File: t.File, Err: ErrEmpty, Hint: "the file has a header but no rows"}
 	}
+	return t, notes, nil
+}
+
+// scatterData is what one scatter plot draws: its points, and the options
+// finished from the data.
+type scatterData struct {
+	xs, ys []float64
+	opt    render.ScatterOptions
+	notes  []render.Note
+}
+
+// rows reads the points of the given rows of t (nil: every row) into a
+// copy of the options, so that every panel of --by starts from the flags.
+func (r *scatterRun) rows(t *Table, only []int) (scatterData, error) {
+	d := scatterData{opt: r.opt}
 	cols, more, err := numericPair(t, r.x, r.y, r.group)
 	if err != nil {
-		return nil, err
+		return d, err
 	}
-	notes = append(notes, more...)
+	d.notes = append(d.notes, more...)
 	var groups []string
 	if r.group != "" {
 		if groups = t.Strings(r.group); groups == nil {
-			return nil, t.missingColumn(r.group, 1)
+			return d, t.missingColumn(r.group, 1)
 		}
 	}
 	vals, rows, more, err := readColumns(t, cols)
 	if err != nil {
-		return nil, err
+		return d, err
 	}
-	notes = append(notes, more...)
-	r.xs, r.ys = vals[0], vals[1]
+	d.notes = append(d.notes, more...)
+	d.xs, d.ys = vals[0], vals[1]
+	if only != nil {
+		want := make(map[int]bool, len(only))
+		for _, i := range only {
+			want[i] = true
+		}
+		var keep, kept []int
+		for k, row := range rows {
+			if want[row] {
+				keep, kept = append(keep, k), append(kept, row)
+			}
+		}
+		d.xs, d.ys, rows = pick(d.xs, keep), pick(d.ys, keep), kept
+	}
 	if groups != nil {
-		r.opt.Groups = make([]string, len(rows))
+		// The groups' colour order is the whole table's, so that every
+		// panel of --by colours a group alike.
+		if d.opt.GroupOrder == nil {
+			seen := map[string]bool{}
+			for _, g := range groups {
+				if !seen[g] {
+					seen[g] = true
+					d.opt.GroupOrder = append(d.opt.GroupOrder, g)
+				}
+			}
+		}
+		d.opt.Groups = make([]string, len(rows))
 		for i, row := range rows {
-			r.opt.Groups[i] = groups[row]
+			d.opt.Groups[i] = groups[row]
 		}
 	}
-	if r.opt.XName == "" {
-		r.opt.XName = withUnit(cols[0], t.unitOf(cols[0]))
+	if d.opt.XName == "" {
+		d.opt.XName = withUnit(cols[0], t.unitOf(cols[0]))
 	}
-	if r.opt.YName == "" {
-		r.opt.YName = withUnit(cols[1], t.unitOf(cols[1]))
+	if d.opt.YName == "" {
+		d.opt.YName = withUnit(cols[1], t.unitOf(cols[1]))
 	}
-	return notes, nil
+	return d, nil
 }
+
+// panel plans one scatter panel of the given rows (panelChart), for --by
+// and figure files.
+func (r *scatterRun) panel(t *Table, rows []int, c render.Common, _ func(string) bool) (panelPart, error) {
+	d, err := r.rows(t, rows)
+	if err != nil {
+		return panelPart{}, err
+	}
+	if len(d.xs) == 0 {
+		return panelPart{}, &DataError{File: t.File, Err: ErrEmpty, Hint: "no row of this panel has both an x and a y value"}
+	}
+	d.opt.Common = c
+	return panelPart{panel: render.ScatterPanel(d.xs, d.ys, d.opt), notes: d.notes, size: sizeOf(d.ys, false)}, nil
+}
+
+// shares: small multiples of a scatter plot compare on both axes.
+func (r *scatterRun) shares() (x, y bool) { return true, true }
 
 // numericPair is the x and y columns: the ones named, or else the first
 // numeric columns not taken, with a note saying which.
