@@ -64,7 +64,11 @@ func runBy(cmd command, ch chart, path string, stdin io.Reader, stdout, stderr i
 	}
 	pc, ok := ch.(panelChart)
 	if !ok {
-		return exitCode(usagef("--by %s: plumb %s cannot draw small multiples yet", sh.by, cmd.name), stderr)
+		why := "it cannot be split into panels"
+		if g, ok := ch.(interface{ grid() string }); ok {
+			why = g.grid()
+		}
+		return exitCode(usagef("--by %s: plumb %s draws no small multiples: %s", sh.by, cmd.name, why), stderr)
 	}
 	opt, panels, notes, err := byFigure(pc, path, stdin, given)
 	if err != nil {

@@ -86,3 +86,8 @@ func (r *matrixRun) read(path string, stdin io.Reader) ([]render.Note, error) {
 	}
 	return notes, nil
 }
+
+// grid says why a matrix takes no --by: it is a grid of panels already.
+func (r *matrixRun) grid() string {
+	return "a scatterplot matrix is already a grid of panels; draw one scatter plot per group with plumb scatter --by, or one matrix per group"
+}
