@@ -184,6 +184,16 @@ type gridCell struct {
 	layers []panelLayer
 }
 
+// err names the panel an error is about when the grid has several, as
+// figureScene does for errors of planning, so that a figure file's reader
+// can point at the panel.
+func (c gridCell) err(err error, n int) error {
+	if n > 1 && c.title != "" {
+		return fmt.Errorf("panel %q: %w", c.title, err)
+	}
+	return err
+}
+
 // gridOptions say how a grid is composed.
 type gridOptions struct {
 	cols           int     // a fixed column count; 0 chooses from the count and the aspect
@@ -336,7 +346,7 @@ func (f *frame) drawGrid(cells []gridCell, o gridOptions, top float64) (gridResu
 			start := len(f.scene.Marks)
 			p, err := c.plan.draw(f, plot, e)
 			if err != nil {
-				return gridResult{}, err
+				return gridResult{}, c.err(err, n)
 			}
 			p.start = start
 			for _, l := range c.layers {
@@ -377,7 +387,7 @@ func (f *frame) rowHeights(cells []gridCell, o gridOptions, cols int, plotW, roo
 		for i, c := range cells {
 			h, err := c.plan.height(f, plotW, 0)
 			if err != nil {
-				return nil, err
+				return nil, c.err(err, len(cells))
 			}
 			rowH[i/cols] = math.Max(rowH[i/cols], whole(h))
 		}
@@ -414,7 +424,7 @@ func (f *frame) rowHeights(cells []gridCell, o gridOptions, cols int, plotW, roo
 	}
 	for i, c := range cells {
 		if _, err := c.plan.height(f, plotW, rowH[i/cols]); err != nil {
-			return nil, err
+			return nil, c.err(err, len(cells))
 		}
 	}
 	return rowH, nil
