@@ -159,7 +159,10 @@ func (p *linePlan) draw(f *frame, plot layout.Box, e edges) (placed, error) {
 		p.bank.fill, p.bank.raised, p.bank.alpha = true, false, plot.H/plot.W
 	}
 	f.scene.Note("aspect", false, p.bank.note(plot.W, plot.H))
-	if p.title.lines != nil {
+	// The y axis is named where its tick labels are: on the panels of
+	// the grid's left edge (every panel of a figure whose panels keep
+	// their own scales).
+	if p.title.lines != nil && e.left {
 		f.drawAxisTitle(p.title, plot.X-p.axes.left, plot.Y-halfLine(f)-p.title.height(lineHeight(sp.text))-sp.gap)
 	}
 	bottom := plot.Y + plot.H
