@@ -1,15 +1,27 @@
 // Package render draws honest charts: it turns plain Go slices into a Scene
-// (a flat, ordered display list of rectangles, circles, paths and text with
-// plumb- class names and data- attributes) and serialises the Scene as SVG.
+// (a flat, ordered display list of rectangles, circles, paths, text and
+// images with plumb- class names and data- attributes) and serialises the
+// Scene as SVG or PNG.
 //
 // Each chart kind has an options struct whose zero value draws the honest
 // default, a builder that returns the Scene, and a writer that builds and
 // serialises in one call:
 //
-//	Bars, BarsScene    compare amounts: horizontal bars from zero, largest first
-//	Dots, DotsScene    compare values far from zero: a dot plot, domain fitted
-//	Lines, LinesScene  change over time or order: banked to 45°, direct labels
-//	Diff, DiffScene    the difference of two series against a zero line
+//	Bars, BarsScene        compare amounts: horizontal bars from zero, largest first
+//	Dots, DotsScene        compare values far from zero: a dot plot, domain fitted
+//	SeriesBars, SeriesDots several values per category: dots, stacks, side by side
+//	Lines, LinesScene      change over time or order: banked to 45°, direct labels
+//	Diff, DiffScene        the difference of two series against a zero line
+//	Span, Box, Hist        ranges per category, Tukey box plots, histograms
+//	Scatter, Matrix        relationships: points or bins, scatterplot matrices
+//	Heat                   a matrix of values as colours, rows clustered
+//	Map                    values by place on an equal-area projection
+//
+// Every chart kind is also a Panel (BarsPanel, LinesPanel, ScatterPanel,
+// ...): Figure draws panels in one grid under one title, with shared
+// scales when asked, which is how small multiples and slide figures are
+// made. Common.Annotations adds reference lines, events, periods and
+// callouts to any chart.
 //
 // Bars and dots share RowOptions, so a caller whose bars are refused passes
 // the same options on to a dot plot. Lines and Diff take Series; a series
@@ -33,5 +45,6 @@
 //
 // WriteSVG writes a standalone document; an SVGEncoder writes fragments for
 // inline HTML, with an id prefix and a font declared once per page.
-// Identical scenes always give identical bytes.
+// WritePNG and PNGEncoder draw the same Scene as pixels, with the same
+// fonts. Identical scenes always give identical bytes.
 package render
