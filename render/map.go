@@ -102,6 +102,9 @@ func newMapPlan(f *frame, regions []Region, names []string, values []float64, op
 			return nil, &OptionError{Option: "BreakList", Value: fmt.Sprint(opt.BreakList), Err: fmt.Errorf("class limits must be finite numbers in ascending order")}
 		}
 	}
+	if err := checkDegrees(regions); err != nil {
+		return nil, err
+	}
 	p := &mapPlan{opt: opt, regions: regions, value: make([]float64, len(regions)), has: make([]bool, len(regions))}
 	at := make(map[string]int, len(regions))
 	for i, r := range regions {
@@ -435,4 +438,23 @@ func (p *mapPlan) describe() (string, string) {
 		fmt.Fprintf(&b, " %d %s no data.", len(p.regions)-n, plural(len(p.regions)-n, "region has", "regions have"))
 	}
 	return b.String(), "Map of " + what
+}
+
+// checkDegrees refuses outlines that are not longitude and latitude in
+// degrees (RFC 7946): most often a boundary file still in a projected
+// system's metres, which would draw as nonsense.
+func checkDegrees(regions []Region) error {
+	for _, r := range regions {
+		for _, poly := range r.Shape {
+			for _, ring := range poly {
+				for _, v := range ring {
+					lon, lat := v[0], v[1]
+					if math.IsNaN(lon) || math.IsNaN(lat) || math.Abs(lon) > 540 || math.Abs(lat) > 90 {
+						return fmt.Errorf("region %q has a vertex at (%g, %g), outside longitude −180..180 and latitude −90..90: the boundary file is probably in a projected system's metres; convert it to longitude and latitude in degrees (WGS 84, as GeoJSON requires) first", r.Name, lon, lat)
+					}
+				}
+			}
+		}
+	}
+	return nil
 }

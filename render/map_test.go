@@ -210,3 +210,10 @@ func TestMapHolesEitherWinding(t *testing.T) {
 		assert.NotEqual(t, signedArea(m.Lines[0]) > 0, signedArea(m.Lines[1]) > 0, "outer and hole wind opposite ways")
 	}
 }
+
+// A boundary file still in projected metres is refused with the fix.
+func TestMapRefusesProjectedCoordinates(t *testing.T) {
+	r := []Region{{Name: "metres", Shape: orb.MultiPolygon{{{{500000, 6500000}, {510000, 6500000}, {510000, 6510000}, {500000, 6500000}}}}}}
+	_, err := MapScene(r, []string{"metres"}, []float64{1}, MapOptions{})
+	assert.ErrorContains(t, err, "projected system's metres")
+}

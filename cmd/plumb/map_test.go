@@ -68,3 +68,22 @@ func TestMapJoinErrors(t *testing.T) {
 	assert.Contains(t, errs, `property "code"`)
 	assert.Contains(t, out, `data-label="101"`)
 }
+
+// FuzzMap feeds arbitrary boundary files and tables to plumb map: it must
+// draw or refuse with a message, never panic, never print NaN or Inf.
+func FuzzMap(f *testing.F) {
+	f.Add([]byte(`{"type":"FeatureCollection","features":[{"type":"Feature","properties":{"name":"A"},"geometry":{"type":"Polygon","coordinates":[[[0,60],[1,60],[1,61],[0,61],[0,60]]]}}]}`), "name,v\nA,1\n")
+	f.Add([]byte(`{"type":"FeatureCollection","features":[{"type":"Feature","properties":{"name":"A"},"geometry":{"type":"MultiPolygon","coordinates":[[[[179,-16],[-179,-16],[-179,-19],[179,-19],[179,-16]]]]}}]}`), "name,v\nA,1e308\nB,-1\n")
+	f.Add([]byte(`{"type":"FeatureCollection","features":[{"type":"Feature","properties":{"name":"A"},"geometry":{"type":"Polygon","coordinates":[[[0,0],[0,0],[0,0]]]}}]}`), "name,v\nA,0\n")
+	f.Fuzz(func(t *testing.T, shapes []byte, table string) {
+		dir := t.TempDir()
+		path := filepath.Join(dir, "s.geojson")
+		if err := os.WriteFile(path, shapes, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		code, out, _ := plumb(t, table, "map", "-", "--format", "csv", "--shapes", path, "--labels")
+		if code == 0 && (strings.Contains(out, "NaN") || strings.Contains(out, "Inf")) {
+			t.Fatalf("NaN or Inf in the figure:\n%s", out)
+		}
+	})
+}
