@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"slices"
 	"strconv"
@@ -374,6 +375,9 @@ func joinShapes(file string, feats []*geojson.Feature, key string, names []strin
 			skippedGeom++
 			continue
 		}
+		if err := inDegrees(file, len(regions)+skippedGeom, s, mp); err != nil {
+			return nil, nil, err
+		}
 		regions = append(regions, render.Region{Name: s, Shape: mp})
 		have[s] = true
 		if !want[s] {
@@ -429,4 +433,20 @@ func pluralS2(n int, one, many string) string {
 		return one
 	}
 	return many
+}
+
+// inDegrees checks that feature i (from 0) of file is in longitude and
+// latitude degrees, as RFC 7946 requires: a boundary file still in a
+// projected system's metres is the usual mistake, named with its fix.
+func inDegrees(file string, i int, name string, mp orb.MultiPolygon) error {
+	for _, poly := range mp {
+		for _, ring := range poly {
+			for _, v := range ring {
+				if math.Abs(v[0]) > 540 || math.Abs(v[1]) > 90 {
+					return fmt.Errorf("%s: feature %d (%q) has a vertex at (%g, %g), outside longitude −180..180 and latitude −90..90: the file is probably in a projected system's metres; convert it to longitude and latitude in degrees (WGS 84, as GeoJSON requires)", file, i+1, name, v[0], v[1])
+				}
+			}
+		}
+	}
+	return nil
 }

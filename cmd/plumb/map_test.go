@@ -87,3 +87,14 @@ func FuzzMap(f *testing.F) {
 		}
 	})
 }
+
+// A boundary file in projected metres is refused, naming the file and the
+// feature.
+func TestMapShapesInMetres(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "m.geojson")
+	require.NoError(t, os.WriteFile(path, []byte(`{"type":"FeatureCollection","features":[{"type":"Feature","properties":{"name":"A"},"geometry":{"type":"Polygon","coordinates":[[[500000,6500000],[510000,6500000],[510000,6510000],[500000,6500000]]]}}]}`), 0o644))
+	code, _, errs := plumb(t, "name,v\nA,1\n", "map", "-", "--format", "csv", "--shapes", path)
+	assert.Equal(t, 1, code)
+	assert.Contains(t, errs, path+": feature 1 (\"A\")")
+	assert.Contains(t, errs, "metres")
+}
