@@ -296,22 +296,32 @@ func poleOfInaccessibility(poly [][]Point, precision float64) (Point, float64) {
 		x0, x1 = math.Min(x0, p.X), math.Max(x1, p.X)
 		y0, y1 = math.Min(y0, p.Y), math.Max(y1, p.Y)
 	}
-	size := math.Min(x1-x0, y1-y0)
-	if size <= 0 {
-		return Point{x0, y0}, 0
+	w, ht := x1-x0, y1-y0
+	size := math.Min(w, ht)
+	// A shape thinner than a hundredth of a pixel holds no label; it would
+	// also make the cells too small to step across the shape.
+	if !(size > precision/100) {
+		return Point{(x0 + x1) / 2, (y0 + y1) / 2}, 0
 	}
+	// Square cells the shape's smaller side wide, but no more than about
+	// 4,096 of them for a long thin shape.
+	size = math.Max(size, math.Sqrt(w*ht/4096))
 	h := size / 2
 	var pq poleQueue
-	for x := x0; x < x1; x += size {
-		for y := y0; y < y1; y += size {
-			heap.Push(&pq, newPoleCell(x+h, y+h, h, poly))
+	nx, ny := int(math.Ceil(w/size)), int(math.Ceil(ht/size))
+	for i := range nx {
+		for j := range ny {
+			heap.Push(&pq, newPoleCell(x0+float64(i)*size+h, y0+float64(j)*size+h, h, poly))
 		}
 	}
 	best := newPoleCell((x0+x1)/2, (y0+y1)/2, 0, poly)
 	if c := centroidPoleCell(poly); c.d > best.d {
 		best = c
 	}
-	for pq.Len() > 0 {
+	// The search visits cells best first, so stopping after a bounded
+	// number keeps the best point found, within a few precisions of the
+	// pole on any shape a map draws, and bounds the work on absurd ones.
+	for visited := 0; pq.Len() > 0 && visited < 20000; visited++ {
 		c := heap.Pop(&pq).(poleCell)
 		if c.d > best.d {
 			best = c

@@ -217,3 +217,14 @@ func TestMapRefusesProjectedCoordinates(t *testing.T) {
 	_, err := MapScene(r, []string{"metres"}, []float64{1}, MapOptions{})
 	assert.ErrorContains(t, err, "projected system's metres")
 }
+
+// Shapes too thin or too long for the cell search end at once.
+func TestPoleOfInaccessibilityDegenerate(t *testing.T) {
+	thin := [][]Point{{{500, 100}, {600, 100}, {600, 100 + 1e-13}, {500, 100 + 1e-13}}}
+	_, d := poleOfInaccessibility(thin, 0.5)
+	assert.Zero(t, d)
+	long := [][]Point{{{0, 0}, {1e6, 0}, {1e6, 1}, {0, 1}}}
+	p, d := poleOfInaccessibility(long, 0.5)
+	assert.InDelta(t, 0.5, d, 0.1)
+	assert.InDelta(t, 0.5, p.Y, 0.1)
+}
