@@ -319,3 +319,30 @@ func TestSlideFigureToPNG(t *testing.T) {
 	img := readPNG(t, out)
 	assert.Equal(t, image.Rect(0, 0, 1920, 1080), img.Bounds())
 }
+
+// FuzzFigureFile feeds arbitrary figure files to the parser and, when they
+// parse, to the figure: an error or a figure, never a panic.
+func FuzzFigureFile(f *testing.F) {
+	f.Add([]byte(`{"panels": [{"chart": "bars", "data": "crops.csv", "label": "crop", "value": "tonnes"}]}`))
+	f.Add([]byte(`{"for": "slide", "columns": 3, "colors": "#d62728", "panels": [{"chart": "lines", "data": "crops.csv", "ref": ["mean"]}, {"chart": "hist", "data": "crops.csv", "value": "tonnes"}]}`))
+	f.Add([]byte(`{"panels": [{"chart": "scatter", "data": "crops.csv", "x": "tonnes", "y": "yield_t_ha", "title": "<script>"}]}`))
+	dir, err := filepath.Abs(figureDir)
+	if err != nil {
+		f.Fatal(err)
+	}
+	f.Fuzz(func(t *testing.T, body []byte) {
+		spec, err := parseFigure(body, dir)
+		if err != nil {
+			return
+		}
+		if s, err := render.FigureScene(spec.opt, spec.panels...); err == nil {
+			var b strings.Builder
+			if err := render.WriteSVG(&b, s); err != nil {
+				t.Fatal(err)
+			}
+			if strings.Contains(b.String(), "<script>") {
+				t.Fatal("unescaped text in the figure")
+			}
+		}
+	})
+}
