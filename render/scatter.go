@@ -408,9 +408,13 @@ func (p *scatterPlan) measure(f *frame, cellW float64, e edges) insets {
 	if fb := f.fixedPlotBottom(); fb > 0 && p.titles {
 		h = fb - f.plotTop() - in.top - in.bottom
 	}
+	// A panel beside others gets whatever height its row needs, so names
+	// placed for one size may find no place at the size drawn: beside
+	// other panels, groups are named in a legend, alike in every panel.
+	beside := cellW < f.width-2*f.spec.pad-1
 	if len(p.names) > 1 && w > 0 && h > 0 {
 		p.layout(f, w, h)
-		p.legend = !p.placeGroupLabels(f)
+		p.legend = beside || !p.placeGroupLabels(f)
 		if p.legend {
 			f.scene.Note("legend", false, "named the groups in a legend: labels beside their points would cover other groups' points or each other")
 		}
