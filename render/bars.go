@@ -54,10 +54,7 @@ type DotsOptions struct {
 // returns the notes that record what was decided for the caller.
 func Bars(w io.Writer, labels []string, values []float64, opt BarsOptions) ([]Note, error) {
 	s, err := BarsScene(labels, values, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // BarsScene builds the bar chart's scene without writing it: a figure of
@@ -69,10 +66,7 @@ func BarsScene(labels []string, values []float64, opt BarsOptions) (*Scene, erro
 // Dots draws a dot plot of values by label and writes it as SVG to w.
 func Dots(w io.Writer, labels []string, values []float64, opt DotsOptions) ([]Note, error) {
 	s, err := DotsScene(labels, values, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // DotsScene builds the dot plot's scene without writing it.
@@ -96,11 +90,19 @@ func DotsPanel(labels []string, values []float64, opt DotsOptions) Panel {
 // says what it is), the caller's notes already in the frame, and nothing
 // above it but the frame's gap.
 func rowPanel(labels []string, values []float64, opt BarsOptions, dots, alone bool) Panel {
+	return rowChartPanel(opt, alone, func(f *frame, opt BarsOptions) (*rowChart, error) {
+		return newRowChart(f, labels, values, opt, dots)
+	})
+}
+
+// rowChartPanel makes the Panel of a row chart (one value or several per
+// category) planned by plan.
+func rowChartPanel(opt BarsOptions, alone bool, plan func(f *frame, opt BarsOptions) (*rowChart, error)) Panel {
 	if alone {
 		opt.Notes = nil
 	}
 	p := newPanel(opt.Common, func(f *frame) (panelPlan, error) {
-		c, err := newRowChart(f, labels, values, opt, dots)
+		c, err := plan(f, opt)
 		if c != nil {
 			c.alone = alone
 		}

@@ -45,10 +45,7 @@ const MaxSideSeries = 3
 // BarsOptions.Layout) and writes it as SVG to w.
 func SeriesBars(w io.Writer, labels []string, series []RowSeries, opt BarsOptions) ([]Note, error) {
 	s, err := SeriesBarsScene(labels, series, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // SeriesBarsScene builds the chart of SeriesBars without writing it.
@@ -65,10 +62,7 @@ func SeriesBarsPanel(labels []string, series []RowSeries, opt BarsOptions) Panel
 // category, one dot per series, and writes it as SVG to w.
 func SeriesDots(w io.Writer, labels []string, series []RowSeries, opt DotsOptions) ([]Note, error) {
 	s, err := SeriesDotsScene(labels, series, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // SeriesDotsScene builds the chart of SeriesDots without writing it.
@@ -82,20 +76,9 @@ func SeriesDotsPanel(labels []string, series []RowSeries, opt DotsOptions) Panel
 }
 
 func seriesPanel(labels []string, series []RowSeries, opt BarsOptions, dots, alone bool) Panel {
-	if alone {
-		opt.Notes = nil
-	}
-	p := newPanel(opt.Common, func(f *frame) (panelPlan, error) {
-		c, err := newSeriesChart(f, labels, series, opt, dots)
-		if c != nil {
-			c.alone = alone
-		}
-		return c, err
+	return rowChartPanel(opt, alone, func(f *frame, opt BarsOptions) (*rowChart, error) {
+		return newSeriesChart(f, labels, series, opt, dots)
 	})
-	if alone {
-		p.Title = ""
-	}
-	return p
 }
 
 // newSeriesChart plans a chart of several values per category: the rows

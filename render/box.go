@@ -45,17 +45,12 @@ const MinBoxN = 5
 // notes that record what was decided.
 func Box(w io.Writer, groups []Group, opt BoxOptions) ([]Note, error) {
 	s, err := BoxScene(groups, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // BoxScene builds the box plots' scene without writing it.
 func BoxScene(groups []Group, opt BoxOptions) (*Scene, error) {
-	p := BoxPanel(groups, opt)
-	p.Title = "" // the figure's title, not a panel heading
-	return figureScene(opt.Common, gridOptions{}, []Panel{p})
+	return chartScene(opt.Common, BoxPanel(groups, opt))
 }
 
 // BoxPanel plans box plots for a cell of a figure.

@@ -32,10 +32,7 @@ type DiffOptions struct {
 // difference itself is plotted. It returns the notes.
 func Diff(w io.Writer, a, b Series, opt DiffOptions) ([]Note, error) {
 	s, err := DiffScene(a, b, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // diffColors are the two area colours and the two context line colours:

@@ -28,10 +28,7 @@ type FigureOptions struct {
 // SVG to w. It returns the notes of every panel.
 func Figure(w io.Writer, opt FigureOptions, panels ...Panel) ([]Note, error) {
 	s, err := FigureScene(opt, panels...)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // FigureScene builds the figure's scene without writing it.
@@ -40,6 +37,23 @@ func FigureScene(opt FigureOptions, panels ...Panel) (*Scene, error) {
 		return nil, &OptionError{Option: "Columns", Value: fmt.Sprint(opt.Columns), Err: ErrNegative}
 	}
 	return figureScene(opt.Common, gridOptions{cols: opt.Columns, shareX: opt.ShareX, shareY: opt.ShareY, independent: true}, panels)
+}
+
+// chartScene is the scene of one chart drawn alone: a figure of one
+// panel whose options' title is the figure's title, not a heading of the
+// panel as well.
+func chartScene(c Common, p Panel) (*Scene, error) {
+	p.Title = ""
+	return figureScene(c, gridOptions{}, []Panel{p})
+}
+
+// writeScene writes a chart's scene as SVG and returns its notes: the
+// writer function of every chart kind.
+func writeScene(w io.Writer, s *Scene, err error) ([]Note, error) {
+	if err != nil {
+		return nil, err
+	}
+	return s.Notes, WriteSVG(w, s)
 }
 
 // figureScene is every figure: the frame's words around a grid of panels.

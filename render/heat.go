@@ -68,17 +68,12 @@ const HeatRectLimit = 4000
 // Heat draws a heat map and writes it as SVG to w.
 func Heat(w io.Writer, m HeatMatrix, opt HeatOptions) ([]Note, error) {
 	s, err := HeatScene(m, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // HeatScene builds a heat map's scene without writing it.
 func HeatScene(m HeatMatrix, opt HeatOptions) (*Scene, error) {
-	p := HeatPanel(m, opt)
-	p.Title = "" // the figure's title; a lone panel has no heading
-	return figureScene(opt.Common, gridOptions{}, []Panel{p})
+	return chartScene(opt.Common, HeatPanel(m, opt))
 }
 
 // HeatPanel plans a heat map for a cell of a figure.

@@ -33,17 +33,12 @@ type HistOptions struct {
 // the notes that record what was decided (the rule and the width chosen).
 func Hist(w io.Writer, values []float64, opt HistOptions) ([]Note, error) {
 	s, err := HistScene(values, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // HistScene builds the histogram's scene without writing it.
 func HistScene(values []float64, opt HistOptions) (*Scene, error) {
-	p := HistPanel(values, opt)
-	p.Title = "" // the figure's title, not a panel heading
-	return figureScene(opt.Common, gridOptions{}, []Panel{p})
+	return chartScene(opt.Common, HistPanel(values, opt))
 }
 
 // HistPanel plans a histogram for a cell of a figure.

@@ -55,10 +55,7 @@ const MaxTogether = 4
 // that record what was decided for the caller.
 func Lines(w io.Writer, series []Series, opt LinesOptions) ([]Note, error) {
 	s, err := LinesScene(series, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // LinesScene builds the line chart's scene without writing it: one panel,

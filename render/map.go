@@ -54,16 +54,13 @@ func MapPanel(regions []Region, names []string, values []float64, opt MapOptions
 
 // MapScene builds the map's scene without writing it.
 func MapScene(regions []Region, names []string, values []float64, opt MapOptions) (*Scene, error) {
-	return figureScene(opt.Common, gridOptions{}, []Panel{MapPanel(regions, names, values, opt)})
+	return chartScene(opt.Common, MapPanel(regions, names, values, opt))
 }
 
 // Map draws a choropleth map and writes it as SVG to w.
 func Map(w io.Writer, regions []Region, names []string, values []float64, opt MapOptions) ([]Note, error) {
 	s, err := MapScene(regions, names, values, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 type mapPlan struct {

@@ -35,10 +35,7 @@ const MaxMatrix = 8
 // to w. It returns the notes that record what was decided for the caller.
 func Matrix(w io.Writer, vars []Variable, opt MatrixOptions) ([]Note, error) {
 	s, err := MatrixScene(vars, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // MatrixScene builds the scatterplot matrix's scene without writing it:

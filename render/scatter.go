@@ -55,17 +55,12 @@ var fits = []string{"", "line", "loess"}
 // It returns the notes that record what was decided for the caller.
 func Scatter(w io.Writer, x, y []float64, opt ScatterOptions) ([]Note, error) {
 	s, err := ScatterScene(x, y, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // ScatterScene builds the scatter plot's scene without writing it.
 func ScatterScene(x, y []float64, opt ScatterOptions) (*Scene, error) {
-	p := ScatterPanel(x, y, opt)
-	p.Title = ""
-	return figureScene(opt.Common, gridOptions{}, []Panel{p})
+	return chartScene(opt.Common, ScatterPanel(x, y, opt))
 }
 
 // ScatterPanel plans a scatter plot for a cell of a figure; the options'

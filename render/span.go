@@ -77,17 +77,12 @@ func RangesFromGroups(groups []Group, stat SpanStat) ([]Range, error) {
 // that record what was decided.
 func Span(w io.Writer, ranges []Range, opt SpanOptions) ([]Note, error) {
 	s, err := SpanScene(ranges, opt)
-	if err != nil {
-		return nil, err
-	}
-	return s.Notes, WriteSVG(w, s)
+	return writeScene(w, s, err)
 }
 
 // SpanScene builds the range chart's scene without writing it.
 func SpanScene(ranges []Range, opt SpanOptions) (*Scene, error) {
-	p := SpanPanel(ranges, opt)
-	p.Title = "" // the figure's title, not a panel heading
-	return figureScene(opt.Common, gridOptions{}, []Panel{p})
+	return chartScene(opt.Common, SpanPanel(ranges, opt))
 }
 
 // SpanPanel plans a range chart for a cell of a figure.
