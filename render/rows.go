@@ -83,21 +83,29 @@ func checkRows(labels []string, values []float64) error {
 	return nil
 }
 
-// arrange orders rows and reports a note when it chose the order for the user.
+// arrange orders bar and dot rows by their values, largest first
+// (ByValue), by label, or as given.
 func arrange(rows []row, order Order) error {
-	switch order {
+	return orderBy(rows, order, func(r row) float64 { return r.value }, func(r row) string { return r.label })
+}
+
+// orderBy orders the rows of any chart with one row per category: by key,
+// largest first (ByValue, ties by label), by label in natural order, or
+// as given (ByData).
+func orderBy[T any](rows []T, o Order, key func(T) float64, label func(T) string) error {
+	switch o {
 	case ByValue, "":
-		slices.SortStableFunc(rows, func(a, b row) int {
-			if c := cmp.Compare(b.value, a.value); c != 0 {
+		slices.SortStableFunc(rows, func(a, b T) int {
+			if c := cmp.Compare(key(b), key(a)); c != 0 {
 				return c
 			}
-			return naturalCompare(a.label, b.label)
+			return naturalCompare(label(a), label(b))
 		})
 	case ByLabel:
-		slices.SortStableFunc(rows, func(a, b row) int { return naturalCompare(a.label, b.label) })
+		slices.SortStableFunc(rows, func(a, b T) int { return naturalCompare(label(a), label(b)) })
 	case ByData:
 	default:
-		return fmt.Errorf("unknown order %q: use value, label or data", string(order))
+		return &OptionError{Option: "Order", Value: string(o), Err: fmt.Errorf("use %s, %s or %s", ByValue, ByLabel, ByData)}
 	}
 	return nil
 }

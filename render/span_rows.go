@@ -1,10 +1,8 @@
 package render
 
 import (
-	"cmp"
 	"fmt"
 	"math"
-	"slices"
 
 	"plumb/layout"
 	"plumb/scale"
@@ -57,21 +55,7 @@ type valueRows struct {
 // orderRows orders rows: by key, largest first (ByValue), by label, or as
 // given.
 func orderRows(rows []valueRow, o Order) error {
-	switch o {
-	case ByValue, "":
-		slices.SortStableFunc(rows, func(a, b valueRow) int {
-			if c := cmp.Compare(b.key, a.key); c != 0 {
-				return c
-			}
-			return naturalCompare(a.label, b.label)
-		})
-	case ByLabel:
-		slices.SortStableFunc(rows, func(a, b valueRow) int { return naturalCompare(a.label, b.label) })
-	case ByData:
-	default:
-		return &OptionError{Option: "Order", Value: string(o), Err: fmt.Errorf("use %s, %s or %s", ByValue, ByLabel, ByData)}
-	}
-	return nil
+	return orderBy(rows, o, func(r valueRow) float64 { return r.key }, func(r valueRow) string { return r.label })
 }
 
 // checkLabels refuses an empty list and labels given twice: two rows with
