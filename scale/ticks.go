@@ -453,7 +453,7 @@ func niceTicks(lo, hi float64, m int, con constraint) (Ticks, grid, bool) {
 			lr = math.Log10(r)
 		}
 		p := int(math.Floor(lr))
-		slo, shi := mulPow10(lo, -p), mulPow10(hi, -p)
+		slo, shi := MulPow10(lo, -p), MulPow10(hi, -p)
 		// The scaled bounds carry rounding noise of a few ulps; the slack
 		// keeps it from rejecting the labelling that fits the true bounds.
 		// Whole-number steps mean nothing in power-of-ten units.
@@ -464,8 +464,8 @@ func niceTicks(lo, hi float64, m int, con constraint) (Ticks, grid, bool) {
 			return Ticks{}, grid{}, false
 		}
 		g = grid{start: l.start, j: l.j, q: l.q, e: l.z + p}
-		first := mulPow10(l.start*l.q, g.e)
-		step := mulPow10(float64(l.j)*l.q, g.e)
+		first := MulPow10(l.start*l.q, g.e)
+		step := MulPow10(float64(l.j)*l.q, g.e)
 		v := make([]float64, l.k)
 		for i := range v {
 			v[i] = first + float64(float64(i)*step)
@@ -522,10 +522,11 @@ func cover(v []float64, lo, hi, step float64) ([]float64, bool) {
 	return v, true
 }
 
-// mulPow10 returns x·10^n, in steps so that 10^n itself never overflows or
-// underflows. Dividing by an exact power of ten rounds once, where
+// MulPow10 returns x·10^n, in steps so that 10^n itself never overflows or
+// underflows, for any code that builds nice numbers from a mantissa and a
+// power of ten. Dividing by an exact power of ten rounds once, where
 // multiplying by its inexact reciprocal would round twice.
-func mulPow10(x float64, n int) float64 {
+func MulPow10(x float64, n int) float64 {
 	n = min(max(n, -700), 700) // beyond, every finite x gives 0 or ±Inf anyway
 	for n > 300 {
 		x *= 1e300

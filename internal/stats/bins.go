@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"plumb/scale"
 )
 
 // Rule names how a histogram's bin width was chosen.
@@ -295,10 +297,10 @@ type niceWidth struct {
 // neighbouring widths at most 2.
 var niceMantissas = [...]float64{1, 2, 2.5, 5}
 
-func (w niceWidth) value() float64 { return mulPow10(float64(w.m), w.p) }
+func (w niceWidth) value() float64 { return scale.MulPow10(float64(w.m), w.p) }
 
 // edge is the i-th multiple of the width: (i·m)·10^p, rounded once.
-func (w niceWidth) edge(i float64) float64 { return mulPow10(i*float64(w.m), w.p) }
+func (w niceWidth) edge(i float64) float64 { return scale.MulPow10(i*float64(w.m), w.p) }
 
 // next is the next larger nice width.
 func (w niceWidth) next() niceWidth {
@@ -331,22 +333,4 @@ func nearestNice(h float64) niceWidth {
 		}
 	}
 	return best
-}
-
-// mulPow10 returns x·10^n, dividing by an exact power of ten for negative n
-// so that 3·10^−1 is 0.3 and not 0.30000000000000004.
-func mulPow10(x float64, n int) float64 {
-	n = min(max(n, -700), 700)
-	for n > 300 {
-		x *= 1e300
-		n -= 300
-	}
-	for n < -300 {
-		x /= 1e300
-		n += 300
-	}
-	if n >= 0 {
-		return x * math.Pow10(n)
-	}
-	return x / math.Pow10(-n)
 }
