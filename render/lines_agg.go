@@ -10,6 +10,7 @@ import (
 	"strings"
 	"time"
 
+	"plumb/internal/stats"
 	"plumb/scale"
 )
 
@@ -57,22 +58,6 @@ func (o LinesOptions) aggSpread() (string, error) {
 		return "", &OptionError{Option: "Spread", Value: strconv.Quote(o.Spread), Err: fmt.Errorf("a spread is drawn around a summary line: give %s mean or median too", o.name("Agg"))}
 	}
 	return o.Spread, nil
-}
-
-// quantile7 is the p-quantile of sorted values by Hyndman & Fan (1996)
-// type 7: h = (n-1)p, linear between the order statistics at floor(h) and
-// the next one (counting from 0).
-func quantile7(sorted []float64, p float64) float64 {
-	n := len(sorted)
-	if n == 0 {
-		return math.NaN()
-	}
-	h := float64(n-1) * p
-	j := int(math.Floor(h))
-	if j >= n-1 {
-		return sorted[n-1]
-	}
-	return sorted[j] + (h-float64(j))*(sorted[j+1]-sorted[j])
 }
 
 // meanSD is the mean and the sample standard deviation (n-1 in the
@@ -199,13 +184,13 @@ func summariseAt(vals []float64, agg, spread string) (centre, lo, hi float64) {
 	mean, sd := meanSD(vals)
 	centre = mean
 	if agg == AggMedian {
-		centre = quantile7(vals, 0.5)
+		centre = stats.Quantile(vals, 0.5)
 	}
 	switch spread {
 	case SpreadRange:
 		return centre, vals[0], vals[len(vals)-1]
 	case SpreadIQR:
-		return centre, quantile7(vals, 0.25), quantile7(vals, 0.75)
+		return centre, stats.Quantile(vals, 0.25), stats.Quantile(vals, 0.75)
 	case SpreadSD:
 		// mean ± sd around the mean, whatever the centre: the standard
 		// deviation measures spread about the mean.

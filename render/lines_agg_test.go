@@ -11,6 +11,8 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+
+	"plumb/internal/stats"
 )
 
 // Hyndman & Fan (1996) type 7, worked values from methods.md section 8
@@ -27,11 +29,11 @@ func TestQuantile7(t *testing.T) {
 		{[]float64{1, 3}, 1.5, 2, 2.5}, // h = p: a quarter of the way, by hand
 	}
 	for _, tc := range cases {
-		assert.InDelta(t, tc.q1, quantile7(tc.x, 0.25), 1e-12, "%v", tc.x)
-		assert.InDelta(t, tc.m, quantile7(tc.x, 0.5), 1e-12, "%v", tc.x)
-		assert.InDelta(t, tc.q3, quantile7(tc.x, 0.75), 1e-12, "%v", tc.x)
+		assert.InDelta(t, tc.q1, stats.Quantile(tc.x, 0.25), 1e-12, "%v", tc.x)
+		assert.InDelta(t, tc.m, stats.Quantile(tc.x, 0.5), 1e-12, "%v", tc.x)
+		assert.InDelta(t, tc.q3, stats.Quantile(tc.x, 0.75), 1e-12, "%v", tc.x)
 	}
-	assert.True(t, math.IsNaN(quantile7(nil, 0.5)))
+	assert.True(t, math.IsNaN(stats.Quantile(nil, 0.5)))
 }
 
 func TestMeanSD(t *testing.T) {

@@ -11,6 +11,7 @@ import (
 	"github.com/paulmach/orb"
 	"github.com/paulmach/orb/geo"
 
+	"plumb/internal/stats"
 	"plumb/layout"
 	"plumb/palette"
 	"plumb/scale"
@@ -165,13 +166,13 @@ func (p *mapPlan) classify(f *frame, shown []float64) error {
 		p.edges = append([]float64{math.Min(p.lo, p.opt.BreakList[0])}, p.opt.BreakList...)
 		p.edges = append(p.edges, math.Max(p.hi, p.opt.BreakList[len(p.opt.BreakList)-1]))
 	case p.opt.Breaks == "" || p.opt.Breaks == "natural":
-		p.edges = scale.NaturalBreaks(shown, k)
+		p.edges = stats.NaturalBreaks(shown, k)
 	case p.opt.Breaks == "quantile":
-		p.edges = scale.QuantileBreaks(shown, k)
+		p.edges = stats.QuantileBreaks(shown, k)
 	case p.opt.Breaks == "equal":
-		p.edges = scale.EqualBreaks(shown, k)
+		p.edges = stats.EqualBreaks(shown, k)
 	case p.opt.Breaks == "nice":
-		p.edges = scale.NiceBreaks(shown, k)
+		p.edges = stats.NiceBreaks(shown, k)
 	case p.opt.Breaks == "none":
 		f.scene.Note("map-classes", false, "unclassed: colour in proportion to value, with a continuous key")
 		return nil
@@ -183,7 +184,7 @@ func (p *mapPlan) classify(f *frame, shown []float64) error {
 	}
 	p.counts = make([]int, len(p.edges)-1)
 	for _, v := range shown {
-		p.counts[scale.ClassOf(p.edges, v)]++
+		p.counts[stats.ClassOf(p.edges, v)]++
 	}
 	method := map[string]string{"": "natural breaks (Fisher's optimal grouping)", "natural": "natural breaks (Fisher's optimal grouping)", "quantile": "quantiles (equal counts)", "equal": "equal widths", "nice": "nice round limits"}[p.opt.Breaks]
 	if len(p.opt.BreakList) > 0 {
@@ -305,7 +306,7 @@ func (p *mapPlan) fill(v float64) Colour {
 	t := 0.0
 	if p.edges != nil {
 		n := len(p.edges) - 1
-		c := scale.ClassOf(p.edges, v)
+		c := stats.ClassOf(p.edges, v)
 		if p.diverge {
 			t = (p.edges[c] + p.edges[c+1]) / 2
 			return p.divergeAt(t)

@@ -13,8 +13,8 @@ import (
 	"github.com/paulmach/orb"
 	"github.com/paulmach/orb/geojson"
 
+	"plumb/internal/stats"
 	"plumb/render"
-	"plumb/scale"
 )
 
 // mapRun is one run of plumb map: the options the builder receives and the
@@ -255,13 +255,13 @@ func (r *mapRun) readTable(path string, stdin io.Reader, keep []string) (*Table,
 	var edges []float64
 	switch r.opt.Breaks {
 	case "quantile":
-		edges = scale.QuantileBreaks(values, k)
+		edges = stats.QuantileBreaks(values, k)
 	case "equal":
-		edges = scale.EqualBreaks(values, k)
+		edges = stats.EqualBreaks(values, k)
 	case "nice":
-		edges = scale.NiceBreaks(values, k)
+		edges = stats.NiceBreaks(values, k)
 	default:
-		edges = scale.NaturalBreaks(values, k)
+		edges = stats.NaturalBreaks(values, k)
 	}
 	if len(edges) > 2 {
 		r.opt.BreakList = edges[1 : len(edges)-1]

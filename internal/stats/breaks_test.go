@@ -1,4 +1,4 @@
-package scale
+package stats
 
 import (
 	"math"

@@ -1,8 +1,10 @@
-package scale
+package stats
 
 import (
 	"math"
 	"slices"
+
+	"plumb/scale"
 )
 
 // Class limits for choropleth maps and other classed colour scales. Each
@@ -87,7 +89,7 @@ func QuantileBreaks(values []float64, k int) []float64 {
 	}
 	edges := []float64{v[0]}
 	for i := 1; i < k; i++ {
-		q := quantile7(v, float64(i)/float64(k))
+		q := Quantile(v, float64(i)/float64(k))
 		if q > edges[len(edges)-1] && q < v[len(v)-1] {
 			edges = append(edges, q)
 		}
@@ -125,7 +127,7 @@ func NiceBreaks(values []float64, k int) []float64 {
 	if lo == hi {
 		return []float64{lo, hi}
 	}
-	t := NiceTicks(lo, hi, k+1, TickOptions{})
+	t := scale.NiceTicks(lo, hi, k+1, scale.TickOptions{})
 	edges := []float64{lo}
 	for _, x := range t.Values {
 		if x > lo && x < hi {
@@ -165,15 +167,4 @@ func distinct(sorted []float64) int {
 		}
 	}
 	return n
-}
-
-// quantile7 is the type 7 sample quantile of sorted values (Hyndman & Fan
-// 1996): h = (n−1)p, linear between the neighbouring order statistics.
-func quantile7(sorted []float64, p float64) float64 {
-	h := float64(len(sorted)-1) * p
-	i := int(math.Floor(h))
-	if i+1 >= len(sorted) {
-		return sorted[len(sorted)-1]
-	}
-	return sorted[i] + (h-float64(i))*(sorted[i+1]-sorted[i])
 }
