@@ -21,6 +21,10 @@
 //   - Rows of a matrix are clustered by Ward's (1963) criterion with the
 //     nearest-neighbour chain, and their leaves ordered so that neighbours
 //     are similar, for heat maps (cluster.go, cluster_order.go).
+//   - Class limits of a map are Fisher's (1958) exact optimal partition
+//     ("natural breaks"), type 7 quantiles, equal widths or nice numbers
+//     (breaks.go); scatter plots fit least squares and LOESS (Cleveland
+//     1979) and bin points into hexagons (fit.go, loess.go, bin2d.go).
 //
 // Every function takes plain float64 slices. Inputs must be finite: callers
 // read and validate their data first, and the functions report NaN or an
