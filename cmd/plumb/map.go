@@ -58,25 +58,19 @@ func (r *mapRun) flags() []flagDef {
 }
 
 func (r *mapRun) load(path string, stdin io.Reader, _ func(string) bool) ([]render.Note, func(io.Writer) ([]render.Note, error), error) {
-	if r.shapes == "" {
-		return nil, nil, usagef("give the regions' outlines with --shapes FILE.geojson")
-	}
-	if err := r.parseBreaks(); err != nil {
-		return nil, nil, err
-	}
-	feats, err := readShapes(r.shapes)
+	t, notes, err := r.readTable(path, stdin, nil)
 	if err != nil {
 		return nil, nil, err
 	}
-	names, values, notes, err := r.readValues(path, stdin)
+	names, values, more, err := r.valuesOf(t, nil)
 	if err != nil {
 		return nil, nil, err
 	}
-	regions, jn, err := joinShapes(r.shapes, feats, r.key, names, r.region)
+	regions, jn, err := joinShapes(r.shapes, r.feats, r.key, names, r.region)
 	if err != nil {
 		return nil, nil, err
 	}
-	notes = append(notes, jn...)
+	notes = append(append(notes, more...), jn...)
 	return notes, func(w io.Writer) ([]render.Note, error) { return render.Map(w, regions, names, values, r.opt) }, nil
 }
 
@@ -95,17 +89,6 @@ func (r *mapRun) parseBreaks() error {
 		r.opt.BreakList = append(r.opt.BreakList, v)
 	}
 	return nil
-}
-
-// readValues reads the region names and values, divided by --per COLUMN
-// when given.
-func (r *mapRun) readValues(path string, stdin io.Reader) ([]string, []float64, []render.Note, error) {
-	t, notes, err := r.readValuesTable(path, stdin, nil)
-	if err != nil {
-		return nil, nil, nil, err
-	}
-	names, values, more, err := r.valuesOf(t, nil)
-	return names, values, append(notes, more...), err
 }
 
 // perColumn is the column --per divides by, "" for none or area.
